@@ -1,0 +1,220 @@
+/**
+ * Database schema of Loopyard (PostgreSQL, Drizzle).
+ *
+ * The first four tables are the ones better-auth's Drizzle adapter reads and writes
+ * (columns exactly as its schema generator emits them for provider "pg"); the rest are ours.
+ * Migrations in /drizzle are generated from this file by drizzle-kit; never edit them by hand.
+ *
+ * This file imports only drizzle-orm so that drizzle-kit can load it on its own.
+ */
+import { sql } from "drizzle-orm";
+import {
+  boolean,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from "drizzle-orm/pg-core";
+
+// ---------------------------------------------------------------- better-auth tables
+
+export const user = pgTable("user", {
+  id: text("id").primaryKey(),
+  name: text("name").notNull(),
+  email: text("email").notNull().unique(),
+  emailVerified: boolean("email_verified").default(false).notNull(),
+  image: text("image"),
+  createdAt: timestamp("created_at").defaultNow().notNull(),
+  updatedAt: timestamp("updated_at")
+    .defaultNow()
+    .$onUpdate(() => new Date())
+    .notNull(),
+});
+
+export const session = pgTable(
+  "session",
+  {
+    id: text("id").primaryKey(),
+    expiresAt: timestamp("expires_at").notNull(),
+    token: text("token").notNull().unique(),
+    createdAt: timestamp("created_at").defaultNow().notNull(),
+    updatedAt: timestamp("updated_at")
+      .$onUpdate(() => new Date())
+      .notNull(),
+    ipAddress: text("ip_address"),
+    userAgent: text("user_agent"),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+  },
+  (table) => [index("session_userId_idx").on(table.userId)],
+);
+
+export const account = pgTable(
+  "account",
+  {
+    id: text("id").primaryKey(),
+    accountId: text("account_id").notNull(),
+    providerId: text("provider_id").notNull(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    accessToken: text("access_token"),
+    refreshToken: text("refresh_token"),
+    idToken: text("id_token"),
+    accessTokenExpiresAt: timestamp("access_token_expires_at"),
+    refreshTokenExpiresAt: timestamp("refresh_token_expires_at"),
+    scope: text("scope"),
+    password: text("password"),
+    createdAt: timestamp("created_at").defaultNow().notNull(),
+    updatedAt: timestamp("updated_at")
+      .$onUpdate(() => new Date())
+      .notNull(),
+  },
+  (table) => [index("account_userId_idx").on(table.userId)],
+);
+
+export const verification = pgTable(
+  "verification",
+  {
+    id: text("id").primaryKey(),
+    identifier: text("identifier").notNull(),
+    value: text("value").notNull(),
+    expiresAt: timestamp("expires_at").notNull(),
+    createdAt: timestamp("created_at").defaultNow().notNull(),
+    updatedAt: timestamp("updated_at")
+      .defaultNow()
+      .$onUpdate(() => new Date())
+      .notNull(),
+  },
+  (table) => [index("verification_identifier_idx").on(table.identifier)],
+);
+
+// ---------------------------------------------------------------- Loopyard tables
+
+/** Roles of a member, least to most rights; mirrors ROLES in @loopyard/core. */
+export const roleEnum = pgEnum("member_role", ["viewer", "engineer", "lead", "admin"]);
+
+export const sweepStatusEnum = pgEnum("sweep_status", ["queued", "running", "finished", "failed"]);
+
+export const candidateStatusEnum = pgEnum("candidate_status", ["stable", "unstable"]);
+
+export const workspace = pgTable("workspace", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  slug: text("slug").notNull().unique(),
+  name: text("name").notNull(),
+  createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+});
+
+export const membership = pgTable(
+  "membership",
+  {
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    role: roleEnum("role").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [
+    unique("membership_workspace_user_unique").on(table.workspaceId, table.userId),
+    index("membership_user_idx").on(table.userId),
+  ],
+);
+
+export const plant = pgTable(
+  "plant",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    /** Name of the latest revision, kept here for listing and sorting. */
+    name: text("name").notNull(),
+    kind: text("kind").notNull(),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [index("plant_workspace_idx").on(table.workspaceId)],
+);
+
+/** An immutable version of a plant: rows are inserted, never updated or deleted by the app. */
+export const plantRevision = pgTable(
+  "plant_revision",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    plantId: uuid("plant_id")
+      .notNull()
+      .references(() => plant.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    name: text("name").notNull(),
+    unitsNote: text("units_note").notNull().default(""),
+    model: jsonb("model").notNull(),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [unique("plant_revision_plant_number_unique").on(table.plantId, table.number)],
+);
+
+export const sweep = pgTable(
+  "sweep",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    plantRevisionId: uuid("plant_revision_id")
+      .notNull()
+      .references(() => plantRevision.id),
+    structure: text("structure").notNull(),
+    definition: jsonb("definition").notNull(),
+    status: sweepStatusEnum("status").notNull().default("queued"),
+    total: integer("total").notNull(),
+    done: integer("done").notNull().default(0),
+    error: text("error"),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [
+    index("sweep_workspace_created_idx").on(table.workspaceId, table.createdAt),
+    index("sweep_unfinished_idx")
+      .on(table.status)
+      .where(sql`${table.status} in ('queued', 'running')`),
+  ],
+);
+
+/** One parameter vector of a sweep with its scores (in the order of the sweep's criteria). */
+export const candidate = pgTable(
+  "candidate",
+  {
+    sweepId: uuid("sweep_id")
+      .notNull()
+      .references(() => sweep.id, { onDelete: "cascade" }),
+    index: integer("index").notNull(),
+    params: doublePrecision("params").array().notNull(),
+    status: candidateStatusEnum("status").notNull(),
+    scores: doublePrecision("scores").array(),
+  },
+  (table) => [primaryKey({ columns: [table.sweepId, table.index] })],
+);
+
+export const authSchema = { user, session, account, verification };
