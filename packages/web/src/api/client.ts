@@ -1,0 +1,50 @@
+import type { ApiErrorBody } from "@loopyard/core";
+import { ApiError } from "./api-error.js";
+
+type Method = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
+
+/**
+ * Reads the error sentence out of a failed response. Loopyard routes answer
+ * `{ error: { message, field?, issues? } }`; the auth routes answer `{ message, code }`.
+ */
+function errorBody(status: number, body: unknown): Partial<ApiErrorBody> {
+  if (body && typeof body === "object") {
+    const record = body as Record<string, unknown>;
+    const nested = record.error;
+    if (nested && typeof nested === "object" && typeof (nested as ApiErrorBody).message === "string") {
+      return nested as ApiErrorBody;
+    }
+    if (typeof record.message === "string" && record.message.length > 0) return { message: record.message };
+  }
+  return { message: `The server answered ${status} without an explanation.` };
+}
+
+/**
+ * Calls the Loopyard API under /api with the session cookie; returns the parsed JSON body
+ * or throws an ApiError carrying status, message, field and issues.
+ */
+export async function apiFetch<T>(path: string, options: { method?: Method; body?: unknown } = {}): Promise<T> {
+  const method = options.method ?? "GET";
+  let response: Response;
+  try {
+    response = await fetch(`/api${path}`, {
+      method,
+      credentials: "same-origin",
+      headers: options.body === undefined ? { accept: "application/json" } : { accept: "application/json", "content-type": "application/json" },
+      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+    });
+  } catch {
+    throw new ApiError(0, { message: "Could not reach the Loopyard server." });
+  }
+  const text = await response.text();
+  let parsed: unknown = null;
+  if (text.length > 0) {
+    try {
+      parsed = JSON.parse(text);
+    } catch {
+      parsed = null;
+    }
+  }
+  if (!response.ok) throw new ApiError(response.status, errorBody(response.status, parsed));
+  return parsed as T;
+}

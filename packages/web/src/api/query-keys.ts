@@ -1,0 +1,17 @@
+import type { CriterionId } from "@loopyard/core";
+
+/** Query keys, one tree per workspace so that invalidating a workspace refreshes all of it. */
+export const queryKeys = {
+  me: ["me"] as const,
+  workspace: (slug: string) => ["workspace", slug] as const,
+  plants: (slug: string) => ["workspace", slug, "plants"] as const,
+  plant: (slug: string, plantId: string, revision?: number) =>
+    ["workspace", slug, "plants", plantId, revision ?? "latest"] as const,
+  sweeps: (slug: string) => ["workspace", slug, "sweeps"] as const,
+  sweep: (slug: string, sweepId: string) => ["workspace", slug, "sweeps", sweepId] as const,
+  candidates: (slug: string, sweepId: string) => ["workspace", slug, "sweeps", sweepId, "candidates"] as const,
+  front: (slug: string, sweepId: string, x: CriterionId, y: CriterionId) =>
+    ["workspace", slug, "sweeps", sweepId, "front", x, y] as const,
+  response: (slug: string, sweepId: string, index: number) =>
+    ["workspace", slug, "sweeps", sweepId, "response", index] as const,
+};
