@@ -5,7 +5,7 @@ import { chmodSync, chownSync, existsSync, mkdirSync, readFileSync, readdirSync,
 import { connect } from "node:net";
 import { dirname, join } from "node:path";
 import { DATA_DIR, PG_DATA_DIR, PG_LOG_FILE, PG_RUN_DIR, rel } from "./paths.mjs";
-import { StepError, runCaptured, runOrFail, say, tail, tailOfFile } from "./step.mjs";
+import { StepError, rerunCommand, runCaptured, runOrFail, say, tail, tailOfFile } from "./step.mjs";
 
 export const DEFAULT_PG_PORT = 54329;
 export const PG_USER = "loopyard";
@@ -155,10 +155,10 @@ function ownByPostgres(path, ids) {
 }
 
 /**
- * Creates .data/pg with initdb when it holds no cluster yet: superuser `loopyard`, password `loopyard`,
- * scram-sha-256, UTF8, locale C. Returns a short note for the step line.
+ * Prepares .data for the postgres user: the user itself, a path it can traverse, the socket folder
+ * and the log file. Prints a line for every permission it had to add.
  */
-export async function ensureCluster(binDir) {
+export async function preparePostgresFolders() {
   mkdirSync(DATA_DIR, { recursive: true });
   chmodSync(DATA_DIR, 0o755);
   let ids = null;
@@ -178,7 +178,14 @@ export async function ensureCluster(binDir) {
   ownByPostgres(PG_RUN_DIR, ids);
   if (!existsSync(PG_LOG_FILE)) writeFileSync(PG_LOG_FILE, "");
   ownByPostgres(PG_LOG_FILE, ids);
+}
 
+/**
+ * Creates .data/pg with initdb when it holds no cluster yet: superuser `loopyard`, password `loopyard`,
+ * scram-sha-256, UTF8, locale C. Returns a short note for the step line.
+ */
+export async function ensureCluster(binDir) {
+  const ids = isRoot ? postgresIds() : null;
   if (clusterVersion() !== null) {
     if (ids && statSync(PG_DATA_DIR).uid !== ids.uid) {
       await runOrFail("chown", ["-R", "postgres:postgres", PG_DATA_DIR], {
@@ -264,7 +271,7 @@ export async function startCluster(binDir, port) {
   if (await portAnswers(port)) {
     throw new StepError(
       `Port ${port} on ${PG_HOST} is already taken by another program (perhaps another Loopyard checkout's database), so this checkout's PostgreSQL cannot start there.`,
-      `Stop that program (in another checkout: npm run db:stop), or pick a free port for this checkout, e.g. LOOPYARD_PG_PORT=${port + 10} npm start.`,
+      `Stop that program (in another checkout: npm run db:stop), or pick a free port for this checkout, e.g. LOOPYARD_PG_PORT=${port + 10} ${rerunCommand()}.`,
     );
   }
   const socketDir = PG_RUN_DIR.length <= MAX_SOCKET_DIR_LENGTH ? PG_RUN_DIR : "";
@@ -280,7 +287,7 @@ export async function startCluster(binDir, port) {
   if (result.code !== 0) {
     throw new StepError(
       `PostgreSQL did not start; see ${rel(PG_LOG_FILE)}.`,
-      `If port ${port} is taken, set LOOPYARD_PG_PORT to a free port (e.g. LOOPYARD_PG_PORT=${port + 10}); if the cluster is damaged, run npm run db:stop, delete ${rel(PG_DATA_DIR)} and run again.`,
+      `If port ${port} is taken, set LOOPYARD_PG_PORT to a free port (e.g. LOOPYARD_PG_PORT=${port + 10} ${rerunCommand()}); if the cluster is damaged, run npm run db:stop, delete ${rel(PG_DATA_DIR)} and run again.`,
       tailOfFile(PG_LOG_FILE, 12) || tail(result.output, 12),
     );
   }

@@ -4,7 +4,7 @@ import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { ensureDatabase, recreateDatabase, redact, withDatabase, databaseName } from "./database.mjs";
-import { ensureCluster, findPgBinDir, installPostgres, localDatabaseUrl, pgPort, startCluster } from "./postgres.mjs";
+import { ensureCluster, findPgBinDir, installPostgres, localDatabaseUrl, pgPort, preparePostgresFolders, startCluster } from "./postgres.mjs";
 import { AUTH_SECRET_FILE, DATA_DIR, REPO_ROOT, SERVER_CLI, rel } from "./paths.mjs";
 import { StepError, runOrFail, say, step } from "./step.mjs";
 
@@ -37,6 +37,7 @@ export async function ensureLocalPostgres() {
   } else {
     binDir = await step("Installing PostgreSQL (apt-get install postgresql)", installPostgres);
   }
+  await preparePostgresFolders();
   await step(`PostgreSQL cluster in ${rel(join(DATA_DIR, "pg"))}`, () => ensureCluster(binDir));
   await step("PostgreSQL server", () => startCluster(binDir, port));
   return { serverUrl: localDatabaseUrl("postgres", port), binDir, port };

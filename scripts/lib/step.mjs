@@ -17,6 +17,12 @@ export class StepError extends Error {
 
 const PREFIX = "loopyard ·";
 
+/** The npm command the user ran ("npm start", "npm test"), for hints that say "run it again with …". */
+export function rerunCommand() {
+  const event = process.env.npm_lifecycle_event;
+  return event === "test" || event === "start" ? `npm ${event}` : "npm start";
+}
+
 export function say(line) {
   process.stdout.write(`${PREFIX} ${line}\n`);
 }
