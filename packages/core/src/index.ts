@@ -1,5 +1,6 @@
 // Public surface of @loopyard/core. Every export is named here; types are kept apart.
 
+// Contracts: schemas and constants shared with server and web.
 export { MAX_PLANT_ORDER, transferFunctionSchema } from "./plants/transfer-function.js";
 export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
@@ -13,6 +14,54 @@ export {
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
 
+// Linear algebra.
+export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";
+export { polynomialAdd } from "./linear-algebra/polynomial-add.js";
+export { polynomialMultiply } from "./linear-algebra/polynomial-multiply.js";
+export { polynomialEvaluate } from "./linear-algebra/polynomial-evaluate.js";
+export { trimLeadingZeros } from "./linear-algebra/polynomial-trim.js";
+export { balanceMatrix } from "./linear-algebra/balance-matrix.js";
+export { expm } from "./linear-algebra/expm.js";
+export { discretizeZoh } from "./linear-algebra/discretize-zoh.js";
+
+// Plants.
+export { normalizeTransferFunction } from "./plants/normalize-transfer-function.js";
+export { transferFunctionToStateSpace } from "./plants/transfer-function-to-state-space.js";
+export { plantPoles } from "./plants/plant-poles.js";
+export { openLoopStep } from "./plants/open-loop-step.js";
+export { suggestHorizon } from "./plants/suggest-horizon.js";
+export { DELAY_PADE_ORDER, padeDelay } from "./plants/pade-delay.js";
+
+// Controllers.
+export { assertValidPid } from "./controllers/assert-valid-pid.js";
+export { pidStateSpace } from "./controllers/pid-state-space.js";
+export { pidTransferFunction } from "./controllers/pid-transfer-function.js";
+export { pidFromIdealForm, pidToIdealForm } from "./controllers/pid-ideal-form.js";
+
+// Simulation.
+export { timeGrid } from "./simulation/time-grid.js";
+export {
+  closedLoopCharacteristicPolynomial,
+  characteristicPolynomial,
+} from "./simulation/closed-loop-characteristic-polynomial.js";
+export { closedLoopPoles } from "./simulation/closed-loop-poles.js";
+export { STABILITY_TOLERANCE, isStable } from "./simulation/is-stable.js";
+export { steadyStateInput } from "./simulation/steady-state-input.js";
+export { IllPosedLoopError, WELL_POSEDNESS_TOLERANCE, isWellPosedLoop } from "./simulation/ill-posed-loop-error.js";
+export { simulateLoop } from "./simulation/simulate-loop.js";
+export { evaluateCandidate } from "./simulation/evaluate-candidate.js";
+
+// Criteria.
+export { iae, iaeCriterion } from "./criteria/iae.js";
+export { ise, iseCriterion } from "./criteria/ise.js";
+export { itae, itaeCriterion } from "./criteria/itae.js";
+export { effort, effortCriterion } from "./criteria/effort.js";
+export { CRITERIA } from "./criteria/registry.js";
+
+// Sweeps and fronts.
+export { gridCandidates } from "./sweeps/grid-candidates.js";
+export { paretoFront } from "./fronts/pareto-front.js";
+
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
@@ -22,3 +71,9 @@ export type { ParameterRange, DerivativeFilter, SweepInput, SweepInputParsed } f
 export type { Role } from "./api/roles.js";
 export type { Complex } from "./linear-algebra/complex.js";
 export type * from "./api/dto.js";
+export type { SisoStateSpace, DiscreteSisoStateSpace } from "./linear-algebra/siso-state-space.js";
+export type { NormalizedTransferFunction } from "./plants/normalize-transfer-function.js";
+export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";
+export type { LoopTrace, SetpointStepScenario } from "./simulation/loop-trace.js";
+export type { CandidateEvaluation } from "./simulation/evaluate-candidate.js";
+export type { CriterionDefinition } from "./criteria/criterion-definition.js";

@@ -68,6 +68,20 @@ export const sweepInputSchema = z
         message: `horizon/dt gives ${Math.ceil(samples)} samples, more than ${MAX_SIMULATION_SAMPLES}; raise the time step or shorten the horizon`,
       });
     }
+    if (s.filter.mode === "fixed" && s.filter.tf === 0 && kd.max > 0) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["filter", "tf"],
+        message: "tf must be > 0 s when kd can be non-zero: the derivative needs its filter",
+      });
+    }
+    if (s.filter.mode === "ratio" && kp.min === 0 && kd.max > 0) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["ranges", "kp", "min"],
+        message: "with the ratio filter tf = kd/(n·kp), kp must be > 0 wherever kd is non-zero; raise kp min or use a fixed tf",
+      });
+    }
     if (s.scenario.dt > s.scenario.horizon / 10) {
       ctx.addIssue({ code: "custom", path: ["scenario", "dt"], message: "the time step must be at most a tenth of the horizon" });
     }
