@@ -6,6 +6,7 @@ import type { ChildProcess } from "node:child_process";
 import { createWriteStream, existsSync, mkdirSync, readFileSync } from "node:fs";
 import { createServer } from "node:net";
 import { fileURLToPath } from "node:url";
+import type {} from "vitest";
 import type { TestProject } from "vitest/node";
 
 declare module "vitest" {
