@@ -1,0 +1,89 @@
+import express, { type Express } from "express";
+import { toNodeHandler } from "better-auth/node";
+import type { AppConfig } from "./config.js";
+import { createAuth, type Auth } from "./auth/auth.js";
+import { requireSession } from "./auth/session-middleware.js";
+import { createDatabase, type RootDatabase } from "./db/database.js";
+import { apiNotFound, errorMiddleware } from "./http/error-middleware.js";
+import { apiHeaders, securityHeaders } from "./http/security-headers.js";
+import { serveWebApp } from "./http/web-app.js";
+import { meRoutes } from "./me/me-routes.js";
+import { plantRoutes } from "./plants/plant-routes.js";
+import { SweepRunner } from "./sweeps/sweep-runner.js";
+import { sweepRoutes } from "./sweeps/sweep-routes.js";
+import { workspaceRoutes } from "./workspaces/workspace-routes.js";
+
+/** Largest JSON request body accepted (bigger bodies get a 413). */
+export const JSON_BODY_LIMIT = "256kb";
+
+/** The running application: an Express app plus what it holds open. */
+export interface LoopyardApp {
+  app: Express;
+  auth: Auth;
+  db: RootDatabase;
+  runner: SweepRunner;
+  /** Stops the sweep runner after its current chunk, then closes the database pool. */
+  close(): Promise<void>;
+}
+
+/**
+ * Builds the Loopyard HTTP application: better-auth under /api/auth, the JSON API under /api
+ * (session and role checked on every route but /api/health), and the built web app when
+ * `config.webDist` is given. Sweeps left unfinished by an earlier process resume in the background.
+ */
+export function createApp(config: AppConfig): LoopyardApp {
+  const database = createDatabase(config.databaseUrl);
+  const { db } = database;
+  const auth = createAuth(db, config);
+  const runner = new SweepRunner(db);
+
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("trust proxy", false);
+  app.use(securityHeaders);
+  app.use("/api", apiHeaders);
+
+  // better-auth reads the raw body itself, so it goes before express.json().
+  app.all("/api/auth/*splat", toNodeHandler(auth));
+
+  app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.get("/api/health", (_req, res) => {
+    res.json({ ok: true });
+  });
+
+  app.use("/api", requireSession(auth));
+  app.use("/api/me", meRoutes(db));
+  app.use("/api/workspaces/:slug/plants", plantRoutes(db));
+  app.use("/api/workspaces/:slug/sweeps", sweepRoutes(db, runner));
+  app.use("/api/workspaces", workspaceRoutes(db));
+  app.use("/api", apiNotFound);
+
+  if (config.webDist) {
+    if (!serveWebApp(app, config.webDist)) {
+      console.warn(`[loopyard] no web app at ${config.webDist} (index.html missing); serving the API only. Build it with: npm run build`);
+    }
+  }
+
+  app.use(errorMiddleware(JSON_BODY_LIMIT));
+
+  if (config.resumeSweeps !== false) {
+    runner.resumeUnfinished().catch((error: unknown) => {
+      console.error("[loopyard] could not resume unfinished sweeps:", error);
+    });
+  }
+
+  let closing: Promise<void> | null = null;
+  return {
+    app,
+    auth,
+    db,
+    runner,
+    close() {
+      closing ??= (async () => {
+        await runner.close();
+        await database.close();
+      })();
+      return closing;
+    },
+  };
+}

@@ -1,0 +1,40 @@
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import type { AppConfig } from "../config.js";
+import type { Database } from "../db/database.js";
+import { authSchema } from "../db/schema.js";
+
+/** Shortest password a user may choose. */
+export const MIN_PASSWORD_LENGTH = 10;
+
+// Defensive: no usage data leaves the machine, even if an option below were lost.
+process.env.BETTER_AUTH_TELEMETRY = "0";
+
+/**
+ * Email + password sign-in with sessions stored in PostgreSQL through the Drizzle adapter.
+ * Cookies are httpOnly and SameSite=Lax, and Secure whenever the public URL is https.
+ */
+export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | "publicUrl">) {
+  const origin = new URL(config.publicUrl).origin;
+  return betterAuth({
+    appName: "Loopyard",
+    baseURL: config.publicUrl,
+    basePath: "/api/auth",
+    secret: config.authSecret,
+    trustedOrigins: [origin],
+    database: drizzleAdapter(db, { provider: "pg", schema: authSchema }),
+    emailAndPassword: {
+      enabled: true,
+      minPasswordLength: MIN_PASSWORD_LENGTH,
+      autoSignIn: true,
+    },
+    telemetry: { enabled: false },
+    advanced: {
+      cookiePrefix: "loopyard",
+      useSecureCookies: origin.startsWith("https://"),
+      defaultCookieAttributes: { httpOnly: true, sameSite: "lax" },
+    },
+  });
+}
+
+export type Auth = ReturnType<typeof createAuth>;

@@ -1,0 +1,118 @@
+#!/usr/bin/env node
+/**
+ * Command-line entry of the Loopyard server:
+ *
+ *   node packages/server/dist/cli.js migrate   apply pending database migrations
+ *   node packages/server/dist/cli.js seed      create the demo workspace (idempotent) and print its sign-ins
+ *   node packages/server/dist/cli.js serve     serve the API and the built web app
+ *
+ * Environment: DATABASE_URL, PORT, HOST, LOOPYARD_AUTH_SECRET, LOOPYARD_PUBLIC_URL, LOOPYARD_WEB_DIST,
+ * LOOPYARD_MIGRATIONS_DIR (see README).
+ */
+import type { Server } from "node:http";
+import { createApp } from "./app.js";
+import { configFromEnv, ConfigError, DEFAULT_DATABASE_URL, defaultMigrationsFolder } from "./config.js";
+import { createAuth } from "./auth/auth.js";
+import { createDatabase } from "./db/database.js";
+import { runMigrations } from "./db/migrate.js";
+import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "./seed/demo-seed.js";
+import { SweepRunner } from "./sweeps/sweep-runner.js";
+
+const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve>";
+
+/** Connection string with the password hidden, for messages. */
+function redact(url: string): string {
+  return url.replace(/\/\/([^:/@]+):[^@]*@/, "//$1:***@");
+}
+
+async function migrateCommand(): Promise<void> {
+  const databaseUrl = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
+  const folder = defaultMigrationsFolder();
+  await runMigrations(databaseUrl, folder);
+  console.log(`Database ${redact(databaseUrl)} is up to date (migrations from ${folder}).`);
+}
+
+export function printDemoSignIns(publicUrl?: string): void {
+  console.log(`Demo workspace: ${DEMO_WORKSPACE.name} (${DEMO_WORKSPACE.slug})${publicUrl ? ` at ${publicUrl}` : ""}`);
+  console.log(`Demo sign-ins (password for all: ${DEMO_PASSWORD}):`);
+  for (const user of DEMO_USERS) console.log(`  ${user.role.padEnd(8)} ${user.email.padEnd(24)} ${user.name}`);
+}
+
+async function seedCommand(): Promise<void> {
+  const databaseUrl = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
+  // Seeding creates no sessions anyone uses, so a throwaway secret is fine when none is given.
+  const authSecret = process.env.LOOPYARD_AUTH_SECRET ?? "seed-only-secret-not-used-for-any-session-0000";
+  const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? "http://127.0.0.1:4470";
+  const database = createDatabase(databaseUrl, { max: 2 });
+  try {
+    const auth = createAuth(database.db, { authSecret, publicUrl });
+    const report = await seedDemo(database.db, auth, new SweepRunner(database.db));
+    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + Number(report.sweepCreated);
+    console.log(
+      changed === 0
+        ? "Demo data already present; nothing changed."
+        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepCreated ? 1 : 0} sweep.`,
+    );
+    printDemoSignIns();
+  } finally {
+    await database.close();
+  }
+}
+
+async function serveCommand(): Promise<void> {
+  const config = configFromEnv();
+  const loopyard = createApp(config);
+  const server: Server = await new Promise((resolve, reject) => {
+    const listening = loopyard.app.listen(config.port, config.host, (error?: Error) => (error ? reject(error) : resolve(listening)));
+  });
+  const address = server.address();
+  const port = typeof address === "object" && address ? address.port : config.port;
+  console.log(`Loopyard is serving on http://${config.host}:${port} (open ${config.publicUrl})`);
+
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`${signal} received; stopping after the current sweep chunk…`);
+    server.close();
+    server.closeAllConnections();
+    loopyard
+      .close()
+      .then(() => process.exit(0))
+      .catch((error: unknown) => {
+        console.error("Stopping failed:", error);
+        process.exit(1);
+      });
+  };
+  process.on("SIGINT", () => stop("SIGINT"));
+  process.on("SIGTERM", () => stop("SIGTERM"));
+}
+
+async function main(command: string | undefined): Promise<void> {
+  switch (command) {
+    case "migrate":
+      return migrateCommand();
+    case "seed":
+      return seedCommand();
+    case "serve":
+      return serveCommand();
+    default:
+      console.error(USAGE);
+      process.exitCode = 2;
+  }
+}
+
+main(process.argv[2]).catch((error: unknown) => {
+  if (error instanceof ConfigError) {
+    console.error(`Configuration problem: ${error.message}`);
+  } else if (error && typeof error === "object" && "code" in error && (error as { code: unknown }).code === "ECONNREFUSED") {
+    console.error(
+      `Could not reach PostgreSQL at ${redact(process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL)}. Start the local cluster with npm start, or set DATABASE_URL to a running server.`,
+    );
+  } else if (error && typeof error === "object" && "code" in error && (error as { code: unknown }).code === "EADDRINUSE") {
+    console.error(`Port ${process.env.PORT ?? 4470} is already in use; stop the other process or set PORT to a free port.`);
+  } else {
+    console.error(`loopyard ${process.argv[2] ?? ""} failed:`, error);
+  }
+  process.exitCode = 1;
+});

@@ -1,0 +1,177 @@
+import { and, asc, count, desc, eq, inArray, sql } from "drizzle-orm";
+import type { CriterionId, SweepDetailDto, SweepInputParsed, SweepStatus, SweepSummaryDto, UserDto } from "@loopyard/core";
+import type { Database } from "../db/database.js";
+import { candidate, plantRevision, sweep, user } from "../db/schema.js";
+import { userDtoColumns } from "../users/user-repository.js";
+
+/** Names of CandidateDto.params for the PID structure, in stored order. */
+export const PID_PARAMETERS = ["kp", "ki", "kd", "tf"] as const;
+
+const summaryColumns = {
+  id: sweep.id,
+  name: sweep.name,
+  status: sweep.status,
+  total: sweep.total,
+  done: sweep.done,
+  error: sweep.error,
+  createdAt: sweep.createdAt,
+  finishedAt: sweep.finishedAt,
+  definition: sweep.definition,
+  plantId: plantRevision.plantId,
+  plantName: plantRevision.name,
+  revisionId: plantRevision.id,
+  revisionNumber: plantRevision.number,
+  createdBy: userDtoColumns,
+};
+
+interface SummaryRow {
+  id: string;
+  name: string;
+  status: SweepStatus;
+  total: number;
+  done: number;
+  error: string | null;
+  createdAt: Date;
+  finishedAt: Date | null;
+  definition: unknown;
+  plantId: string;
+  plantName: string;
+  revisionId: string;
+  revisionNumber: number;
+  createdBy: UserDto;
+}
+
+function toSummary(row: SummaryRow): SweepSummaryDto {
+  return {
+    id: row.id,
+    name: row.name,
+    status: row.status,
+    plant: { id: row.plantId, name: row.plantName, revisionId: row.revisionId, revisionNumber: row.revisionNumber },
+    total: row.total,
+    done: row.done,
+    createdAt: row.createdAt.toISOString(),
+    finishedAt: row.finishedAt ? row.finishedAt.toISOString() : null,
+    createdBy: row.createdBy,
+    error: row.error,
+  };
+}
+
+function summaryQuery(db: Database) {
+  return db
+    .select(summaryColumns)
+    .from(sweep)
+    .innerJoin(plantRevision, eq(plantRevision.id, sweep.plantRevisionId))
+    .innerJoin(user, eq(user.id, sweep.createdBy));
+}
+
+/** Sweeps of a workspace, newest first (at most `limit` when given). */
+export async function listSweepSummaries(db: Database, workspaceId: string, limit?: number): Promise<SweepSummaryDto[]> {
+  const query = summaryQuery(db).where(eq(sweep.workspaceId, workspaceId)).orderBy(desc(sweep.createdAt), desc(sweep.id));
+  const rows = limit === undefined ? await query : await query.limit(limit);
+  return rows.map(toSummary);
+}
+
+/** One sweep of a workspace with its definition and unstable count, or null. */
+export async function findSweepDetail(db: Database, workspaceId: string, sweepId: string): Promise<SweepDetailDto | null> {
+  const rows = await summaryQuery(db)
+    .where(and(eq(sweep.workspaceId, workspaceId), eq(sweep.id, sweepId)))
+    .limit(1);
+  const row = rows[0];
+  if (!row) return null;
+  const [unstable] = await db
+    .select({ n: count() })
+    .from(candidate)
+    .where(and(eq(candidate.sweepId, sweepId), eq(candidate.status, "unstable")));
+  // Stored only after sweepInputSchema parsed it.
+  const definition = row.definition as SweepInputParsed;
+  return {
+    ...toSummary(row),
+    definition,
+    parameters: [...PID_PARAMETERS],
+    criteria: [...definition.criteria],
+    unstableCount: unstable?.n ?? 0,
+  };
+}
+
+/** The id of the sweep with this name in the workspace, or null. */
+export async function findSweepIdByName(db: Database, workspaceId: string, name: string): Promise<string | null> {
+  const rows = await db.select({ id: sweep.id }).from(sweep).where(and(eq(sweep.workspaceId, workspaceId), eq(sweep.name, name))).limit(1);
+  return rows[0]?.id ?? null;
+}
+
+export async function insertSweep(
+  db: Database,
+  values: { workspaceId: string; createdBy: string; definition: SweepInputParsed; total: number },
+): Promise<string> {
+  const [row] = await db
+    .insert(sweep)
+    .values({
+      workspaceId: values.workspaceId,
+      name: values.definition.name,
+      plantRevisionId: values.definition.plantRevisionId,
+      structure: values.definition.structure,
+      definition: values.definition,
+      status: "queued",
+      total: values.total,
+      done: 0,
+      createdBy: values.createdBy,
+    })
+    .returning({ id: sweep.id });
+  if (!row) throw new Error("insert into sweep returned no row");
+  return row.id;
+}
+
+/** What the runner needs to evaluate a sweep. */
+export interface SweepRunRecord {
+  id: string;
+  status: SweepStatus;
+  total: number;
+  plantRevisionId: string;
+  definition: SweepInputParsed;
+  criteria: CriterionId[];
+}
+
+export async function findSweepForRun(db: Database, sweepId: string): Promise<SweepRunRecord | null> {
+  const rows = await db
+    .select({ id: sweep.id, status: sweep.status, total: sweep.total, plantRevisionId: sweep.plantRevisionId, definition: sweep.definition })
+    .from(sweep)
+    .where(eq(sweep.id, sweepId))
+    .limit(1);
+  const row = rows[0];
+  if (!row) return null;
+  const definition = row.definition as SweepInputParsed;
+  return { ...row, definition, criteria: [...definition.criteria] };
+}
+
+/** Sweeps a stopped process left queued or running, oldest first. */
+export async function listUnfinishedSweepIds(db: Database): Promise<string[]> {
+  const rows = await db
+    .select({ id: sweep.id })
+    .from(sweep)
+    .where(inArray(sweep.status, ["queued", "running"]))
+    .orderBy(asc(sweep.createdAt));
+  return rows.map((row) => row.id);
+}
+
+export async function markSweepRunning(db: Database, sweepId: string): Promise<void> {
+  await db
+    .update(sweep)
+    .set({ status: "running", updatedAt: new Date() })
+    .where(and(eq(sweep.id, sweepId), inArray(sweep.status, ["queued", "running"])));
+}
+
+export async function markSweepFinished(db: Database, sweepId: string): Promise<void> {
+  const now = new Date();
+  await db
+    .update(sweep)
+    .set({ status: "finished", updatedAt: now, finishedAt: now, done: sql`${sweep.total}` })
+    .where(and(eq(sweep.id, sweepId), inArray(sweep.status, ["queued", "running"])));
+}
+
+export async function markSweepFailed(db: Database, sweepId: string, error: string): Promise<void> {
+  const now = new Date();
+  await db
+    .update(sweep)
+    .set({ status: "failed", error, updatedAt: now, finishedAt: now })
+    .where(and(eq(sweep.id, sweepId), inArray(sweep.status, ["queued", "running"])));
+}

@@ -1,0 +1,67 @@
+import { Router } from "express";
+import { z } from "zod";
+import { sweepInputSchema } from "@loopyard/core";
+import type { Database } from "../db/database.js";
+import { HttpError } from "../http/http-error.js";
+import { parseBody, parseIdParam, parseQuery, pathParam } from "../http/validation.js";
+import { accessOf, memberOf } from "../workspaces/require-member.js";
+import type { SweepRunner } from "./sweep-runner.js";
+import {
+  createSweep,
+  getCandidateResponse,
+  getFront,
+  getSweep,
+  listCandidates,
+  listSweeps,
+  SWEEP_NOT_FOUND,
+} from "./sweep-service.js";
+
+const frontQuerySchema = z.object({
+  x: z.string({ error: "give one criterion" }).optional(),
+  y: z.string({ error: "give one criterion" }).optional(),
+});
+
+function candidateIndex(param: string | string[] | undefined): number {
+  const value = pathParam(param);
+  const index = Number(value);
+  if (!Number.isInteger(index) || index < 0 || String(index) !== value) {
+    throw new HttpError(404, `“${value}” is not a candidate index; indices are whole numbers from 0.`);
+  }
+  return index;
+}
+
+/** /api/workspaces/:slug/sweeps */
+export function sweepRoutes(db: Database, runner: SweepRunner): Router {
+  const router = Router({ mergeParams: true });
+  const canRead = memberOf(db, "viewer", "Reading sweeps");
+  const sweepIdOf = (value: unknown) => parseIdParam(value, SWEEP_NOT_FOUND);
+
+  router.get("/", canRead, async (req, res) => {
+    res.json(await listSweeps(db, accessOf(req)));
+  });
+
+  router.post("/", memberOf(db, "engineer", "Starting sweeps"), async (req, res) => {
+    const input = parseBody(sweepInputSchema, req);
+    res.status(201).json(await createSweep(db, runner, accessOf(req), input));
+  });
+
+  router.get("/:sweepId", canRead, async (req, res) => {
+    res.json(await getSweep(db, accessOf(req), sweepIdOf(req.params.sweepId)));
+  });
+
+  router.get("/:sweepId/candidates", canRead, async (req, res) => {
+    res.json(await listCandidates(db, accessOf(req), sweepIdOf(req.params.sweepId)));
+  });
+
+  router.get("/:sweepId/front", canRead, async (req, res) => {
+    const query = parseQuery(frontQuerySchema, req);
+    res.json(await getFront(db, accessOf(req), sweepIdOf(req.params.sweepId), query));
+  });
+
+  router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {
+    const index = candidateIndex(req.params.index);
+    res.json(await getCandidateResponse(db, accessOf(req), sweepIdOf(req.params.sweepId), index));
+  });
+
+  return router;
+}

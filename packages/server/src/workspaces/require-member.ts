@@ -1,0 +1,65 @@
+import { hasRole, type Role, type UserDto, type WorkspaceDto } from "@loopyard/core";
+import type { RequestHandler } from "express";
+import type { Database } from "../db/database.js";
+import { currentUser } from "../auth/session-middleware.js";
+import { pathParam } from "../http/validation.js";
+import { HttpError, notFound } from "../http/http-error.js";
+import { findRole, findWorkspaceBySlug } from "./workspace-repository.js";
+
+/** A signed-in user's standing in one workspace, after the role check passed. */
+export interface MemberAccess {
+  workspace: WorkspaceDto;
+  role: Role;
+  user: UserDto;
+}
+
+function withArticle(role: Role): string {
+  return /^[aeiou]/.test(role) ? `an ${role}` : `a ${role}`;
+}
+
+/** The sentence of a 403, e.g. "Creating plants needs the engineer role or higher in X; you are a viewer." */
+export function roleRefusal(action: string, needed: Role, workspaceName: string, role: Role): string {
+  const level = needed === "admin" ? `the ${needed} role` : `the ${needed} role or higher`;
+  return `${action} needs ${level} in ${workspaceName}; you are ${withArticle(role)}.`;
+}
+
+/**
+ * Server-side role check of every workspace route: 404 when the workspace does not exist,
+ * 403 when the user is not a member or has too low a role (the sentence names the role needed).
+ *
+ * @param action what the user tries to do, as the subject of a sentence: "Creating plants".
+ */
+export async function requireMember(db: Database, user: UserDto, slug: string, needed: Role, action: string): Promise<MemberAccess> {
+  const workspace = await findWorkspaceBySlug(db, slug);
+  if (!workspace) throw notFound(`There is no workspace “${slug}”.`);
+  const role = await findRole(db, workspace.id, user.id);
+  if (!role) {
+    throw new HttpError(403, `You are not a member of ${workspace.name}; ask one of its admins to add you.`);
+  }
+  if (!hasRole(role, needed)) throw new HttpError(403, roleRefusal(action, needed, workspace.name, role));
+  return { workspace, role, user };
+}
+
+declare module "express-serve-static-core" {
+  interface Request {
+    /** The member's standing in the :slug workspace, set by memberOf. */
+    access?: MemberAccess;
+  }
+}
+
+/**
+ * Route middleware: checks the role before the body is even read, so that a refused user learns
+ * about the role and not about the fields. Needs requireSession before it and a :slug parameter.
+ */
+export function memberOf(db: Database, needed: Role, action: string): RequestHandler {
+  return async (req, _res, next) => {
+    req.access = await requireMember(db, currentUser(req), pathParam(req.params.slug), needed, action);
+    next();
+  };
+}
+
+/** The access memberOf put on the request. */
+export function accessOf(req: { access?: MemberAccess }): MemberAccess {
+  if (!req.access) throw new Error("memberOf must run before this handler");
+  return req.access;
+}

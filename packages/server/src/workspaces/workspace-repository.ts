@@ -1,0 +1,68 @@
+import { and, asc, count, eq } from "drizzle-orm";
+import type { Role, UserDto, WorkspaceDto } from "@loopyard/core";
+import type { Database } from "../db/database.js";
+import { membership, plant, sweep, user, workspace } from "../db/schema.js";
+import { userDtoColumns } from "../users/user-repository.js";
+
+const workspaceDtoColumns = { id: workspace.id, slug: workspace.slug, name: workspace.name };
+
+export async function findWorkspaceBySlug(db: Database, slug: string): Promise<WorkspaceDto | null> {
+  const rows = await db.select(workspaceDtoColumns).from(workspace).where(eq(workspace.slug, slug)).limit(1);
+  return rows[0] ?? null;
+}
+
+/** Inserts a workspace unless its slug is taken; returns null when it is. */
+export async function insertWorkspace(db: Database, values: { slug: string; name: string }): Promise<WorkspaceDto | null> {
+  const rows = await db.insert(workspace).values(values).onConflictDoNothing({ target: workspace.slug }).returning(workspaceDtoColumns);
+  return rows[0] ?? null;
+}
+
+/** The role of `userId` in the workspace, or null when not a member. */
+export async function findRole(db: Database, workspaceId: string, userId: string): Promise<Role | null> {
+  const rows = await db
+    .select({ role: membership.role })
+    .from(membership)
+    .where(and(eq(membership.workspaceId, workspaceId), eq(membership.userId, userId)))
+    .limit(1);
+  return rows[0]?.role ?? null;
+}
+
+/** Adds a member; returns false (and changes nothing) when the user already is one. */
+export async function insertMembership(db: Database, workspaceId: string, userId: string, role: Role): Promise<boolean> {
+  const rows = await db
+    .insert(membership)
+    .values({ workspaceId, userId, role })
+    .onConflictDoNothing({ target: [membership.workspaceId, membership.userId] })
+    .returning({ userId: membership.userId });
+  return rows.length > 0;
+}
+
+/** Every workspace the user belongs to, with the user's role, by workspace name. */
+export async function listMembershipsOfUser(db: Database, userId: string): Promise<{ workspace: WorkspaceDto; role: Role }[]> {
+  const rows = await db
+    .select({ workspace: workspaceDtoColumns, role: membership.role })
+    .from(membership)
+    .innerJoin(workspace, eq(workspace.id, membership.workspaceId))
+    .where(eq(membership.userId, userId))
+    .orderBy(asc(workspace.name));
+  return rows;
+}
+
+/** Members of a workspace with their roles, by name. */
+export async function listMembers(db: Database, workspaceId: string): Promise<{ user: UserDto; role: Role }[]> {
+  return db
+    .select({ user: userDtoColumns, role: membership.role })
+    .from(membership)
+    .innerJoin(user, eq(user.id, membership.userId))
+    .where(eq(membership.workspaceId, workspaceId))
+    .orderBy(asc(user.name));
+}
+
+export async function countWorkspaceContents(db: Database, workspaceId: string): Promise<{ plants: number; sweeps: number; members: number }> {
+  const [plants, sweeps, members] = await Promise.all([
+    db.select({ n: count() }).from(plant).where(eq(plant.workspaceId, workspaceId)),
+    db.select({ n: count() }).from(sweep).where(eq(sweep.workspaceId, workspaceId)),
+    db.select({ n: count() }).from(membership).where(eq(membership.workspaceId, workspaceId)),
+  ]);
+  return { plants: plants[0]?.n ?? 0, sweeps: sweeps[0]?.n ?? 0, members: members[0]?.n ?? 0 };
+}

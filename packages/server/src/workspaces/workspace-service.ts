@@ -1,0 +1,81 @@
+import { randomBytes } from "node:crypto";
+import type { MeDto, Role, UserDto, WorkspaceDto, WorkspaceHomeDto } from "@loopyard/core";
+import type { Database } from "../db/database.js";
+import { HttpError } from "../http/http-error.js";
+import { findUserByEmail } from "../users/user-repository.js";
+import { listSweepSummaries } from "../sweeps/sweep-repository.js";
+import type { MemberAccess } from "./require-member.js";
+import type { MemberInput, WorkspaceInput } from "./workspace-input.js";
+import {
+  countWorkspaceContents,
+  insertMembership,
+  insertWorkspace,
+  listMembers,
+  listMembershipsOfUser,
+} from "./workspace-repository.js";
+
+/** How many recent sweeps the workspace home lists. */
+const RECENT_SWEEPS = 5;
+
+/** "Halvard Thermoworks — Ember line" → "halvard-thermoworks-ember-line". */
+export function slugify(name: string): string {
+  const slug = name
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 48)
+    .replace(/-+$/g, "");
+  return slug.length >= 2 ? slug : "workspace";
+}
+
+export async function getMe(db: Database, user: UserDto): Promise<MeDto> {
+  return { user, memberships: await listMembershipsOfUser(db, user.id) };
+}
+
+/**
+ * Creates a workspace with the signed-in user as its admin. An explicit slug that is taken is a 409;
+ * a slug derived from the name gets a short random suffix until it is free.
+ */
+export async function createWorkspace(db: Database, user: UserDto, input: WorkspaceInput): Promise<WorkspaceDto> {
+  return db.transaction(async (tx) => {
+    let created: WorkspaceDto | null;
+    if (input.slug) {
+      created = await insertWorkspace(tx, { slug: input.slug, name: input.name });
+      if (!created) throw new HttpError(409, `The slug “${input.slug}” is taken; choose another.`, { field: "slug" });
+    } else {
+      const base = slugify(input.name);
+      created = await insertWorkspace(tx, { slug: base, name: input.name });
+      for (let attempt = 0; !created && attempt < 5; attempt += 1) {
+        created = await insertWorkspace(tx, { slug: `${base}-${randomBytes(3).toString("hex")}`, name: input.name });
+      }
+      if (!created) throw new HttpError(409, "Could not find a free slug for this name; give a slug.", { field: "slug" });
+    }
+    await insertMembership(tx, created.id, user.id, "admin");
+    return created;
+  });
+}
+
+/** The workspace home of any member. */
+export async function getWorkspaceHome(db: Database, access: MemberAccess): Promise<WorkspaceHomeDto> {
+  const { workspace, role } = access;
+  const [counts, members, recentSweeps] = await Promise.all([
+    countWorkspaceContents(db, workspace.id),
+    listMembers(db, workspace.id),
+    listSweepSummaries(db, workspace.id, RECENT_SWEEPS),
+  ]);
+  return { workspace, role, counts, members, recentSweeps };
+}
+
+/** Adds a user who has already signed up to the workspace in `input.role` (admins only). */
+export async function addMember(db: Database, access: MemberAccess, input: MemberInput): Promise<{ user: UserDto; role: Role }> {
+  const { workspace } = access;
+  const member = await findUserByEmail(db, input.email);
+  if (!member) {
+    throw new HttpError(404, `No one has signed up with ${input.email} yet; ask them to sign up first.`, { field: "email" });
+  }
+  const added = await insertMembership(db, workspace.id, member.id, input.role);
+  if (!added) throw new HttpError(409, `${member.name} is already a member of ${workspace.name}.`, { field: "email" });
+  return { user: member, role: input.role };
+}
