@@ -68,6 +68,13 @@ export function checkExpression(text: string, scope: NameScope): CheckedExpressi
   } catch (error) {
     throw syntaxError(text, locator, error);
   }
+  const size = countNodes(parsed);
+  if (size > EXPRESSION_LIMITS.maxNodes) {
+    throw new ExpressionError(
+      `the expression has more than ${EXPRESSION_LIMITS.maxNodes} parts (numbers, names, operators, calls); shorten it, e.g. with parameters`,
+      { expression: text, token: "" },
+    );
+  }
   const checker = new Checker(text, scope, locator);
   const root = checker.walk(parsed, 1);
   return Object.freeze({ text, root, nodeCount: checker.nodeCount, depth: checker.maxDepth });
@@ -122,6 +129,19 @@ interface ParsedNode {
   readonly index?: { readonly dimensions: readonly ParsedNode[]; readonly dotNotation: boolean };
   readonly optionalChaining?: boolean;
   readonly conditionals?: readonly string[];
+  forEach(callback: (child: ParsedNode) => void): void;
+}
+
+/** Number of nodes of a parsed tree, counted without recursion. */
+function countNodes(root: ParsedNode): number {
+  let count = 0;
+  const pending: ParsedNode[] = [root];
+  for (let node = pending.pop(); node !== undefined; node = pending.pop()) {
+    count += 1;
+    if (count > EXPRESSION_LIMITS.maxNodes) break;
+    node.forEach((child) => pending.push(child));
+  }
+  return count;
 }
 
 // Lookup tables are Maps: a user token such as "constructor" must never find an inherited property.
@@ -165,9 +185,6 @@ class Checker {
   walk(node: ParsedNode, depth: number): CheckedNode {
     this.nodeCount += 1;
     this.maxDepth = Math.max(this.maxDepth, depth);
-    if (this.nodeCount > EXPRESSION_LIMITS.maxNodes) {
-      return this.fail(this.firstToken(node), (at) => `the expression has more than ${EXPRESSION_LIMITS.maxNodes} terms (limit reached${at}); split it using parameters`);
-    }
     if (depth > EXPRESSION_LIMITS.maxDepth) {
       return this.fail(this.firstToken(node), (at) => `the expression is nested more than ${EXPRESSION_LIMITS.maxDepth} levels deep${at}`);
     }
@@ -187,10 +204,12 @@ class Checker {
       case "FunctionNode":
         return this.call(node, depth);
       case "AccessorNode": {
+        // Report the leftmost access of a chain such as h.x.y first.
+        if (node.object?.type === "AccessorNode") return this.walk(node.object, depth + 1);
         const dot = node.index?.dotNotation === true;
-        const property = dot ? String(node.index?.dimensions[0]?.value) : "[";
-        const token = this.locator.next(dot ? (node.optionalChaining ? "?." : ".") : "[");
-        const shown = dot ? `.${property}` : "[";
+        const marker = dot ? (node.optionalChaining ? "?." : ".") : "[";
+        const token = this.locator.next(marker);
+        const shown = dot ? `${marker}${String(node.index?.dimensions[0]?.value)}` : "[";
         return this.fail(token, (at) => `property access "${shown}" is not allowed${at}; use the declared names only`, shown);
       }
       case "AssignmentNode":
@@ -263,7 +282,7 @@ class Checker {
       const token = this.firstToken(args[1]);
       return this.fail(
         token,
-        (at) => `missing "*" before "${token?.text ?? ""}"${at}; write multiplication explicitly, e.g. 2*h`,
+        (at) => `missing "*" before "${token?.text ?? ""}"${at}; write every multiplication with "*", e.g. 2*h`,
         token?.text ?? "",
       );
     }
@@ -365,11 +384,14 @@ function syntaxError(text: string, locator: TokenLocator, error: unknown): Expre
   const index = Math.max(0, Math.min(text.length, char - 1));
   const token = locator.tokens.find((t) => t.index >= index && t.index < index + 1);
   const detail = raw.replace(/\s*\(char \d+\)\s*$/, "");
-  const reason = detail.charAt(0).toLowerCase() + detail.slice(1);
+  const shown = token?.text ?? text.slice(index, index + 1);
+  const reason = /^syntax error in part/i.test(detail) || /^unexpected part/i.test(detail)
+    ? `unexpected "${shown}"`
+    : detail.charAt(0).toLowerCase() + detail.slice(1);
   const where = index >= text.length ? "at the end" : `at column ${index + 1}`;
   return new ExpressionError(`syntax error ${where}: ${reason}`, {
     expression: text,
-    token: token?.text ?? text.slice(index, index + 1),
+    token: shown,
     index,
   });
 }
