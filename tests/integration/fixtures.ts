@@ -1,0 +1,34 @@
+import { ApiClient, signedInClient } from "./api-client.js";
+
+/** A plant input for G(s) = 1/((s+1)(s+2)) = 1/(s² + 3s + 2). */
+export function twoLagPlant(name: string) {
+  return { name, unitsNote: "u: heater power fraction; y: temperature rise", model: { kind: "transfer-function", num: [1], den: [1, 3, 2], delay: 0 } };
+}
+
+/**
+ * A new workspace whose creator is its admin, with one engineer and one viewer added by the admin.
+ * Every test file builds its own so runs never depend on one another.
+ */
+export async function workspaceWithTeam(baseUrl: string, label: string) {
+  const admin = await signedInClient(baseUrl, `${label} admin`);
+  const engineer = await signedInClient(baseUrl, `${label} engineer`);
+  const viewer = await signedInClient(baseUrl, `${label} viewer`);
+  const created = await admin.client.post("/api/workspaces", { name: `Ember test bench ${label} ${admin.user.email}` });
+  if (created.status !== 201) throw new Error(`creating a workspace failed: ${created.status} ${JSON.stringify(created.body)}`);
+  const slug: string = created.body.slug;
+  for (const [member, role] of [
+    [engineer, "engineer"],
+    [viewer, "viewer"],
+  ] as const) {
+    const added = await admin.client.post(`/api/workspaces/${slug}/members`, { email: member.user.email, role });
+    if (added.status !== 201) throw new Error(`adding ${role} failed: ${added.status} ${JSON.stringify(added.body)}`);
+  }
+  return {
+    slug,
+    name: created.body.name as string,
+    admin: admin.client,
+    engineer: engineer.client,
+    viewer: viewer.client,
+    anonymous: new ApiClient(baseUrl),
+  };
+}

@@ -1,0 +1,45 @@
+/**
+ * Boots the Loopyard API in-process on a free port against process.env.DATABASE_URL
+ * (a migrated, seeded database: `npm test` prepares loopyard_test), for integration tests over real HTTP.
+ */
+import { randomBytes } from "node:crypto";
+import { createServer } from "node:http";
+import type { AddressInfo } from "node:net";
+import { createApp } from "../../packages/server/src/index.js";
+
+export interface TestServer {
+  /** Base URL, e.g. http://127.0.0.1:39123 (no trailing slash). */
+  url: string;
+  close(): Promise<void>;
+}
+
+export async function startTestServer(): Promise<TestServer> {
+  const databaseUrl = process.env.DATABASE_URL;
+  if (!databaseUrl) {
+    throw new Error("DATABASE_URL is not set; run the suite with `npm test`, or point DATABASE_URL at a migrated and seeded database.");
+  }
+  const server = createServer();
+  await new Promise<void>((resolve, reject) => {
+    server.once("error", reject);
+    server.listen(0, "127.0.0.1", () => resolve());
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://127.0.0.1:${port}`;
+  // The public URL (the trusted origin of better-auth) is only known once the port is.
+  const loopyard = createApp({
+    databaseUrl,
+    authSecret: process.env.LOOPYARD_AUTH_SECRET ?? randomBytes(32).toString("hex"),
+    publicUrl: url,
+    webDist: null,
+    resumeSweeps: false,
+  });
+  server.on("request", loopyard.app);
+  return {
+    url,
+    async close() {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await loopyard.close();
+    },
+  };
+}
