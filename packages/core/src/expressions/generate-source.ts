@@ -99,15 +99,22 @@ const GENERATED_TOKEN = new RegExp(
  */
 export function assertGeneratedSource(source: string): void {
   let at = 0;
+  let previous = "";
   while (at < source.length) {
     GENERATED_TOKEN.lastIndex = at;
     const match = GENERATED_TOKEN.exec(source);
-    if (match === null || match[0].length === 0) {
+    // "(" may only open a group or a call of an f_ function: never follow a value (no x[0](), no (…)(…)).
+    const callsValue = match !== null && match[0] === "(" && VALUE_END.test(previous);
+    if (match === null || match[0].length === 0 || callsValue) {
       throw new Error(`generated source holds a token outside the whitelist at ${at}: ${JSON.stringify(source.slice(at, at + 12))}`);
     }
+    if (match[0].trim() !== "") previous = match[0];
     at += match[0].length;
   }
 }
+
+/** A token that ends a value: a slot, u, t, a number or a closing parenthesis. */
+const VALUE_END = /^(?:[xp]\[\d+\]|[ut]|\d[\d.e+-]*|\))$/;
 
 function slotIndex(slot: number): number {
   if (!Number.isInteger(slot) || slot < 0) throw new RangeError(`slot must be a non-negative integer, got ${slot}`);

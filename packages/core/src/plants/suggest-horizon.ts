@@ -6,15 +6,15 @@ import { plantPoles } from "./plant-poles.js";
 const SETTLING_TIME_CONSTANTS = 5;
 /** Horizon [s] used when the plant has no pole to take a time scale from. */
 const FALLBACK_HORIZON = 10;
-/** Mantissas of the "nice" horizons: 1, 2, 2.5, 5 × 10^k. */
-const NICE_STEPS = [1, 2, 2.5, 5, 10];
+/** Mantissas of the "nice" horizons: 1, 1.5, 2, 2.5, 3, 4, 5, 6, 8 × 10^k. */
+const NICE_STEPS = [1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10];
 
 /**
  * A sensible plot or simulation horizon [s] for a plant:
  *
  *   T = θ + 5 · max_i 1/|Re pᵢ|   over the poles with Re pᵢ < 0,
  *
- * rounded up to 1, 2, 2.5 or 5 × 10^k. Poles on or right of the imaginary axis have no decay
+ * rounded up to 1, 1.5, 2, 2.5, 3, 4, 5, 6 or 8 × 10^k. Poles on or right of the imaginary axis have no decay
  * time; when there are only such poles, their magnitudes give the time scale (5 · max 1/|pᵢ|
  * over pᵢ ≠ 0), and 10 s + θ when every pole is at 0 or there is none.
  * Five time constants cover the usual 1 % settling band (e^(−5) ≈ 0.7 %): common practice.

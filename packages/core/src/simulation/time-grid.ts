@@ -14,7 +14,7 @@ export function timeGrid(horizon: number, dt: number): Float64Array {
     throw new RangeError(`dt must be a finite time step > 0 s, got ${String(dt)}`);
   }
   const steps = Math.round(horizon / dt);
-  if (steps < 1) throw new RangeError(`dt (${dt} s) must not exceed the horizon (${horizon} s)`);
+  if (dt > horizon) throw new RangeError(`dt (${dt} s) must not exceed the horizon (${horizon} s)`);
   if (steps > MAX_SIMULATION_SAMPLES) {
     throw new RangeError(`dt: horizon/dt gives ${steps} steps, more than ${MAX_SIMULATION_SAMPLES}; raise the time step`);
   }
