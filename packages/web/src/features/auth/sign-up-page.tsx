@@ -1,0 +1,86 @@
+import { useForm } from "react-hook-form";
+import { Link, useNavigate } from "react-router";
+import { useSignUp } from "../../api/use-auth.js";
+import { Button } from "../../components/button.js";
+import { ErrorNote } from "../../components/error-note.js";
+import { Field, inputClass } from "../../components/field.js";
+import { AuthShell } from "./auth-shell.js";
+
+interface SignUpValues {
+  name: string;
+  email: string;
+  password: string;
+}
+
+/** Shortest password accepted (better-auth's default minimum). */
+const MIN_PASSWORD_LENGTH = 8;
+
+export function SignUpPage() {
+  const navigate = useNavigate();
+  const signUp = useSignUp();
+  const { register, handleSubmit, formState } = useForm<SignUpValues>({ defaultValues: { name: "", email: "", password: "" } });
+
+  const onSubmit = handleSubmit((values) => signUp.mutate(values, { onSuccess: () => navigate("/", { replace: true }) }));
+
+  return (
+    <AuthShell
+      title="Create an account"
+      footer={
+        <>
+          Already have an account?{" "}
+          <Link to="/sign-in" className="font-medium text-moss hover:underline">
+            Sign in
+          </Link>
+        </>
+      }
+    >
+      <form onSubmit={onSubmit} noValidate className="space-y-4" data-testid="sign-up-form">
+        {signUp.error ? <ErrorNote error={signUp.error} title="Could not create the account" /> : null}
+        <Field label="Name" htmlFor="name" name="name" error={formState.errors.name?.message}>
+          <input
+            id="name"
+            autoComplete="name"
+            className={inputClass}
+            aria-invalid={Boolean(formState.errors.name)}
+            {...register("name", { required: "type your name as colleagues know it" })}
+          />
+        </Field>
+        <Field label="Email" htmlFor="email" name="email" error={formState.errors.email?.message}>
+          <input
+            id="email"
+            type="email"
+            autoComplete="email"
+            className={inputClass}
+            aria-invalid={Boolean(formState.errors.email)}
+            {...register("email", {
+              required: "type your email address",
+              pattern: { value: /^[^\s@]+@[^\s@]+$/, message: "type an address like name@company.example" },
+            })}
+          />
+        </Field>
+        <Field
+          label="Password"
+          htmlFor="password"
+          name="password"
+          hint={`At least ${MIN_PASSWORD_LENGTH} characters.`}
+          error={formState.errors.password?.message}
+        >
+          <input
+            id="password"
+            type="password"
+            autoComplete="new-password"
+            className={inputClass}
+            aria-invalid={Boolean(formState.errors.password)}
+            {...register("password", {
+              required: "choose a password",
+              minLength: { value: MIN_PASSWORD_LENGTH, message: `use at least ${MIN_PASSWORD_LENGTH} characters` },
+            })}
+          />
+        </Field>
+        <Button type="submit" tone="primary" className="w-full" disabled={signUp.isPending} data-testid="sign-up-submit">
+          {signUp.isPending ? "Creating…" : "Create account"}
+        </Button>
+      </form>
+    </AuthShell>
+  );
+}

@@ -1,0 +1,142 @@
+import { useMemo, useState } from "react";
+import type { CriterionId, SweepDetailDto } from "@loopyard/core";
+import { useCandidateResponse, useCandidates, useFront } from "../../api/use-fronts.js";
+import { EmptyState } from "../../components/empty-state.js";
+import { ErrorNote } from "../../components/error-note.js";
+import { inputClass } from "../../components/field.js";
+import { formatNumber } from "../../components/format-number.js";
+import { Loading } from "../../components/loading.js";
+import { Section } from "../../components/section.js";
+import { criterionDescription, criterionLabel, criterionShortLabel } from "./criterion-label.js";
+import { FrontChart } from "./front-chart.js";
+import { defaultAxes, frontPoints } from "./front-points.js";
+import { FrontTable } from "./front-table.js";
+import { ResponseChart } from "./response-chart.js";
+
+/** The results of a finished sweep: two criteria chosen, every candidate plotted, the front drawn and listed, one candidate's response. */
+export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDto }) {
+  const initial = defaultAxes(sweep.criteria);
+  const [x, setX] = useState<CriterionId>(initial.x);
+  const [y, setY] = useState<CriterionId>(initial.y);
+  const [logAxes, setLogAxes] = useState(false);
+  const [selected, setSelected] = useState<number | null>(null);
+
+  const candidates = useCandidates(slug, sweep.id, true);
+  const front = useFront(slug, sweep.id, x, y, true);
+  const points = useMemo(
+    () => (candidates.data ? frontPoints(candidates.data.candidates, candidates.data.criteria, x, y) : []),
+    [candidates.data, x, y],
+  );
+  const byIndex = useMemo(() => new Map(candidates.data?.candidates.map((c) => [c.index, c]) ?? []), [candidates.data]);
+  const frontRows = (front.data?.indices ?? []).map((i) => byIndex.get(i)).filter((c) => c !== undefined);
+
+  const select = (label: string, value: CriterionId, onChange: (c: CriterionId) => void, testId: string) => (
+    <label className="flex items-center gap-2 text-sm">
+      <span className="text-ink-soft">{label}</span>
+      <select value={value} onChange={(e) => onChange(e.target.value as CriterionId)} className={`${inputClass} w-auto py-1`} data-testid={testId}>
+        {sweep.criteria.map((c) => (
+          <option key={c} value={c}>
+            {criterionShortLabel(c)}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+
+  if (candidates.isPending) return <Loading label="Loading candidates…" />;
+  if (candidates.isError) return <ErrorNote error={candidates.error} title="Could not load the candidates" />;
+
+  const stableCount = candidates.data.candidates.filter((c) => c.status === "stable").length;
+  if (stableCount === 0) {
+    return (
+      <EmptyState title="No stable candidate in this grid" testId="front-empty">
+        All {sweep.total} candidates give an unstable closed loop, so there is no front to draw. Start a new sweep with smaller gains (lower kp and ki
+        maxima), or check the plant model.
+      </EmptyState>
+    );
+  }
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-center gap-4 rounded-lg border border-line bg-sheet px-4 py-2.5">
+        {select("x", x, setX, "criterion-x")}
+        {select("against y", y, setY, "criterion-y")}
+        <label className="flex items-center gap-2 text-sm text-ink-soft">
+          <input type="checkbox" checked={logAxes} onChange={(e) => setLogAxes(e.target.checked)} className="accent-moss" />
+          log axes
+        </label>
+        <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
+          {stableCount} stable of {sweep.total}
+          {sweep.unstableCount > 0 ? ` · ${sweep.unstableCount} unstable, not drawn` : ""}
+          {front.data ? ` · ${front.data.indices.length} on the front` : ""}
+        </span>
+      </div>
+
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-5">
+        <div className="xl:col-span-3">
+          <Section title={`${criterionShortLabel(y)} against ${criterionShortLabel(x)}`} aside="smaller is better on both axes">
+            {front.isError ? (
+              <ErrorNote error={front.error} title="Could not compute the front" />
+            ) : (
+              <FrontChart
+                points={points}
+                front={front.data?.indices ?? []}
+                selected={selected}
+                xTitle={criterionLabel(x)}
+                yTitle={criterionLabel(y)}
+                logAxes={logAxes}
+                onSelect={setSelected}
+              />
+            )}
+            <p className="mt-2 text-xs text-ink-faint">
+              {criterionShortLabel(x)}: {criterionDescription(x)} {x !== y ? `${criterionShortLabel(y)}: ${criterionDescription(y)}` : ""}
+            </p>
+          </Section>
+        </div>
+        <div className="xl:col-span-2">
+          <CandidateResponse slug={slug} sweep={sweep} index={selected} />
+        </div>
+      </div>
+
+      <Section title="Front" aside={`${frontRows.length} non-dominated candidates, by ${criterionShortLabel(x)}`} testId="front-section">
+        {front.isPending ? (
+          <Loading label="Computing the front…" />
+        ) : front.isError ? (
+          <ErrorNote error={front.error} title="Could not compute the front" />
+        ) : (
+          <FrontTable rows={frontRows} parameters={sweep.parameters} criteria={sweep.criteria} x={x} y={y} selected={selected} onSelect={setSelected} />
+        )}
+      </Section>
+    </div>
+  );
+}
+
+function CandidateResponse({ slug, sweep, index }: { slug: string; sweep: SweepDetailDto; index: number | null }) {
+  const response = useCandidateResponse(slug, sweep.id, index);
+  return (
+    <Section title={index === null ? "Step response" : `Step response of candidate #${index}`} aside="unit setpoint step" testId="response-section">
+      {index === null ? (
+        <p className="py-10 text-center text-sm text-ink-soft" data-testid="response-empty">
+          Click a point of the front, or a row of the table below, to see that candidate's closed-loop response y(t) to the setpoint r(t) and its
+          controller output u(t).
+        </p>
+      ) : response.isPending ? (
+        <Loading label="Simulating the loop…" />
+      ) : response.isError ? (
+        <ErrorNote error={response.error} title="Could not simulate this candidate" />
+      ) : (
+        <>
+          <dl className="mb-2 flex flex-wrap gap-x-5 gap-y-1 font-mono text-xs text-ink-soft">
+            {Object.entries(response.data.params).map(([name, value]) => (
+              <div key={name}>
+                <dt className="inline">{name} = </dt>
+                <dd className="inline text-ink">{formatNumber(value)}</dd>
+              </div>
+            ))}
+          </dl>
+          <ResponseChart t={response.data.t} r={response.data.r} y={response.data.y} u={response.data.u} />
+        </>
+      )}
+    </Section>
+  );
+}

@@ -1,0 +1,127 @@
+import { Link, useParams, useSearchParams } from "react-router";
+import { usePlant } from "../../api/use-plants.js";
+import { ButtonLink } from "../../components/button.js";
+import { CHART_COLORS } from "../../components/charts/chart-theme.js";
+import { TimeChart } from "../../components/charts/time-chart.js";
+import { ErrorNote } from "../../components/error-note.js";
+import { formatDateTime } from "../../components/format-date.js";
+import { Loading } from "../../components/loading.js";
+import { PageHeader } from "../../components/page-header.js";
+import { Section } from "../../components/section.js";
+import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
+import { formatCoefficient } from "./format-transfer-function.js";
+import { PolesTable } from "./poles-table.js";
+import { TransferFunctionView } from "./transfer-function-view.js";
+
+/** /w/:slug/plants/:plantId[?revision=N] — one revision of a plant: model, poles, open-loop step, revisions. */
+export function PlantDetailPage() {
+  const { slug, workspace, role, canEdit } = useWorkspaceRole();
+  const { plantId = "" } = useParams();
+  const [params] = useSearchParams();
+  const revisionParam = params.get("revision");
+  const revision = revisionParam !== null && /^\d+$/.test(revisionParam) ? Number(revisionParam) : undefined;
+  const plant = usePlant(slug, plantId, revision);
+  const base = `/w/${slug}`;
+  const back = { to: `${base}/plants`, label: "Library" };
+
+  if (plant.isPending) return <Loading label="Loading the plant…" />;
+  if (plant.isError)
+    return (
+      <>
+        <PageHeader title="Plant" back={back} />
+        <ErrorNote error={plant.error} title={revision === undefined ? "Could not load the plant" : `Could not load revision ${revision}`} />
+      </>
+    );
+
+  const { plant: summary, revision: shown, revisions, poles, step } = plant.data;
+  const isLatest = shown.number === summary.latestRevision.number;
+  const refusal = workspace.data && !canEdit ? roleSentence("Revising plants", "engineer", workspace.data.workspace.name, role) : null;
+  const tf = shown.model;
+
+  return (
+    <div data-testid="plant-detail-page">
+      <PageHeader
+        title={shown.name}
+        back={back}
+        subtitle={
+          <>
+            Revision <span className="font-mono">{shown.number}</span> of <span className="font-mono">{summary.revisionCount}</span> · saved{" "}
+            {formatDateTime(shown.createdAt)} by {shown.createdBy.name}
+            {isLatest ? null : (
+              <>
+                {" "}
+                ·{" "}
+                <Link to={`${base}/plants/${summary.id}`} className="text-moss hover:underline">
+                  show the latest
+                </Link>
+              </>
+            )}
+          </>
+        }
+        actions={
+          <>
+            <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" disabledReason={refusal ? roleSentence("Running sweeps", "engineer", workspace.data?.workspace.name, role) : null}>
+              Sweep this revision
+            </ButtonLink>
+            <ButtonLink to={`${base}/plants/${summary.id}/revise`} tone="primary" disabledReason={refusal} testId="new-revision">
+              New revision
+            </ButtonLink>
+          </>
+        }
+      />
+      {isLatest ? null : (
+        <p role="note" className="mb-4 rounded-md border border-line bg-sheet px-4 py-2 text-sm text-ink-soft">
+          You are looking at an earlier revision. It stays unchanged; sweeps that used it keep their results.
+        </p>
+      )}
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-5">
+        <div className="space-y-6 lg:col-span-3">
+          <Section title="Model" aside={<span className="font-mono">{tf.kind}</span>}>
+            <div className="overflow-x-auto py-2">
+              <TransferFunctionView num={tf.num} den={tf.den} delay={tf.delay} size="large" />
+            </div>
+            <dl className="mt-4 grid grid-cols-[max-content_1fr] gap-x-6 gap-y-1.5 text-sm">
+              <dt className="text-ink-soft">Numerator</dt>
+              <dd className="font-mono text-[13px]" data-testid="coefficients-num">[{tf.num.map(formatCoefficient).join(", ")}]</dd>
+              <dt className="text-ink-soft">Denominator</dt>
+              <dd className="font-mono text-[13px]" data-testid="coefficients-den">[{tf.den.map(formatCoefficient).join(", ")}]</dd>
+              <dt className="text-ink-soft">Dead time θ</dt>
+              <dd className="font-mono text-[13px]">{formatCoefficient(tf.delay)} s</dd>
+              <dt className="text-ink-soft">Units</dt>
+              <dd>{shown.unitsNote || <span className="text-ink-faint">No units note. Add one in a new revision so that others read the scores right.</span>}</dd>
+            </dl>
+          </Section>
+          <Section title="Open-loop step response" aside="unit step on u at t = 0">
+            {step.t.length > 0 ? (
+              <TimeChart testId="plant-step-chart" height={300} yTitle="y" series={[{ name: "y(t)", t: step.t, values: step.y, color: CHART_COLORS.moss }]} />
+            ) : (
+              <p className="text-sm text-ink-soft">No step response for this plant.</p>
+            )}
+          </Section>
+        </div>
+        <div className="space-y-6 lg:col-span-2">
+          <Section title="Poles" aside={`${poles.length} pole${poles.length === 1 ? "" : "s"}`}>
+            <PolesTable poles={poles} />
+          </Section>
+          <Section title="Revisions" testId="revision-list">
+            <ol className="space-y-1 text-sm">
+              {[...revisions].sort((a, b) => b.number - a.number).map((r) => (
+                <li key={r.id}>
+                  <Link
+                    to={`${base}/plants/${summary.id}?revision=${r.number}`}
+                    className={`flex items-baseline justify-between gap-3 rounded px-2 py-1 ${r.number === shown.number ? "bg-moss-wash text-moss" : "hover:bg-paper"}`}
+                  >
+                    <span className="font-mono">rev {r.number}</span>
+                    <span className="truncate text-xs text-ink-soft">
+                      {formatDateTime(r.createdAt)} · {r.createdBy.name}
+                    </span>
+                  </Link>
+                </li>
+              ))}
+            </ol>
+          </Section>
+        </div>
+      </div>
+    </div>
+  );
+}

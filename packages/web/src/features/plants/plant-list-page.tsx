@@ -1,0 +1,84 @@
+import { Link } from "react-router";
+import { usePlants } from "../../api/use-plants.js";
+import { ButtonLink } from "../../components/button.js";
+import { EmptyState } from "../../components/empty-state.js";
+import { ErrorNote } from "../../components/error-note.js";
+import { formatDateTime } from "../../components/format-date.js";
+import { Loading } from "../../components/loading.js";
+import { PageHeader } from "../../components/page-header.js";
+import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
+import { formatCoefficient, formatTransferFunction } from "./format-transfer-function.js";
+
+/** /w/:slug/plants — the library. */
+export function PlantListPage() {
+  const { slug, workspace, role, canEdit } = useWorkspaceRole();
+  const plants = usePlants(slug);
+  const base = `/w/${slug}`;
+  const refusal = workspace.data && !canEdit ? roleSentence("Creating plants", "engineer", workspace.data.workspace.name, role) : null;
+  const newButton = (
+    <ButtonLink to={`${base}/plants/new`} tone="primary" disabledReason={refusal} testId="new-plant">
+      New plant
+    </ButtonLink>
+  );
+
+  return (
+    <div data-testid="plant-list-page">
+      <PageHeader title="Library" subtitle="The workspace's plant models. Every edit makes a new revision; sweeps point at revisions." actions={newButton} />
+      {refusal ? (
+        <p role="note" data-testid="role-refusal" className="mb-4 text-sm text-ink-soft">
+          {refusal}
+        </p>
+      ) : null}
+      {plants.isPending ? (
+        <Loading label="Loading the library…" />
+      ) : plants.isError ? (
+        <ErrorNote error={plants.error} title="Could not load the library" />
+      ) : plants.data.length === 0 ? (
+        <EmptyState
+          title="The library is empty"
+          action={canEdit ? newButton : null}
+          testId="plants-empty"
+        >
+          {canEdit
+            ? "Add a plant: type its transfer function's numerator and denominator coefficients and its dead time. Then sweep PID gains on it."
+            : "An engineer of this workspace can add the first plant; you will see it here."}
+        </EmptyState>
+      ) : (
+        <div className="overflow-x-auto rounded-lg border border-line bg-sheet">
+          <table className="w-full text-sm" data-testid="plant-table">
+            <thead>
+              <tr className="border-b border-line text-left text-xs uppercase tracking-wide text-ink-soft">
+                <th className="px-4 py-2 font-medium">Name</th>
+                <th className="px-4 py-2 font-medium">Model</th>
+                <th className="px-4 py-2 text-right font-medium">Dead time [s]</th>
+                <th className="px-4 py-2 text-right font-medium">Revision</th>
+                <th className="px-4 py-2 font-medium">Last change</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-line-soft">
+              {plants.data.map((p) => (
+                <tr key={p.id} className="hover:bg-paper">
+                  <td className="px-4 py-2.5">
+                    <Link to={`${base}/plants/${p.id}`} className="font-medium hover:text-moss" data-testid="plant-link">
+                      {p.name}
+                    </Link>
+                    {p.latestRevision.unitsNote ? <div className="max-w-xs truncate text-xs text-ink-soft">{p.latestRevision.unitsNote}</div> : null}
+                  </td>
+                  <td className="px-4 py-2.5 font-mono text-[13px]">{formatTransferFunction({ ...p.latestRevision.model, delay: 0 }).replace("G(s) = ", "")}</td>
+                  <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">{formatCoefficient(p.latestRevision.model.delay)}</td>
+                  <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
+                    {p.latestRevision.number}
+                    <span className="text-ink-faint"> / {p.revisionCount}</span>
+                  </td>
+                  <td className="px-4 py-2.5 text-xs text-ink-soft">
+                    {formatDateTime(p.latestRevision.createdAt)} · {p.latestRevision.createdBy.name}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,86 @@
+import { Link } from "react-router";
+import { useSweeps } from "../../api/use-sweeps.js";
+import { ButtonLink } from "../../components/button.js";
+import { EmptyState } from "../../components/empty-state.js";
+import { ErrorNote } from "../../components/error-note.js";
+import { formatDateTime } from "../../components/format-date.js";
+import { Loading } from "../../components/loading.js";
+import { PageHeader } from "../../components/page-header.js";
+import { ProgressBar } from "../../components/progress-bar.js";
+import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
+import { SweepStatusBadge } from "./sweep-status.js";
+
+/** /w/:slug/sweeps — every sweep, newest first, with its state and progress. */
+export function SweepListPage() {
+  const { slug, workspace, role, canEdit } = useWorkspaceRole();
+  const sweeps = useSweeps(slug);
+  const base = `/w/${slug}`;
+  const refusal = workspace.data && !canEdit ? roleSentence("Running sweeps", "engineer", workspace.data.workspace.name, role) : null;
+  const newButton = (
+    <ButtonLink to={`${base}/sweeps/new`} tone="primary" disabledReason={refusal} testId="new-sweep">
+      New sweep
+    </ButtonLink>
+  );
+
+  return (
+    <div data-testid="sweep-list-page">
+      <PageHeader title="Sweeps" subtitle="Grids of PID gains run on one plant revision; every candidate scored on the chosen criteria." actions={newButton} />
+      {refusal ? (
+        <p role="note" data-testid="role-refusal" className="mb-4 text-sm text-ink-soft">
+          {refusal}
+        </p>
+      ) : null}
+      {sweeps.isPending ? (
+        <Loading label="Loading sweeps…" />
+      ) : sweeps.isError ? (
+        <ErrorNote error={sweeps.error} title="Could not load the sweeps" />
+      ) : sweeps.data.length === 0 ? (
+        <EmptyState title="No sweeps yet" action={canEdit ? newButton : null} testId="sweeps-empty">
+          {canEdit
+            ? "Start one: pick a plant revision, give ranges for kp, ki and kd, and Loopyard scores every candidate of the grid and draws the front."
+            : "An engineer of this workspace can start a sweep; its front will show here."}
+        </EmptyState>
+      ) : (
+        <div className="overflow-x-auto rounded-lg border border-line bg-sheet">
+          <table className="w-full text-sm" data-testid="sweep-table">
+            <thead>
+              <tr className="border-b border-line text-left text-xs uppercase tracking-wide text-ink-soft">
+                <th className="px-4 py-2 font-medium">Name</th>
+                <th className="px-4 py-2 font-medium">Plant</th>
+                <th className="px-4 py-2 font-medium">State</th>
+                <th className="w-56 px-4 py-2 font-medium">Progress</th>
+                <th className="px-4 py-2 font-medium">Started</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-line-soft">
+              {sweeps.data.map((s) => (
+                <tr key={s.id} className="hover:bg-paper">
+                  <td className="px-4 py-2.5">
+                    <Link to={`${base}/sweeps/${s.id}`} className="font-medium hover:text-moss" data-testid="sweep-link">
+                      {s.name}
+                    </Link>
+                  </td>
+                  <td className="px-4 py-2.5">
+                    <Link to={`${base}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="hover:text-moss">
+                      {s.plant.name}
+                    </Link>{" "}
+                    <span className="font-mono text-xs text-ink-soft">rev {s.plant.revisionNumber}</span>
+                  </td>
+                  <td className="px-4 py-2.5">
+                    <SweepStatusBadge status={s.status} />
+                  </td>
+                  <td className="px-4 py-2.5">
+                    <ProgressBar done={s.done} total={s.total} compact />
+                  </td>
+                  <td className="px-4 py-2.5 text-xs text-ink-soft">
+                    {formatDateTime(s.createdAt)} · {s.createdBy.name}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,19 @@
+import type { FieldValues, Path, UseFormSetError } from "react-hook-form";
+import { isApiError } from "../api/api-error.js";
+import { FORM_LEVEL, apiIssues, fieldErrors } from "./field-errors.js";
+
+/**
+ * Puts the field problems of an API 400 next to the fields they name (the rest under root.server).
+ * Returns false when the error names no field (403, 404, network…), so that the caller shows it whole.
+ */
+export function applyServerErrors<T extends FieldValues>(error: unknown, knownFields: readonly string[], setError: UseFormSetError<T>): boolean {
+  if (!isApiError(error) || error.status !== 400) return false;
+  const byField = fieldErrors(apiIssues(error), knownFields);
+  const entries = Object.entries(byField);
+  if (entries.length === 0) return false;
+  for (const [field, message] of entries) {
+    if (field === FORM_LEVEL) setError("root.server", { type: "server", message });
+    else setError(field as Path<T>, { type: "server", message });
+  }
+  return true;
+}
