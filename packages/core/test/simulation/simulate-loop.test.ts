@@ -69,6 +69,13 @@ describe("simulateLoop", () => {
     for (let k = d; k <= 2 * d; k++) expectClose(trace.y[k], K * (1 - Math.exp(-(trace.t[k] - theta) / tau)), 1e-12);
   });
 
+  it("with dead time, u[0] holds u(0⁺) = kp + kd/tf as well", () => {
+    // The plant output has not moved at 0⁺ (its input is still delayed), so e[0] = 1 and u[0] = D_c.
+    const trace = simulateLoop(tf([1], [2, 1], 0.5), p(1.2, 0.3, 0.6, 0.06), step(5, 0.01));
+    expectClose(trace.u[0], 1.2 + 0.6 / 0.06, 1e-12);
+    expect(trace.y[0]).toBe(0);
+  });
+
   it("with dead time and a stable P loop, y settles at K·G(0)/(1 + K·G(0))", () => {
     // Final value theorem: e^(−θ·0) = 1, so y∞ = K/(1 + K) for G(0) = 1.
     const trace = simulateLoop(tf([1], [1, 1], 1), p(1.5), step(200, 0.01));
