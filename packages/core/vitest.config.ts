@@ -5,7 +5,8 @@ export default defineConfig({
   test: {
     name: "core",
     environment: "node",
-    include: ["test/**/*.test.ts"],
+    // test/ mirrors src/ for the numerics; some folders keep their tests beside the source (*.test.ts).
+    include: ["test/**/*.test.ts", "src/**/*.test.ts"],
     sequence: { groupOrder: 0 },
   },
 });
