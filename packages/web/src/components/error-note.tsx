@@ -2,7 +2,18 @@ import { Link } from "react-router";
 import { howToFix, isApiError } from "../api/api-error.js";
 
 /** A failed load or action: what went wrong (the server's sentence) and how to fix it. */
-export function ErrorNote({ error, title = "Something went wrong", testId = "error-note" }: { error: unknown; title?: string; testId?: string }) {
+export function ErrorNote({
+  error,
+  title = "Something went wrong",
+  hint,
+  testId = "error-note",
+}: {
+  error: unknown;
+  title?: string;
+  /** How to fix it, when the page knows better than the status alone. */
+  hint?: string;
+  testId?: string;
+}) {
   const message = error instanceof Error ? error.message : String(error);
   const status = isApiError(error) ? error.status : null;
   return (
@@ -13,8 +24,8 @@ export function ErrorNote({ error, title = "Something went wrong", testId = "err
       </p>
       <p className="mt-1 text-ink" data-testid={`${testId}-message`}>{message}</p>
       <p className="mt-1 text-ink-soft">
-        {howToFix(error)}
-        {status === 401 ? (
+        {hint ?? howToFix(error)}
+        {status === 401 && !hint ? (
           <>
             {" "}
             <Link to="/sign-in" className="font-medium text-moss underline">

@@ -24,7 +24,7 @@ export function Field({
 }) {
   return (
     <div className={className}>
-      <label htmlFor={htmlFor} className="mb-1 block text-xs font-medium uppercase tracking-wide text-ink-soft">
+      <label htmlFor={htmlFor} className="mb-1 block text-xs font-medium text-ink-soft">
         {label}
       </label>
       {children}

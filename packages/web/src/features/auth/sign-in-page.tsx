@@ -1,5 +1,6 @@
 import { useForm } from "react-hook-form";
 import { Link, useNavigate, useSearchParams } from "react-router";
+import { isApiError } from "../../api/api-error.js";
 import { useSignIn } from "../../api/use-auth.js";
 import { Button } from "../../components/button.js";
 import { ErrorNote } from "../../components/error-note.js";
@@ -35,7 +36,7 @@ export function SignInPage() {
       }
     >
       <form onSubmit={onSubmit} noValidate className="space-y-4" data-testid="sign-in-form">
-        {signIn.error ? <ErrorNote error={signIn.error} title="Could not sign in" /> : null}
+        {signIn.error ? <ErrorNote error={signIn.error} title="Could not sign in" hint={isApiError(signIn.error) && signIn.error.status === 401 ? "Check the email and the password (it is case-sensitive) and try again." : undefined} /> : null}
         <Field label="Email" htmlFor="email" name="email" error={formState.errors.email?.message}>
           <input
             id="email"

@@ -31,7 +31,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const frontRows = (front.data?.indices ?? []).map((i) => byIndex.get(i)).filter((c) => c !== undefined);
 
   const select = (label: string, value: CriterionId, onChange: (c: CriterionId) => void, testId: string) => (
-    <label className="flex items-center gap-2 text-sm">
+    <label className="flex items-center gap-2 whitespace-nowrap text-sm">
       <span className="text-ink-soft">{label}</span>
       <select value={value} onChange={(e) => onChange(e.target.value as CriterionId)} className={`${inputClass} w-auto py-1`} data-testid={testId}>
         {sweep.criteria.map((c) => (

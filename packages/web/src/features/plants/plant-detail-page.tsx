@@ -60,7 +60,7 @@ export function PlantDetailPage() {
         }
         actions={
           <>
-            <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" disabledReason={refusal ? roleSentence("Running sweeps", "engineer", workspace.data?.workspace.name, role) : null}>
+            <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" testId="sweep-this-revision" disabledReason={refusal ? roleSentence("Running sweeps", "engineer", workspace.data?.workspace.name, role) : null}>
               Sweep this revision
             </ButtonLink>
             <ButtonLink to={`${base}/plants/${summary.id}/revise`} tone="primary" disabledReason={refusal} testId="new-revision">

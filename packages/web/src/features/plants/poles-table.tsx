@@ -11,7 +11,7 @@ export function PolesTable({ poles }: { poles: readonly Complex[] }) {
   return (
     <table className="w-full text-sm" data-testid="poles-table">
       <thead>
-        <tr className="border-b border-line text-xs uppercase tracking-wide text-ink-soft">
+        <tr className="border-b border-line text-xs text-ink-soft">
           <th className="px-3 py-1.5 text-right font-medium">Re</th>
           <th className="px-3 py-1.5 text-right font-medium">Im</th>
           <th className="px-3 py-1.5 text-right font-medium">τ [s]</th>

@@ -1,4 +1,4 @@
-import { formatDelay, formatPolynomial } from "./format-transfer-function.js";
+import { formatCoefficient, formatPolynomial } from "./format-transfer-function.js";
 
 /** G(s) drawn as a fraction in monospace: numerator over a rule over denominator, then the dead-time factor. */
 export function TransferFunctionView({
@@ -15,7 +15,7 @@ export function TransferFunctionView({
   testId?: string;
 }) {
   const text = size === "large" ? "text-lg" : "text-sm";
-  const delayText = formatDelay(delay);
+  const hasDelay = delay > 0;
   return (
     <div data-testid={testId} className={`inline-flex items-center gap-3 font-mono ${text} text-ink`}>
       <span className="text-ink-soft">G(s) =</span>
@@ -24,7 +24,11 @@ export function TransferFunctionView({
         <span className="my-0.5 h-px w-full bg-ink/70" aria-hidden />
         <span className="px-2">{formatPolynomial(den)}</span>
       </span>
-      {delayText ? <span>· {delayText}</span> : null}
+      {hasDelay ? (
+        <span data-testid={`${testId}-delay`}>
+          · e<sup className="ml-px text-[0.75em]">−{formatCoefficient(delay)}s</sup>
+        </span>
+      ) : null}
     </div>
   );
 }

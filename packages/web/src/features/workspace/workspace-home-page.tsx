@@ -59,6 +59,7 @@ export function WorkspaceHomePage() {
             )}
           </Section>
         </div>
+        <div className="self-start">
         <Section title="Members" testId="members">
           <ul className="space-y-2">
             {home.members.map((m) => (
@@ -72,6 +73,7 @@ export function WorkspaceHomePage() {
             ))}
           </ul>
         </Section>
+        </div>
       </div>
     </div>
   );
