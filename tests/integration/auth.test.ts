@@ -86,6 +86,15 @@ describe("sessions", () => {
     expect(sessionCookie).toMatch(/SameSite=Lax/i);
   });
 
+  it("when a sign-in comes from another origin, then it is refused (the public URL is the only trusted origin)", async () => {
+    const response = await new ApiClient(server.url).request("POST", "/api/auth/sign-in/email", {
+      json: { email: "priya@halvard.example", password: "ember-demo-2026" },
+      headers: { origin: "http://elsewhere.example" },
+    });
+    expect(response.status).toBe(403);
+    expect(response.headers.getSetCookie()).toEqual([]);
+  });
+
   it("when the password is shorter than 10 characters, then sign-up is refused and no session starts", async () => {
     const client = new ApiClient(server.url);
     const response = await client.signUp({ ...freshUser("Short"), password: "nine-char" });

@@ -6,7 +6,7 @@ import { requireSession } from "./auth/session-middleware.js";
 import { createDatabase, type RootDatabase } from "./db/database.js";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware.js";
 import { apiHeaders, securityHeaders } from "./http/security-headers.js";
-import { serveWebApp } from "./http/web-app.js";
+import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { SweepRunner } from "./sweeps/sweep-runner.js";
@@ -58,19 +58,20 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
-  if (config.webDist) {
-    if (!serveWebApp(app, config.webDist)) {
-      console.warn(`[loopyard] no web app at ${config.webDist} (index.html missing); serving the API only. Build it with: npm run build`);
-    }
+  if (config.webDist && !serveWebApp(app, config.webDist)) {
+    console.warn(`[loopyard] no web app at ${config.webDist} (index.html missing); serving the API only. Build it with: npm run build`);
+    app.use(webAppMissing(config.webDist));
   }
 
   app.use(errorMiddleware(JSON_BODY_LIMIT));
 
-  if (config.resumeSweeps !== false) {
-    runner.resumeUnfinished().catch((error: unknown) => {
-      console.error("[loopyard] could not resume unfinished sweeps:", error);
-    });
-  }
+  const resuming =
+    config.resumeSweeps === false
+      ? Promise.resolve()
+      : runner.resumeUnfinished().then(
+          () => undefined,
+          (error: unknown) => console.error("[loopyard] could not resume unfinished sweeps:", error),
+        );
 
   let closing: Promise<void> | null = null;
   return {
@@ -80,6 +81,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     runner,
     close() {
       closing ??= (async () => {
+        await resuming;
         await runner.close();
         await database.close();
       })();

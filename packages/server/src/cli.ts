@@ -7,7 +7,7 @@
  *   node packages/server/dist/cli.js serve     serve the API and the built web app
  *
  * Environment: DATABASE_URL, PORT, HOST, LOOPYARD_AUTH_SECRET, LOOPYARD_PUBLIC_URL, LOOPYARD_WEB_DIST,
- * LOOPYARD_MIGRATIONS_DIR (see README).
+ * LOOPYARD_MIGRATIONS_DIR, LOOPYARD_TRUSTED_ORIGINS (comma-separated extra origins, e.g. a Vite dev server).
  */
 import type { Server } from "node:http";
 import { createApp } from "./app.js";

@@ -9,6 +9,8 @@ export interface AppConfig {
   authSecret: string;
   /** URL users open in the browser, e.g. http://127.0.0.1:4470; also the only trusted origin. */
   publicUrl: string;
+  /** Further origins allowed to call the auth endpoints, e.g. the Vite dev server http://127.0.0.1:5173. */
+  extraTrustedOrigins?: string[];
   /** Folder of the built web app to serve with SPA fallback; null or absent serves the API only. */
   webDist?: string | null;
   /** Resume sweeps left queued or running by an earlier process (default true). */
@@ -62,8 +64,18 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): ServerConfi
     env.LOOPYARD_WEB_DIST === ""
       ? null
       : path.resolve(env.LOOPYARD_WEB_DIST ?? path.join(REPO_ROOT, "packages", "web", "dist"));
+  const extraTrustedOrigins = (env.LOOPYARD_TRUSTED_ORIGINS ?? "")
+    .split(",")
+    .map((origin) => origin.trim())
+    .filter((origin) => origin !== "");
+  for (const origin of extraTrustedOrigins) {
+    if (!URL.canParse(origin)) {
+      throw new ConfigError(`LOOPYARD_TRUSTED_ORIGINS must list absolute URLs separated by commas; "${origin}" is not one.`);
+    }
+  }
   return {
     databaseUrl: env.DATABASE_URL ?? DEFAULT_DATABASE_URL,
+    extraTrustedOrigins,
     authSecret,
     publicUrl,
     webDist,

@@ -14,14 +14,15 @@ process.env.BETTER_AUTH_TELEMETRY = "0";
  * Email + password sign-in with sessions stored in PostgreSQL through the Drizzle adapter.
  * Cookies are httpOnly and SameSite=Lax, and Secure whenever the public URL is https.
  */
-export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | "publicUrl">) {
+export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | "publicUrl" | "extraTrustedOrigins">) {
   const origin = new URL(config.publicUrl).origin;
+  const extra = (config.extraTrustedOrigins ?? []).map((url) => new URL(url).origin);
   return betterAuth({
     appName: "Loopyard",
     baseURL: config.publicUrl,
     basePath: "/api/auth",
     secret: config.authSecret,
-    trustedOrigins: [origin],
+    trustedOrigins: [origin, ...extra],
     database: drizzleAdapter(db, { provider: "pg", schema: authSchema }),
     emailAndPassword: {
       enabled: true,

@@ -53,5 +53,5 @@ export function errorMiddleware(bodyLimit: string): ErrorRequestHandler {
 
 /** 404 for any /api path no route answered. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
-  next(new HttpError(404, `There is no API endpoint ${req.method} ${req.path}.`));
+  next(new HttpError(404, `There is no API endpoint ${req.method} ${req.baseUrl}${req.path}.`));
 };

@@ -1,6 +1,6 @@
 import { existsSync } from "node:fs";
 import path from "node:path";
-import express, { type Express } from "express";
+import express, { type Express, type RequestHandler } from "express";
 
 /**
  * Serves the built web app from `webDist`: files as they are (hashed assets cached for a year),
@@ -28,4 +28,18 @@ export function serveWebApp(app: Express, webDist: string): boolean {
     res.sendFile(indexHtml);
   });
   return true;
+}
+
+/** Answers page requests with a hint when the web app has not been built (the API still works). */
+export function webAppMissing(webDist: string): RequestHandler {
+  return (req, res, next) => {
+    if ((req.method !== "GET" && req.method !== "HEAD") || req.path === "/api" || req.path.startsWith("/api/")) {
+      next();
+      return;
+    }
+    res
+      .status(503)
+      .type("text/plain")
+      .send(`The Loopyard web app is not built (no index.html in ${webDist}). Build it with "npm run build", or start everything with "npm start".\n`);
+  };
 }

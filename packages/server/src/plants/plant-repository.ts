@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
+import { and, asc, eq, inArray, max } from "drizzle-orm";
 import type { Plant, PlantInputParsed, PlantRevisionDto, PlantSummaryDto, UserDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { plant, plantRevision, user } from "../db/schema.js";
@@ -77,9 +77,9 @@ async function revisionsOf(db: Database, plantIds: readonly string[]): Promise<M
   return byPlant;
 }
 
-/** The library of a workspace, most recently changed first. */
+/** The library of a workspace, by name. */
 export async function listPlantSummaries(db: Database, workspaceId: string): Promise<PlantSummaryDto[]> {
-  const plants = await db.select(plantColumns).from(plant).where(eq(plant.workspaceId, workspaceId)).orderBy(desc(plant.updatedAt), asc(plant.name));
+  const plants = await db.select(plantColumns).from(plant).where(eq(plant.workspaceId, workspaceId)).orderBy(asc(plant.name), asc(plant.createdAt));
   const revisions = await revisionsOf(db, plants.map((p) => p.id));
   return plants.map((row) => toSummary(row, revisions.get(row.id) ?? []));
 }

@@ -1,6 +1,6 @@
 import { performance } from "node:perf_hooks";
 import { evaluateCandidate, gridCandidates } from "@loopyard/core";
-import type { CandidateDto, PidController } from "@loopyard/core";
+import type { CandidateDto, PidController, Plant } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { findRevisionById } from "../plants/plant-repository.js";
 import { countCandidates, insertCandidateChunk } from "./candidate-repository.js";
@@ -28,12 +28,22 @@ class SweepFailure extends Error {
   override name = "SweepFailure";
 }
 
+/** A sweep being run: what it needs and how far it got. */
+interface ActiveSweep {
+  record: SweepRunRecord;
+  plant: Plant;
+  controllers: PidController[];
+  /** Index of the next candidate to evaluate (candidates before it are stored). */
+  next: number;
+}
+
 const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 /**
- * Runs sweeps in this process, one at a time in arrival order. Each chunk of candidates is
- * evaluated with core's evaluateCandidate, then stored together with the sweep's progress in one
- * transaction; between chunks the runner yields to the event loop so the API stays responsive.
+ * Runs sweeps in this process. Each step evaluates one chunk of one sweep's candidates with core's
+ * evaluateCandidate, then stores them together with the sweep's progress in one transaction, and
+ * yields to the event loop so the API stays responsive. Several sweeps take turns chunk by chunk,
+ * so a small sweep is not stuck behind a large one.
  *
  * Candidates are stored as a prefix of the grid, so a sweep left queued or running by a stopped
  * process resumes from what is stored (resumeUnfinished at start-up).
@@ -42,8 +52,11 @@ export class SweepRunner {
   readonly #db: Database;
   readonly #chunkSize: number;
   readonly #chunkBudgetMs: number;
-  readonly #queue: string[] = [];
-  #current: Promise<void> | null = null;
+  /** Sweeps waiting to be loaded, in arrival order. */
+  readonly #pending: string[] = [];
+  /** Sweeps being run, taking turns in insertion order. */
+  readonly #active = new Map<string, ActiveSweep>();
+  #loop: Promise<void> | null = null;
   #stopping = false;
 
   constructor(db: Database, options: SweepRunnerOptions = {}) {
@@ -54,9 +67,18 @@ export class SweepRunner {
 
   /** Queues a sweep to run in the background. */
   enqueue(sweepId: string): void {
-    if (this.#stopping) return;
-    if (!this.#queue.includes(sweepId)) this.#queue.push(sweepId);
-    this.#pump();
+    if (this.#stopping || this.#pending.includes(sweepId) || this.#active.has(sweepId)) return;
+    this.#pending.push(sweepId);
+    this.#ensureLoop();
+  }
+
+  #ensureLoop(): void {
+    if (this.#loop) return;
+    this.#loop = this.#runLoop().finally(() => {
+      this.#loop = null;
+      // A sweep enqueued while the loop was ending starts a new loop.
+      if (!this.#stopping && this.#pending.length > 0) this.#ensureLoop();
+    });
   }
 
   /** Queues every sweep left queued or running; returns how many. */
@@ -66,41 +88,46 @@ export class SweepRunner {
     return ids.length;
   }
 
-  /** Runs one sweep to its end in the caller's flow (the demo seed uses this). */
+  /** Runs one sweep to its end in the caller's flow (the demo seed uses this); a finished sweep is left as is. */
   async runNow(sweepId: string): Promise<void> {
-    await this.#run(sweepId);
+    const sweep = await this.#load(sweepId);
+    if (!sweep) return;
+    while (await this.#step(sweep)) await yieldToEventLoop();
   }
 
-  /** Resolves once the queue is empty and no sweep is running. */
+  /** Resolves once no sweep is waiting or running. */
   async idle(): Promise<void> {
-    while (this.#current) await this.#current;
+    while (this.#loop) await this.#loop;
   }
 
   /** Stops after the chunk in progress; unfinished sweeps stay running and resume at the next start. */
   async close(): Promise<void> {
     this.#stopping = true;
-    this.#queue.length = 0;
     await this.idle();
+    this.#pending.length = 0;
+    this.#active.clear();
   }
 
-  #pump(): void {
-    if (this.#current) return;
-    this.#current = (async () => {
-      while (this.#queue.length > 0 && !this.#stopping) {
-        const id = this.#queue.shift() as string;
-        await this.#run(id);
+  async #runLoop(): Promise<void> {
+    while (!this.#stopping && (this.#pending.length > 0 || this.#active.size > 0)) {
+      while (this.#pending.length > 0 && !this.#stopping) {
+        const id = this.#pending.shift() as string;
+        const sweep = await this.#load(id);
+        if (sweep) this.#active.set(id, sweep);
       }
-    })().finally(() => {
-      this.#current = null;
-      if (this.#queue.length > 0 && !this.#stopping) this.#pump();
-    });
+      for (const [id, sweep] of this.#active) {
+        if (this.#stopping) return;
+        if (!(await this.#step(sweep))) this.#active.delete(id);
+        await yieldToEventLoop();
+      }
+    }
   }
 
-  async #run(sweepId: string): Promise<void> {
-    let next = 0;
+  /** Loads a sweep and marks it running; null when it is done already or failed to load (then marked failed). */
+  async #load(sweepId: string): Promise<ActiveSweep | null> {
     try {
       const record = await findSweepForRun(this.#db, sweepId);
-      if (!record || record.status === "finished" || record.status === "failed") return;
+      if (!record || record.status === "finished" || record.status === "failed") return null;
       const plant = (await findRevisionById(this.#db, record.plantRevisionId))?.model;
       if (!plant) throw new SweepFailure("The sweep could not start: its plant revision no longer exists.");
       const controllers = gridCandidates(record.definition.ranges, record.definition.filter);
@@ -108,31 +135,38 @@ export class SweepRunner {
         throw new SweepFailure(`The sweep could not start: its grid has ${controllers.length} candidates, not the ${record.total} recorded.`);
       }
       await markSweepRunning(this.#db, sweepId);
-      next = await countCandidates(this.#db, sweepId);
-      while (next < record.total) {
-        if (this.#stopping) return;
-        const rows = this.#evaluateChunk(record, plant, controllers, next);
-        await insertCandidateChunk(this.#db, sweepId, rows);
-        next += rows.length;
-        await yieldToEventLoop();
-      }
-      await markSweepFinished(this.#db, sweepId);
+      return { record, plant, controllers, next: await countCandidates(this.#db, sweepId) };
     } catch (error) {
-      await this.#fail(sweepId, error, next);
+      await this.#fail(sweepId, error, 0);
+      return null;
     }
   }
 
-  /** Evaluates candidates from `start` until the chunk size or the time budget is reached. */
-  #evaluateChunk(
-    record: SweepRunRecord,
-    plant: Parameters<typeof evaluateCandidate>[0],
-    controllers: readonly PidController[],
-    start: number,
-  ): CandidateDto[] {
+  /** Evaluates and stores one chunk; returns false once the sweep is finished or failed. */
+  async #step(sweep: ActiveSweep): Promise<boolean> {
+    const id = sweep.record.id;
+    try {
+      if (sweep.next >= sweep.record.total) {
+        await markSweepFinished(this.#db, id);
+        return false;
+      }
+      const rows = this.#evaluateChunk(sweep);
+      await insertCandidateChunk(this.#db, id, rows);
+      sweep.next += rows.length;
+      return true;
+    } catch (error) {
+      await this.#fail(id, error, sweep.next);
+      return false;
+    }
+  }
+
+  /** Evaluates candidates from `sweep.next` until the chunk size or the time budget is reached. */
+  #evaluateChunk(sweep: ActiveSweep): CandidateDto[] {
+    const { record, plant, controllers } = sweep;
     const { scenario } = record.definition;
     const started = performance.now();
     const rows: CandidateDto[] = [];
-    for (let index = start; index < record.total && rows.length < this.#chunkSize; index += 1) {
+    for (let index = sweep.next; index < record.total && rows.length < this.#chunkSize; index += 1) {
       if (rows.length > 0 && performance.now() - started > this.#chunkBudgetMs) break;
       const controller = controllers[index] as PidController;
       const evaluation = evaluateCandidate(plant, controller, scenario, record.criteria);
@@ -141,7 +175,7 @@ export class SweepRunner {
         index,
         params: [controller.kp, controller.ki, controller.kd, controller.tf],
         status: evaluation.status,
-        scores: scores ? record.criteria.map((id) => scores[id]) : null,
+        scores: scores ? record.criteria.map((criterion) => scores[criterion]) : null,
       });
     }
     return rows;
