@@ -58,6 +58,15 @@ export { itae, itaeCriterion } from "./criteria/itae.js";
 export { effort, effortCriterion } from "./criteria/effort.js";
 export { CRITERIA } from "./criteria/registry.js";
 
+// Expressions (nonlinear plants typed as text).
+export { compileExpression } from "./expressions/compile-expression.js";
+export { compileSystem } from "./expressions/compile-system.js";
+export { checkExpression, EXPRESSION_LIMITS } from "./expressions/check-expression.js";
+export { ExpressionError, isExpressionError } from "./expressions/expression-error.js";
+export { DeclaredNameError, isDeclaredNameError } from "./expressions/declared-name-error.js";
+export { createNameScope, DEFAULT_INPUT_NAME, MAX_NAME_LENGTH } from "./expressions/name-scope.js";
+export { EXPRESSION_FUNCTIONS, EXPRESSION_FUNCTION_NAMES, isExpressionFunctionName } from "./expressions/expression-functions.js";
+
 // Sweeps and fronts.
 export { gridCandidates } from "./sweeps/grid-candidates.js";
 export { paretoFront } from "./fronts/pareto-front.js";
@@ -77,3 +86,9 @@ export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";
 export type { LoopTrace, SetpointStepScenario } from "./simulation/loop-trace.js";
 export type { CandidateEvaluation } from "./simulation/evaluate-candidate.js";
 export type { CriterionDefinition } from "./criteria/criterion-definition.js";
+export type { CompiledExpression } from "./expressions/compile-expression.js";
+export type { CompiledSystem, ExpressionSystemConfig } from "./expressions/compile-system.js";
+export type { CheckedExpression, CheckedNode, UnaryOperator, BinaryOperator } from "./expressions/check-expression.js";
+export type { NameRole } from "./expressions/declared-name-error.js";
+export type { ExpressionNames, NameScope, NameBinding } from "./expressions/name-scope.js";
+export type { ExpressionFunction, ExpressionFunctionName } from "./expressions/expression-functions.js";
