@@ -34,6 +34,8 @@ export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | 
       cookiePrefix: "loopyard",
       useSecureCookies: origin.startsWith("https://"),
       defaultCookieAttributes: { httpOnly: true, sameSite: "lax" },
+      // better-auth skips the origin check under NODE_ENV=test; keep it on so tests exercise what ships.
+      disableOriginCheck: false,
     },
   });
 }
