@@ -12,13 +12,15 @@ export function toResolverErrors<T extends FieldValues>(byField: Record<string, 
       errors.root = { type: "validate", message };
       continue;
     }
+    // A parent ("ranges") and its children ("ranges.kd.max") may both have problems: merge, never overwrite.
     const parts = field.split(".");
     let node = errors;
     parts.slice(0, -1).forEach((part) => {
       node[part] = (node[part] as Record<string, unknown> | undefined) ?? {};
       node = node[part] as Record<string, unknown>;
     });
-    node[parts[parts.length - 1]] = { type: "validate", message };
+    const leaf = parts[parts.length - 1];
+    node[leaf] = Object.assign((node[leaf] as Record<string, unknown> | undefined) ?? {}, { type: "validate", message });
   }
   return errors as FieldErrors<T>;
 }

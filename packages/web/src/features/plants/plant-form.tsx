@@ -2,6 +2,7 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { PlantInput } from "@loopyard/core";
 import { Button } from "../../components/button.js";
+import { RoleNote } from "../../components/role-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { Field, inputClass } from "../../components/field.js";
 import { applyServerErrors } from "../../forms/apply-server-errors.js";
@@ -47,7 +48,7 @@ export function PlantForm({
   return (
     <form onSubmit={submit} noValidate className="grid grid-cols-1 gap-6 lg:grid-cols-5" data-testid="plant-form">
       <div className="space-y-5 lg:col-span-3">
-        {refusal ? <p role="note" data-testid="role-refusal" className="rounded-md border border-line bg-sheet px-4 py-2.5 text-sm text-ink-soft">{refusal}</p> : null}
+        {refusal ? <RoleNote sentence={refusal} /> : null}
         {failure ? <ErrorNote error={failure} title="The plant was not saved" /> : null}
         {errors.root?.server?.message || errors.root?.message ? (
           <p role="alert" data-testid="form-error" className="rounded-md border border-rust/40 bg-rust-wash px-4 py-2.5 text-sm text-rust">

@@ -2,6 +2,7 @@ import { Link } from "react-router";
 import { usePlants } from "../../api/use-plants.js";
 import { ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
+import { RoleNote } from "../../components/role-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
 import { Loading } from "../../components/loading.js";
@@ -24,11 +25,7 @@ export function PlantListPage() {
   return (
     <div data-testid="plant-list-page">
       <PageHeader title="Library" subtitle="The workspace's plant models. Every edit makes a new revision; sweeps point at revisions." actions={newButton} />
-      {refusal ? (
-        <p role="note" data-testid="role-refusal" className="mb-4 text-sm text-ink-soft">
-          {refusal}
-        </p>
-      ) : null}
+      {refusal ? <RoleNote sentence={refusal} /> : null}
       {plants.isPending ? (
         <Loading label="Loading the library…" />
       ) : plants.isError ? (

@@ -2,6 +2,7 @@ import { Link } from "react-router";
 import { useSweeps } from "../../api/use-sweeps.js";
 import { ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
+import { RoleNote } from "../../components/role-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
 import { Loading } from "../../components/loading.js";
@@ -25,11 +26,7 @@ export function SweepListPage() {
   return (
     <div data-testid="sweep-list-page">
       <PageHeader title="Sweeps" subtitle="Grids of PID gains run on one plant revision; every candidate scored on the chosen criteria." actions={newButton} />
-      {refusal ? (
-        <p role="note" data-testid="role-refusal" className="mb-4 text-sm text-ink-soft">
-          {refusal}
-        </p>
-      ) : null}
+      {refusal ? <RoleNote sentence={refusal} /> : null}
       {sweeps.isPending ? (
         <Loading label="Loading sweeps…" />
       ) : sweeps.isError ? (

@@ -6,6 +6,7 @@ import { usePlant, usePlants } from "../../api/use-plants.js";
 import { useCreateSweep } from "../../api/use-sweeps.js";
 import { Button, ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
+import { RoleNote } from "../../components/role-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { Field, inputClass } from "../../components/field.js";
 import { Loading } from "../../components/loading.js";
@@ -101,7 +102,7 @@ export function SweepNewPage() {
       <PageHeader title="New sweep" subtitle="A grid of PID gains on one plant revision; every candidate is simulated under a unit setpoint step and scored." back={back} />
       <form onSubmit={submit} noValidate className="grid grid-cols-1 gap-6 lg:grid-cols-3" data-testid="sweep-form">
         <div className="space-y-6 lg:col-span-2">
-          {refusal ? <p role="note" data-testid="role-refusal" className="rounded-md border border-line bg-sheet px-4 py-2.5 text-sm text-ink-soft">{refusal}</p> : null}
+          {refusal ? <RoleNote sentence={refusal} /> : null}
           {failure ? <ErrorNote error={failure} title="The sweep was not started" /> : null}
           {errors.root?.server ? (
             <p role="alert" data-testid="form-error" className="rounded-md border border-rust/40 bg-rust-wash px-4 py-2.5 text-sm text-rust">
@@ -221,12 +222,12 @@ export function SweepNewPage() {
                 ? `${count} is more than the ${MAX_SWEEP_CANDIDATES} candidates one sweep may hold; lower a count.`
                 : `One sweep holds at most ${MAX_SWEEP_CANDIDATES} candidates, so that it runs in about a minute on the shared server without holding up others.`}
             </p>
-            {errors.ranges?.message || errors.ranges?.root?.message ? (
+            {!overCap && (errors.ranges?.message || errors.ranges?.root?.message) ? (
               <p role="alert" data-testid="field-error-ranges" className="text-xs text-rust">
                 {errors.ranges?.message ?? errors.ranges?.root?.message}
               </p>
             ) : null}
-            <Button type="submit" tone="primary" className="w-full" disabled={formState.isSubmitting || Boolean(refusal) || overCap || !plant.data} data-testid="sweep-submit">
+            <Button type="submit" tone="primary" className="w-full" disabled={formState.isSubmitting || Boolean(refusal) || !plant.data} data-testid="sweep-submit">
               {formState.isSubmitting ? "Starting…" : count !== null ? `Run ${count} candidates` : "Run sweep"}
             </Button>
           </div>
