@@ -101,7 +101,7 @@ describe("journey: engineer runs a sweep, viewer is refused", () => {
     await saveScreenshot(page, "journey-06-plant-detail");
   });
 
-  it("when she sweeps a 5 × 5 grid (kd count 1) on it, then progress, the front chart and the front table appear", async () => {
+  it("when she sweeps a 5 × 5 grid (kd count 1) on it, then it finishes and the front chart, the front table and a picked candidate's response appear", async () => {
     await page.click("[data-testid=sweep-this-revision]");
     await page.waitForSelector("[data-testid=sweep-form]");
     await page.fill("#sweep-name", `${plantName} 5×5`);
@@ -132,7 +132,21 @@ describe("journey: engineer runs a sweep, viewer is refused", () => {
     await page.evaluate(() => window.scrollTo(0, 0));
     await saveScreenshot(page, "journey-09-sweep-front");
 
+    // Clicking a highlighted point of the front picks that candidate (plotly reports the click at the mouse position).
+    const frontPoint = await page.waitForSelector("[data-testid=front-chart] .scatterlayer .trace:nth-child(2) .point");
+    const box = await frontPoint.boundingBox();
+    expect(box).not.toBeNull();
+    await page.mouse.click(box!.x + box!.width / 2, box!.y + box!.height / 2);
+    await page.waitForSelector("[data-testid=response-chart] .main-svg", { timeout: RESULT_TIMEOUT_MS });
+    expect(await page.textContent("[data-testid=response-section] h2")).toMatch(/candidate #\d+/);
+
+    // Clicking a row of the front table picks that row's candidate.
     await rows[0].click();
+    const firstIndex = await rows[0].getAttribute("data-index");
+    await page.waitForFunction(
+      (index) => document.querySelector("[data-testid=response-section] h2")?.textContent?.endsWith(`#${index}`) === true,
+      firstIndex,
+    );
     await page.waitForSelector("[data-testid=response-chart] .main-svg", { timeout: RESULT_TIMEOUT_MS });
     await page.evaluate(() => window.scrollTo(0, 0));
     await saveScreenshot(page, "journey-10-sweep-response");

@@ -33,7 +33,13 @@ export function PlantListPage() {
       ) : plants.data.length === 0 ? (
         <EmptyState
           title="The library is empty"
-          action={canEdit ? newButton : null}
+          action={
+            canEdit ? (
+              <ButtonLink to={`${base}/plants/new`} tone="primary" testId="new-plant-empty">
+                Add the first plant
+              </ButtonLink>
+            ) : null
+          }
           testId="plants-empty"
         >
           {canEdit

@@ -32,7 +32,17 @@ export function SweepListPage() {
       ) : sweeps.isError ? (
         <ErrorNote error={sweeps.error} title="Could not load the sweeps" />
       ) : sweeps.data.length === 0 ? (
-        <EmptyState title="No sweeps yet" action={canEdit ? newButton : null} testId="sweeps-empty">
+        <EmptyState
+          title="No sweeps yet"
+          action={
+            canEdit ? (
+              <ButtonLink to={`${base}/sweeps/new`} tone="primary" testId="new-sweep-empty">
+                Start the first sweep
+              </ButtonLink>
+            ) : null
+          }
+          testId="sweeps-empty"
+        >
           {canEdit
             ? "Start one: pick a plant revision, give ranges for kp, ki and kd, and Loopyard scores every candidate of the grid and draws the front."
             : "An engineer of this workspace can start a sweep; its front will show here."}
