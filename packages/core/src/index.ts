@@ -46,7 +46,7 @@ export {
 } from "./simulation/closed-loop-characteristic-polynomial.js";
 export { closedLoopPoles } from "./simulation/closed-loop-poles.js";
 export { STABILITY_TOLERANCE, isStable } from "./simulation/is-stable.js";
-export { steadyStateInput } from "./simulation/steady-state-input.js";
+export { steadyStateInput, steadyStateOutput } from "./simulation/steady-state-input.js";
 export { IllPosedLoopError, WELL_POSEDNESS_TOLERANCE, isWellPosedLoop } from "./simulation/ill-posed-loop-error.js";
 export { simulateLoop } from "./simulation/simulate-loop.js";
 export { evaluateCandidate } from "./simulation/evaluate-candidate.js";
@@ -83,7 +83,8 @@ export type * from "./api/dto.js";
 export type { SisoStateSpace, DiscreteSisoStateSpace } from "./linear-algebra/siso-state-space.js";
 export type { NormalizedTransferFunction } from "./plants/normalize-transfer-function.js";
 export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";
-export type { LoopTrace, SetpointStepScenario } from "./simulation/loop-trace.js";
+export type { LoopTrace } from "./simulation/loop-trace.js";
+export type { Scenario, ScenarioKind, SetpointStepScenario, LoadStep, MeasurementNoise } from "./simulation/scenario.js";
 export type { CandidateEvaluation } from "./simulation/evaluate-candidate.js";
 export type { CriterionDefinition } from "./criteria/criterion-definition.js";
 export type { CompiledExpression } from "./expressions/compile-expression.js";

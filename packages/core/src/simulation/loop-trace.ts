@@ -1,8 +1,11 @@
 /**
  * A simulated closed loop on the uniform grid t_k = k·dt, k = 0…N (N = round(horizon/dt)):
- * setpoint r, plant output y, controller output (plant input before any dead time) u, and
- * error e = r − y, each with N + 1 samples. At t = 0 every signal holds its right limit t → 0⁺
- * (the setpoint step has happened).
+ * setpoint r, measured plant output y (noise-free), controller output u (the plant input before
+ * any dead time, after actuator limits), and error e = r − y, each with N + 1 samples. At t = 0
+ * every signal holds its right limit t → 0⁺ (a setpoint step at t = 0 has happened).
+ *
+ * Signals are absolute values, not deviations: a loop around an operating point starts at
+ * y[0] = y0, r = y0 + stepSize. Criteria that need deviations subtract y0 or u∞ themselves.
  */
 export interface LoopTrace {
   t: Float64Array;
@@ -11,15 +14,25 @@ export interface LoopTrace {
   u: Float64Array;
   e: Float64Array;
   /**
-   * The exact steady-state input u∞ = lim_{t→∞} u(t) of the loop (see steadyStateInput);
-   * NaN when the loop has no steady state (a closed-loop pole at s = 0).
+   * The steady-state input u∞ = lim_{t→∞} u(t) of the loop. Linear loops: exact, from the
+   * final-value theorem on the scenario's inputs (see steadyStateInput); NaN when the loop has no
+   * steady state (a closed-loop pole at s = 0). Nonlinear loops: the final sample u[N].
    */
   uInfinity: number;
+  /** Output at the operating point before any step [y]: 0 for linear plants from rest; the output at `initial` for nonlinear plants. */
+  y0: number;
+  /** Setpoint change of the scenario [y] (r = y0 + stepSize for t ≥ 0); 0 when the scenario has no setpoint step. */
+  stepSize: number;
+  /**
+   * The steady-state output y∞ = lim_{t→∞} y(t) the loop tends to [y]. Linear loops: exact, from
+   * the final-value theorem; NaN when there is no steady state. Nonlinear loops: the final sample y[N].
+   */
+  yInfinity: number;
+  /**
+   * "ok", or "diverged" when the simulation left the divergence bound or became non-finite; the
+   * samples after that point are NaN and criteria on such a trace are meaningless.
+   */
+  status: "ok" | "diverged";
 }
 
-/** A unit setpoint step r(t) = 1 for t ≥ 0, simulated up to `horizon` [s] with step `dt` [s]. */
-export interface SetpointStepScenario {
-  kind: "setpoint-step";
-  horizon: number;
-  dt: number;
-}
+export type { SetpointStepScenario } from "./scenario.js";

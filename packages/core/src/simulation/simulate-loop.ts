@@ -7,7 +7,7 @@ import type { Plant } from "../plants/plant.js";
 import { transferFunctionToStateSpace } from "../plants/transfer-function-to-state-space.js";
 import { IllPosedLoopError, isWellPosedLoop } from "./ill-posed-loop-error.js";
 import type { LoopTrace, SetpointStepScenario } from "./loop-trace.js";
-import { steadyStateInput } from "./steady-state-input.js";
+import { steadyStateInput, steadyStateOutput } from "./steady-state-input.js";
 import { timeGrid } from "./time-grid.js";
 
 /**
@@ -65,6 +65,10 @@ export function simulateLoop(plant: Plant, controller: PidController, scenario: 
     u: new Float64Array(n),
     e: new Float64Array(n),
     uInfinity: steadyStateInput(plant, controller),
+    y0: 0,
+    stepSize: 1,
+    yInfinity: steadyStateOutput(plant, controller),
+    status: "ok",
   };
   const delaySteps = Math.round(tfp.delay / scenario.dt);
   if (delaySteps === 0) runDelayFree(plantSs, ctrlSs, scenario.dt, trace);

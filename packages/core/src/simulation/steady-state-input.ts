@@ -28,3 +28,16 @@ export function steadyStateInput(plant: Plant, controller: PidController): numbe
   if (chi0 === 0) return NaN;
   return (polynomialEvaluate(c.num, 0) * polynomialEvaluate(den, 0)) / chi0;
 }
+
+/**
+ * Exact steady-state output y∞ = lim_{t→∞} y(t) of a stable loop after a unit setpoint step, by
+ * the final-value theorem: y∞ = C(0)G(0)/(1 + C(0)G(0)) = num_c(0)·num_p(0)/χ(0) (1 with integral
+ * action or an integrating plant). NaN when χ(0) = 0. Same reference as steadyStateInput.
+ */
+export function steadyStateOutput(plant: Plant, controller: PidController): number {
+  const { num, den } = normalizeTransferFunction(plant);
+  const c = pidTransferFunction(controller);
+  const chi0 = polynomialEvaluate(characteristicPolynomial(num, den, controller), 0);
+  if (chi0 === 0) return NaN;
+  return (polynomialEvaluate(c.num, 0) * polynomialEvaluate(num, 0)) / chi0;
+}

@@ -15,7 +15,7 @@ describe("criteria on given samples", () => {
     // Invariant (common practice): e ≡ 0 and u ≡ u∞ give zero cost.
     const t = grid(100, 0.1);
     const zero = new Float64Array(t.length);
-    const trace: LoopTrace = { t, r: new Float64Array(t.length).fill(1), y: new Float64Array(t.length).fill(1), u: new Float64Array(t.length).fill(0.5), e: zero, uInfinity: 0.5 };
+    const trace: LoopTrace = { t, r: new Float64Array(t.length).fill(1), y: new Float64Array(t.length).fill(1), u: new Float64Array(t.length).fill(0.5), e: zero, uInfinity: 0.5, y0: 0, stepSize: 1, yInfinity: 1, status: "ok" };
     for (const id of CRITERION_IDS) expect(CRITERIA[id].compute(trace)).toBe(0);
   });
 
