@@ -29,6 +29,8 @@ export async function workspaceWithTeam(baseUrl: string, label: string) {
     admin: admin.client,
     engineer: engineer.client,
     viewer: viewer.client,
+    /** Emails and passwords, to sign in again (e.g. on another server). */
+    credentials: { admin: admin.user, engineer: engineer.user, viewer: viewer.user },
     anonymous: new ApiClient(baseUrl),
   };
 }

@@ -13,7 +13,12 @@ export interface TestServer {
   close(): Promise<void>;
 }
 
-export async function startTestServer(): Promise<TestServer> {
+export interface TestServerOptions {
+  /** Resume sweeps other processes left unfinished (default false, so each file only runs its own sweeps). */
+  resumeSweeps?: boolean;
+}
+
+export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   const databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
     throw new Error("DATABASE_URL is not set; run the suite with `npm test`, or point DATABASE_URL at a migrated and seeded database.");
@@ -31,7 +36,7 @@ export async function startTestServer(): Promise<TestServer> {
     authSecret: process.env.LOOPYARD_AUTH_SECRET ?? randomBytes(32).toString("hex"),
     publicUrl: url,
     webDist: null,
-    resumeSweeps: false,
+    resumeSweeps: options.resumeSweeps ?? false,
   });
   server.on("request", loopyard.app);
   return {

@@ -107,7 +107,7 @@ export async function findPlantIdByName(db: Database, workspaceId: string, name:
   return rows[0]?.id ?? null;
 }
 
-/** A revision of a plant of this workspace by id, with its plant's id and latest name, or null. */
+/** A revision by id when its plant belongs to this workspace, or null. */
 export async function findRevisionInWorkspace(
   db: Database,
   workspaceId: string,

@@ -9,7 +9,7 @@ import type {
   SweepSummaryDto,
 } from "@loopyard/core";
 import type { Database } from "../db/database.js";
-import { HttpError, notFound } from "../http/http-error.js";
+import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
@@ -43,10 +43,7 @@ export async function createSweep(
 ): Promise<SweepDetailDto> {
   const revision = await findRevisionInWorkspace(db, access.workspace.id, input.plantRevisionId);
   if (!revision) {
-    throw new HttpError(400, "plantRevisionId: there is no such plant revision in this workspace", {
-      field: "plantRevisionId",
-      issues: [{ field: "plantRevisionId", message: "plantRevisionId: there is no such plant revision in this workspace" }],
-    });
+    throw badRequest("plantRevisionId: there is no such plant revision in this workspace", "plantRevisionId");
   }
   const sweepId = await insertSweep(db, {
     workspaceId: access.workspace.id,
@@ -68,8 +65,8 @@ function frontAxis(parameter: "x" | "y", value: string | undefined, criteria: re
   if (value === undefined || value === "") return fallback;
   if ((criteria as readonly string[]).includes(value)) return value as CriterionId;
   const known = (CRITERION_IDS as readonly string[]).includes(value);
-  const message = `${parameter}: ${known ? `this sweep did not score “${value}”` : `“${value}” is not a criterion`}; choose one of ${criteria.join(", ")}`;
-  throw new HttpError(400, message, { field: parameter, issues: [{ field: parameter, message }] });
+  const problem = known ? `this sweep did not score “${value}”` : `“${value}” is not a criterion`;
+  throw badRequest(`${parameter}: ${problem}; choose one of ${criteria.join(", ")}`, parameter);
 }
 
 /**

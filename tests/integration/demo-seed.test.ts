@@ -1,0 +1,59 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createApp, DEMO_PASSWORD, DEMO_SWEEP_NAME, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "../../packages/server/src/index.js";
+import type { LoopyardApp } from "../../packages/server/src/index.js";
+import { startTestServer, type TestServer } from "../support/test-server.js";
+import { ApiClient } from "./api-client.js";
+
+let server: TestServer;
+let loopyard: LoopyardApp;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  loopyard = createApp({
+    databaseUrl: process.env.DATABASE_URL as string,
+    authSecret: "integration-seed-check-secret-0123456789abcdef",
+    publicUrl: server.url,
+    resumeSweeps: false,
+  });
+});
+
+afterAll(async () => {
+  await loopyard?.close();
+  await server?.close();
+});
+
+describe("demo seed", () => {
+  it("when the seed runs on a seeded database, then it changes nothing", async () => {
+    const report = await seedDemo(loopyard.db, loopyard.auth, loopyard.runner);
+    expect(report).toEqual({ usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepCreated: false });
+  });
+
+  it("when each demo user signs in with the demo password, then they hold their documented role", async () => {
+    for (const demo of DEMO_USERS) {
+      const client = new ApiClient(server.url);
+      expect((await client.signIn(demo.email, DEMO_PASSWORD)).status).toBe(200);
+      const home = await client.get(`/api/workspaces/${DEMO_WORKSPACE.slug}`);
+      expect(home.status).toBe(200);
+      expect(home.body.workspace.name).toBe(DEMO_WORKSPACE.name);
+      expect(home.body.role).toBe(demo.role);
+    }
+  });
+
+  it("when the demo library is read, then it holds the three Ember plates and a finished sweep on Ember 200", async () => {
+    const jon = new ApiClient(server.url);
+    await jon.signIn("jon@halvard.example", DEMO_PASSWORD);
+    const plants = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/plants`);
+    expect(plants.body.map((p: { name: string }) => p.name)).toEqual(
+      expect.arrayContaining(["Ember 200 plate", "Ember 400 plate", "Ember 800 plate"]),
+    );
+    const ember800 = plants.body.find((p: { name: string }) => p.name === "Ember 800 plate");
+    expect(ember800.latestRevision.model).toEqual({ kind: "transfer-function", num: [1.5], den: [80, 24, 1], delay: 1 });
+
+    const sweeps = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps`);
+    const demo = sweeps.body.find((s: { name: string }) => s.name === DEMO_SWEEP_NAME);
+    expect(demo).toMatchObject({ status: "finished", total: 144, done: 144, plant: { name: "Ember 200 plate", revisionNumber: 1 } });
+    const front = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps/${demo.id}/front?x=iae&y=effort`);
+    expect(front.status).toBe(200);
+    expect(front.body.indices.length).toBeGreaterThan(1);
+  });
+});
