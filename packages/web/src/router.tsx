@@ -36,6 +36,7 @@ export const router = createBrowserRouter([
           { path: "sweeps", element: <SweepListPage /> },
           { path: "sweeps/new", element: <SweepNewPage /> },
           { path: "sweeps/:sweepId", element: <SweepDetailPage /> },
+          { path: "*", element: <NotFoundPage inWorkspace /> },
         ],
       },
     ],

@@ -37,7 +37,8 @@ export function FrontChart({
       x: points.map((p) => p.x),
       y: points.map((p) => p.y),
       customdata: points.map((p) => p.index),
-      marker: { color: CHART_COLORS.cloud, size: 6, opacity: 0.55, line: { width: 0 } },
+      // Dense grids get smaller, fainter dots so that the front stays readable above them.
+      marker: { color: CHART_COLORS.cloud, size: points.length > 1000 ? 4 : 6, opacity: points.length > 1000 ? 0.4 : 0.55, line: { width: 0 } },
       hovertemplate: hover,
     },
     {
