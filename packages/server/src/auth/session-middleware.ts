@@ -13,8 +13,11 @@ declare module "express-serve-static-core" {
 
 /** Looks up the better-auth session of the request; answers 401 when there is none. */
 export function requireSession(auth: Auth): RequestHandler {
-  return async (req, _res, next) => {
-    const session = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+  return async (req, res, next) => {
+    const { headers, response: session } = await auth.api.getSession({ headers: fromNodeHeaders(req.headers), returnHeaders: true });
+    // When better-auth extends a session it renews the cookie too; pass that on.
+    const renewed = headers.getSetCookie();
+    if (renewed.length > 0) res.append("Set-Cookie", renewed);
     if (!session) {
       next(unauthorized());
       return;
