@@ -102,17 +102,39 @@ async function main(command: string | undefined): Promise<void> {
   }
 }
 
-main(process.argv[2]).catch((error: unknown) => {
-  if (error instanceof ConfigError) {
-    console.error(`Configuration problem: ${error.message}`);
-  } else if (error && typeof error === "object" && "code" in error && (error as { code: unknown }).code === "ECONNREFUSED") {
-    console.error(
-      `Could not reach PostgreSQL at ${redact(process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL)}. Start the local cluster with npm start, or set DATABASE_URL to a running server.`,
-    );
-  } else if (error && typeof error === "object" && "code" in error && (error as { code: unknown }).code === "EADDRINUSE") {
-    console.error(`Port ${process.env.PORT ?? 4470} is already in use; stop the other process or set PORT to a free port.`);
-  } else {
-    console.error(`loopyard ${process.argv[2] ?? ""} failed:`, error);
+/** The first `code` found on an error or along its `cause` chain (drizzle wraps driver errors). */
+function errorCode(error: unknown): string | undefined {
+  for (let current = error, depth = 0; current && typeof current === "object" && depth < 5; depth += 1) {
+    const { code, cause } = current as { code?: unknown; cause?: unknown };
+    if (typeof code === "string") return code;
+    current = cause;
   }
+  return undefined;
+}
+
+/** A sentence that says what failed and how to fix it, for the errors people meet most. */
+function explain(error: unknown): string | null {
+  const database = redact(process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL);
+  if (error instanceof ConfigError) return `Configuration problem: ${error.message}`;
+  switch (errorCode(error)) {
+    case "ECONNREFUSED":
+      return `Could not reach PostgreSQL at ${database}. Start the local cluster with npm start, or set DATABASE_URL to a running server.`;
+    case "28P01":
+      return `PostgreSQL refused the user name or password in DATABASE_URL (${database}).`;
+    case "3D000":
+      return `The database in DATABASE_URL (${database}) does not exist; create it (createdb) or let npm start create it.`;
+    case "42P01":
+      return `The database ${database} has no Loopyard tables yet; run: node packages/server/dist/cli.js migrate`;
+    case "EADDRINUSE":
+      return `Port ${process.env.PORT ?? 4470} is already in use; stop the other process or set PORT to a free port.`;
+    default:
+      return null;
+  }
+}
+
+main(process.argv[2]).catch((error: unknown) => {
+  const sentence = explain(error);
+  if (sentence) console.error(sentence);
+  else console.error(`loopyard ${process.argv[2] ?? ""} failed:`, error);
   process.exitCode = 1;
 });
