@@ -19,16 +19,14 @@ async function main() {
   const shownHost = host === "0.0.0.0" || host === "::" ? "127.0.0.1" : host;
   const url = `http://${shownHost}:${port}`;
 
+  await assertPortFree(port, shownHost, url);
   await ensureDependencies();
   const { databaseUrl } = await ensureDatabaseFor("start");
   await buildAll();
   const authSecret = ensureAuthSecret();
   await migrateAndSeed(databaseUrl, authSecret);
 
-  if (await portAnswers(port, shownHost)) {
-    const what = (await isHealthy(url)) ? "A Loopyard server already answers" : "Another program already listens";
-    throw new StepError(`${what} on ${url}.`, `Stop it (Ctrl+C in its terminal), or serve on another port: PORT=${port + 1} npm start.`);
-  }
+  await assertPortFree(port, shownHost, url); // once more: something may have taken it during the set-up
   if (!existsSync(join(WEB_DIST_DIR, "index.html"))) {
     say(`note: ${rel(WEB_DIST_DIR)}/index.html is missing, so only the API will be served`);
   }
@@ -82,6 +80,13 @@ async function main() {
   printWelcome(url);
   const { code, signal } = await exitedPromise;
   process.exit(signal ? 0 : (code ?? 0));
+}
+
+/** Fails early, before any set-up, when the app's port is already taken. */
+async function assertPortFree(port, host, url) {
+  if (!(await portAnswers(port, host))) return;
+  const what = (await isHealthy(url)) ? "A Loopyard server already answers" : "Another program already listens";
+  throw new StepError(`${what} on ${url}.`, `Stop it (Ctrl+C in its terminal), or serve on another port: PORT=${port + 1} npm start.`);
 }
 
 function printWelcome(url) {

@@ -116,7 +116,7 @@ export async function buildAll() {
 /** Runs one server CLI command (migrate, seed) against a database. */
 export async function runServerCli(command, { databaseUrl, authSecret, label }) {
   return step(label, async () => {
-    const result = await runOrFail(process.execPath, [SERVER_CLI, command], {
+    await runOrFail(process.execPath, [SERVER_CLI, command], {
       logName: `cli-${command}`,
       env: { DATABASE_URL: databaseUrl, LOOPYARD_AUTH_SECRET: authSecret },
       what: `node ${rel(SERVER_CLI)} ${command}`,
@@ -125,8 +125,6 @@ export async function runServerCli(command, { databaseUrl, authSecret, label }) 
           ? "Check that the database is reachable (DATABASE_URL) and that drizzle/ holds the committed migrations."
           : "Check the seed's error above; seeding is idempotent, so run again once fixed.",
     });
-    const last = result.output.trim().split("\n").pop()?.trim() ?? "";
-    return last && last.length <= 90 ? last : "done";
   });
 }
 
