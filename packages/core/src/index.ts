@@ -6,6 +6,7 @@ export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
 export { CRITERION_IDS } from "./criteria/criterion-id.js";
 export {
+  DEFAULT_SWEEP_CRITERIA,
   MAX_SWEEP_CANDIDATES,
   MAX_SIMULATION_SAMPLES,
   parameterRangeSchema,
@@ -56,6 +57,17 @@ export { iae, iaeCriterion } from "./criteria/iae.js";
 export { ise, iseCriterion } from "./criteria/ise.js";
 export { itae, itaeCriterion } from "./criteria/itae.js";
 export { effort, effortCriterion } from "./criteria/effort.js";
+export { itse, itseCriterion } from "./criteria/itse.js";
+export { QUADRATIC_DEFAULT_Q, QUADRATIC_DEFAULT_R, quadratic, quadraticCriterion } from "./criteria/quadratic.js";
+export { rawEffort, rawEffortCriterion } from "./criteria/raw-effort.js";
+export { tv, tvCriterion } from "./criteria/tv.js";
+export { upeak, upeakCriterion } from "./criteria/upeak.js";
+export { overshoot, overshootCriterion } from "./criteria/overshoot.js";
+export { undershoot, undershootCriterion } from "./criteria/undershoot.js";
+export { RISE_HIGH_FRACTION, RISE_LOW_FRACTION, riseTime, riseTimeCriterion } from "./criteria/rise-time.js";
+export { DEFAULT_SETTLING_BAND, settlingTime, settlingTimeCriterion } from "./criteria/settling-time.js";
+export { steadyStateError, steadyStateErrorCriterion } from "./criteria/steady-state-error.js";
+export { stepReference } from "./criteria/step-reference.js";
 export { CRITERIA } from "./criteria/registry.js";
 
 // Expressions (nonlinear plants typed as text).
@@ -86,7 +98,8 @@ export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";
 export type { LoopTrace } from "./simulation/loop-trace.js";
 export type { Scenario, ScenarioKind, SetpointStepScenario, LoadStep, MeasurementNoise } from "./simulation/scenario.js";
 export type { CandidateEvaluation } from "./simulation/evaluate-candidate.js";
-export type { CriterionDefinition } from "./criteria/criterion-definition.js";
+export type { CriterionDefinition, CriterionKind, CriterionOptions } from "./criteria/criterion-definition.js";
+export type { QuadraticWeights } from "./criteria/quadratic.js";
 export type { CompiledExpression } from "./expressions/compile-expression.js";
 export type { CompiledSystem, ExpressionSystemConfig } from "./expressions/compile-system.js";
 export type { CheckedExpression, CheckedNode, UnaryOperator, BinaryOperator } from "./expressions/check-expression.js";

@@ -1,5 +1,6 @@
 import type { CriterionDefinition } from "./criterion-definition.js";
 import { assertSameLength } from "./assert-same-length.js";
+import { isDivergedTrace } from "./is-diverged-trace.js";
 
 /**
  * Control effort: the integral of the squared deviation of the plant input from its
@@ -37,9 +38,11 @@ export function effort(t: ArrayLike<number>, u: ArrayLike<number>, uInfinity: nu
 
 export const effortCriterion: CriterionDefinition = {
   id: "effort",
+  kind: "time",
   label: "Effort ∫(u−u∞)²dt",
   unit: "u²·s",
   description: "Integral of the squared deviation of the plant input from its steady-state value u∞.",
-  /** NaN when the loop has no steady state (u∞ not finite), so it never ranks as good. */
-  compute: (trace) => (Number.isFinite(trace.uInfinity) ? effort(trace.t, trace.u, trace.uInfinity) : NaN),
+  /** NaN when the loop has no steady state (u∞ not finite) or diverged, so it never ranks as good. */
+  compute: (trace) =>
+    !isDivergedTrace(trace) && Number.isFinite(trace.uInfinity) ? effort(trace.t, trace.u, trace.uInfinity) : NaN,
 };

@@ -1,5 +1,6 @@
 import type { CriterionDefinition } from "./criterion-definition.js";
 import { assertSameLength } from "./assert-same-length.js";
+import { isDivergedTrace } from "./is-diverged-trace.js";
 
 /**
  * Integral of the absolute error, by the trapezoidal rule on the samples:
@@ -26,8 +27,9 @@ export function iae(t: ArrayLike<number>, e: ArrayLike<number>): number {
 
 export const iaeCriterion: CriterionDefinition = {
   id: "iae",
+  kind: "time",
   label: "IAE",
   unit: "y·s",
   description: "Integral of the absolute control error over the horizon, ∫|e|dt.",
-  compute: (trace) => iae(trace.t, trace.e),
+  compute: (trace) => (isDivergedTrace(trace) ? NaN : iae(trace.t, trace.e)),
 };

@@ -1,5 +1,6 @@
 import type { CriterionDefinition } from "./criterion-definition.js";
 import { assertSameLength } from "./assert-same-length.js";
+import { isDivergedTrace } from "./is-diverged-trace.js";
 
 /**
  * Integral of the squared error, by the trapezoidal rule on the samples:
@@ -26,8 +27,9 @@ export function ise(t: ArrayLike<number>, e: ArrayLike<number>): number {
 
 export const iseCriterion: CriterionDefinition = {
   id: "ise",
+  kind: "time",
   label: "ISE",
   unit: "y²·s",
   description: "Integral of the squared control error over the horizon, ∫e²dt.",
-  compute: (trace) => ise(trace.t, trace.e),
+  compute: (trace) => (isDivergedTrace(trace) ? NaN : ise(trace.t, trace.e)),
 };

@@ -1,5 +1,6 @@
 import type { CriterionDefinition } from "./criterion-definition.js";
 import { assertSameLength } from "./assert-same-length.js";
+import { isDivergedTrace } from "./is-diverged-trace.js";
 
 /**
  * Integral of time-weighted absolute error, by the trapezoidal rule on the samples:
@@ -26,8 +27,9 @@ export function itae(t: ArrayLike<number>, e: ArrayLike<number>): number {
 
 export const itaeCriterion: CriterionDefinition = {
   id: "itae",
+  kind: "time",
   label: "ITAE",
   unit: "y·s²",
   description: "Integral of time-weighted absolute control error, ∫t·|e|dt; punishes slow settling.",
-  compute: (trace) => itae(trace.t, trace.e),
+  compute: (trace) => (isDivergedTrace(trace) ? NaN : itae(trace.t, trace.e)),
 };

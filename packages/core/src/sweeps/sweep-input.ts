@@ -1,8 +1,13 @@
 import { z } from "zod";
-import { CRITERION_IDS } from "../criteria/criterion-id.js";
+import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 
 /** Largest number of candidates one sweep may hold in this version (grid product). */
 export const MAX_SWEEP_CANDIDATES = 5000;
+/**
+ * Criteria a sweep scores when none are chosen: the four of the first version, so sweeps stored
+ * without a criteria list keep their meaning as CRITERION_IDS grows.
+ */
+export const DEFAULT_SWEEP_CRITERIA: readonly CriterionId[] = ["iae", "ise", "itae", "effort"];
 /** Largest number of time samples one simulation may take (horizon / dt). */
 export const MAX_SIMULATION_SAMPLES = 200_000;
 
@@ -48,7 +53,7 @@ export const sweepInputSchema = z
       horizon: finite("horizon").gt(0, "horizon must be > 0 s").max(1e5, "horizon must be at most 1e5 s"),
       dt: finite("time step").gt(0, "time step must be > 0 s"),
     }),
-    criteria: z.array(z.enum(CRITERION_IDS)).min(1, "choose at least one criterion").default([...CRITERION_IDS]),
+    criteria: z.array(z.enum(CRITERION_IDS)).min(1, "choose at least one criterion").default(() => [...DEFAULT_SWEEP_CRITERIA]),
   })
   .superRefine((s, ctx) => {
     const { kp, ki, kd } = s.ranges;

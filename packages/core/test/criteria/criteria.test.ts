@@ -4,19 +4,30 @@ import { iae } from "../../src/criteria/iae.js";
 import { ise } from "../../src/criteria/ise.js";
 import { itae } from "../../src/criteria/itae.js";
 import { CRITERIA } from "../../src/criteria/registry.js";
-import { CRITERION_IDS } from "../../src/criteria/criterion-id.js";
-import type { LoopTrace } from "../../src/simulation/loop-trace.js";
+import { CRITERION_IDS, type CriterionId } from "../../src/criteria/criterion-id.js";
+import { sweepInputSchema } from "../../src/sweeps/sweep-input.js";
 import { expectClose } from "../support/expect-close.js";
-
-const grid = (n: number, dt: number) => Float64Array.from({ length: n + 1 }, (_, k) => k * dt);
+import { grid, traceFromSamples } from "./trace-from-samples.js";
 
 describe("criteria on given samples", () => {
-  it("every criterion is 0 under perfect tracking", () => {
-    // Invariant (common practice): e ≡ 0 and u ≡ u∞ give zero cost.
+  it("every criterion is 0 under perfect tracking with u∞ = 0", () => {
+    // Invariant (common practice): y jumps to r at 0⁺ and stays, u ≡ u∞ = 0 (e.g. an integrating
+    // plant) ⇒ no error, no input, no overshoot or undershoot; rise and settling happen at t[0] = 0.
     const t = grid(100, 0.1);
-    const zero = new Float64Array(t.length);
-    const trace: LoopTrace = { t, r: new Float64Array(t.length).fill(1), y: new Float64Array(t.length).fill(1), u: new Float64Array(t.length).fill(0.5), e: zero, uInfinity: 0.5, y0: 0, stepSize: 1, yInfinity: 1, status: "ok" };
-    for (const id of CRITERION_IDS) expect(CRITERIA[id].compute(trace)).toBe(0);
+    const trace = traceFromSamples(t, new Float64Array(t.length).fill(1));
+    for (const id of CRITERION_IDS) expect(CRITERIA[id].compute(trace), id).toBe(0);
+  });
+
+  it("under perfect tracking with u∞ = 0.5, only the figures measured from u = 0 are non-zero", () => {
+    // Definitions: upeak = max|u| = 0.5, rawEffort = ∫u² = 0.25·T (T = 10); the rest measure from u∞ or e.
+    const t = grid(100, 0.1);
+    const u = new Float64Array(t.length).fill(0.5);
+    const trace = traceFromSamples(t, new Float64Array(t.length).fill(1), { u, uInfinity: 0.5 });
+    for (const id of CRITERION_IDS) {
+      if (id === "upeak") expect(CRITERIA[id].compute(trace)).toBe(0.5);
+      else if (id === "rawEffort") expectClose(CRITERIA[id].compute(trace), 2.5, 1e-13);
+      else expect(CRITERIA[id].compute(trace), id).toBe(0);
+    }
   });
 
   it("iae, ise, itae integrate a constant error exactly", () => {
@@ -50,9 +61,29 @@ describe("criteria on given samples", () => {
     expect(() => effort(grid(3, 1), new Float64Array(4), NaN)).toThrow(/uInfinity/);
   });
 
-  it("CRITERIA lists every criterion id with the brief's labels", () => {
+  it("CRITERIA lists every criterion id, each a time criterion, keeping the first version's labels", () => {
     expect(Object.keys(CRITERIA).sort()).toEqual([...CRITERION_IDS].sort());
-    expect(CRITERIA.effort.label).toBe("Effort ∫(u−u∞)²dt");
-    expect(CRITERION_IDS.map((id) => CRITERIA[id].label)).toEqual(["IAE", "ISE", "ITAE", "Effort ∫(u−u∞)²dt"]);
+    for (const id of CRITERION_IDS) {
+      expect(CRITERIA[id].id).toBe(id);
+      expect(CRITERIA[id].kind).toBe("time");
+    }
+    expect(["iae", "ise", "itae", "effort"].map((id) => CRITERIA[id as CriterionId].label)).toEqual(["IAE", "ISE", "ITAE", "Effort ∫(u−u∞)²dt"]);
+  });
+
+  it("CRITERION_IDS holds the evaluate spec's ids plus quadratic, undershoot and steadyStateError", () => {
+    // The `loopyard evaluate` criterion names of the Engine I issue, exactly.
+    const specIds = ["iae", "ise", "itae", "itse", "effort", "rawEffort", "tv", "upeak", "overshoot", "riseTime", "settlingTime"];
+    expect([...CRITERION_IDS].sort()).toEqual([...specIds, "quadratic", "undershoot", "steadyStateError"].sort());
+  });
+
+  it("the sweep schema accepts every id and defaults to the first version's four", () => {
+    const input = {
+      name: "defaults",
+      plantRevisionId: "7f0c7a3e-2b0a-4c1e-9b1a-3d5e6f708192",
+      ranges: { kp: { min: 1, max: 1, count: 1 }, ki: { min: 0, max: 0, count: 1 }, kd: { min: 0, max: 0, count: 1 } },
+      scenario: { horizon: 10, dt: 0.01 },
+    };
+    expect(sweepInputSchema.parse(input).criteria).toEqual(["iae", "ise", "itae", "effort"]);
+    expect(sweepInputSchema.parse({ ...input, criteria: [...CRITERION_IDS] }).criteria).toEqual([...CRITERION_IDS]);
   });
 });
