@@ -5,7 +5,7 @@ import { chmodSync, chownSync, existsSync, mkdirSync, readFileSync, readdirSync,
 import { connect } from "node:net";
 import { dirname, join } from "node:path";
 import { DATA_DIR, PG_DATA_DIR, PG_LOG_FILE, PG_RUN_DIR, rel } from "./paths.mjs";
-import { StepError, rerunCommand, runCaptured, runOrFail, say, tail, tailOfFile } from "./step.mjs";
+import { StepError, rerunCommand, runCaptured, runOrFail, say, tail } from "./step.mjs";
 
 export const DEFAULT_PG_PORT = 54329;
 export const PG_USER = "loopyard";
@@ -283,15 +283,25 @@ export async function startCluster(binDir, port) {
     "-o", options,
     "start",
   ]);
+  const logOffset = existsSync(PG_LOG_FILE) ? statSync(PG_LOG_FILE).size : 0;
   const result = await runCaptured(command, args, { logName: "pg-start" });
   if (result.code !== 0) {
     throw new StepError(
       `PostgreSQL did not start; see ${rel(PG_LOG_FILE)}.`,
       `If port ${port} is taken, set LOOPYARD_PG_PORT to a free port (e.g. LOOPYARD_PG_PORT=${port + 10} ${rerunCommand()}); if the cluster is damaged, run npm run db:stop, delete ${rel(PG_DATA_DIR)} and run again.`,
-      tailOfFile(PG_LOG_FILE, 12) || tail(result.output, 12),
+      tail(newLogText(logOffset), 12) || tail(result.output, 12),
     );
   }
   return note;
+}
+
+/** What PostgreSQL wrote to .data/pg.log after `offset` bytes (this start attempt only). */
+function newLogText(offset) {
+  try {
+    return readFileSync(PG_LOG_FILE).subarray(offset).toString("utf8");
+  } catch {
+    return "";
+  }
 }
 
 /** pg_ctl stop -m fast; returns a short note. Does nothing when the cluster is not running. */
