@@ -1,4 +1,4 @@
-import { CRITERION_IDS, sweepInputSchema, type CriterionId, type SweepInput } from "@loopyard/core";
+import { DEFAULT_SWEEP_CRITERIA, sweepInputSchema, type CriterionId, type SweepInput } from "@loopyard/core";
 import type { Resolver } from "react-hook-form";
 import { fieldErrors } from "../../forms/field-errors.js";
 import { toResolverErrors } from "../../forms/resolver-errors.js";
@@ -54,7 +54,7 @@ export function defaultSweepForm(plantRevisionId = "", horizon = 60): SweepFormV
     },
     filter: { mode: "ratio", n: 10, tf: 0.1 },
     scenario: { horizon, dt: defaultTimeStep(horizon) },
-    criteria: [...CRITERION_IDS],
+    criteria: [...DEFAULT_SWEEP_CRITERIA],
   };
 }
 
