@@ -1,6 +1,6 @@
 // One short line per set-up step; a failed step says what failed and how to fix it.
 import { spawn } from "node:child_process";
-import { createWriteStream, mkdirSync, readFileSync } from "node:fs";
+import { createWriteStream, mkdirSync } from "node:fs";
 import { join } from "node:path";
 import { LOG_DIR, REPO_ROOT, rel } from "./paths.mjs";
 
@@ -70,13 +70,6 @@ export function tail(text, count = 20) {
   return lines.slice(-count).join("\n");
 }
 
-export function tailOfFile(path, count = 20) {
-  try {
-    return tail(readFileSync(path, "utf8"), count);
-  } catch {
-    return "";
-  }
-}
 
 /**
  * Runs a command with its output captured into .data/logs/<logName>.log.
