@@ -83,6 +83,23 @@ export { EXPRESSION_FUNCTIONS, EXPRESSION_FUNCTION_NAMES, isExpressionFunctionNa
 export { gridCandidates } from "./sweeps/grid-candidates.js";
 export { paretoFront } from "./fronts/pareto-front.js";
 
+// Batch evaluation: structures, designs, evaluateBatch (the worker pool is the separate Node-only entry "@loopyard/core/pool").
+export {
+  OPTIONAL_STRUCTURE_PARAMETERS,
+  STRUCTURE_PARAMETERS,
+  assertValidStructure,
+  controllerFromVector,
+  stateFeedbackNames,
+  structureParameterNames,
+} from "./batch/structure.js";
+export { assertValidSpace, axisValue } from "./batch/parameter-space.js";
+export { createSeededRandom } from "./batch/seeded-random.js";
+export { DEFAULT_MAX_CANDIDATES, gridDesign } from "./batch/grid-design.js";
+export { latinHypercube, latinHypercubeUnit } from "./batch/latin-hypercube.js";
+export { seededRandomDesign } from "./batch/random-design.js";
+export { BATCH_STATUSES, STATUS_DIVERGED, STATUS_INVALID, STATUS_STABLE, STATUS_UNSTABLE, batchStatusName } from "./batch/batch-status.js";
+export { evaluateBatch } from "./batch/evaluate-batch.js";
+
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
@@ -106,3 +123,7 @@ export type { CheckedExpression, CheckedNode, UnaryOperator, BinaryOperator } fr
 export type { NameRole } from "./expressions/declared-name-error.js";
 export type { ExpressionNames, NameScope, NameBinding } from "./expressions/name-scope.js";
 export type { ExpressionFunction, ExpressionFunctionName } from "./expressions/expression-functions.js";
+export type { Structure } from "./batch/structure.js";
+export type { ParameterAxis, ParameterScale, ParameterSpace } from "./batch/parameter-space.js";
+export type { BatchStatus } from "./batch/batch-status.js";
+export type { BatchOptions, BatchResult, EvaluationOptions } from "./batch/evaluate-batch.js";

@@ -1,0 +1,364 @@
+import type { Complex } from "../linear-algebra/complex.js";
+import { polynomialRoots } from "../linear-algebra/polynomial-roots.js";
+import { assertFiniteCoefficients, trimLeadingZeros } from "../linear-algebra/polynomial-trim.js";
+import { loopValueAt, type LoopTransferFunction } from "./evaluate-loop.js";
+import { nyquistTailFrequency } from "./nyquist-tail-frequency.js";
+
+/** An open-loop pole counts as on the imaginary axis when |Re p| ≤ AXIS_TOLERANCE·max(1, |p|)
+ *  (roots of a double pole come out of the companion matrix only to about √eps ≈ 1e-8). */
+export const AXIS_TOLERANCE = 1e-6;
+/** Indentation radius around an imaginary-axis pole, as a fraction of its distance to the nearest
+ *  other pole or zero of L (or of max(1, |ω_k|) when there is none). */
+export const INDENT_FRACTION = 1e-3;
+/** The radius is shrunk (÷10, at most INDENT_SHRINKS times) until |L| ≥ INDENT_MIN_GAIN on the
+ *  indentation, so that no root of 1 + L can hide inside it. */
+export const INDENT_MIN_GAIN = 10;
+const INDENT_SHRINKS = 8;
+/** Adaptive grid: accept a step when |F(b) − F(a)| ≤ CHORD_RATIO·min(|F(a)|, |F(b)|) (F = 1 + L);
+ *  the phase step is then below 2·asin(CHORD_RATIO/2) ≈ 0.34 rad. */
+export const CHORD_RATIO = 0.35;
+/** Tighter ratio on steps where L crosses the negative real axis. */
+export const CROSSING_CHORD_RATIO = 0.05;
+/** Initial grid: points per decade, and the largest step of the delay phase ω·θ [rad]. */
+export const POINTS_PER_DECADE = 40;
+export const DELAY_PHASE_STEP = Math.PI / 8;
+/** A step shorter than this fraction of |ω| that still fails the chord test means 1 + L(jω) ≈ 0. */
+export const MIN_STEP_FRACTION = 1e-12;
+/** Cap on the number of evaluations of L along the contour. */
+export const MAX_EVALUATIONS = 2_000_000;
+/** 1 + D within this of 0 (no delay) is an ill-posed loop. */
+const WELL_POSED_TOLERANCE = 1e-12;
+
+/** Verdict of nyquistStability. */
+export interface NyquistVerdict {
+  /** True when the closed loop has no pole in the closed right half-plane. */
+  stable: boolean;
+  /** N: net clockwise encirclements of −1 by L(s) along the Nyquist contour (NaN when not counted, see reason). */
+  encirclements: number;
+  /** P: poles of L in the open right half-plane. */
+  openLoopRhpPoles: number;
+  /** Why the loop is not stable (or why the count could not be made). */
+  reason?: string;
+}
+
+interface Segment {
+  /** s(t) on the contour. */
+  at(t: number): { sigma: number; omega: number };
+  /** Initial parameter grid, increasing. */
+  grid: number[];
+  /** Step below which a failing chord test means a closed-loop root on the contour. */
+  minStep(a: number, b: number): number;
+  onAxis: boolean;
+}
+
+/**
+ * Nyquist stability verdict for L(s) = num(s)/den(s)·e^(−delay·s) under negative unity feedback.
+ *
+ * Nyquist criterion: Z = N + P, where Z = closed-loop poles (roots of 1 + L) in the right
+ * half-plane, P = poles of L in the open right half-plane (roots of den by polynomialRoots), and N =
+ * net clockwise encirclements of −1 by L(s) — i.e. of 0 by F = 1 + L — as s runs along the Nyquist
+ * contour: up the imaginary axis from −j∞ to +j∞, then back along a large arc through the right
+ * half-plane. The loop is stable iff Z = 0 and no closed-loop root lies on the contour.
+ *
+ * - Indentations: a pole of L on the imaginary axis at jω_k (an integrator at 0, an undamped pair)
+ *   is passed on a small semicircle s = jω_k + r·e^(jφ), φ from −π/2 to π/2, to its right, so it
+ *   stays outside the contour and is not counted in P. r = INDENT_FRACTION × distance to the
+ *   nearest other pole or zero, shrunk until |L| ≥ INDENT_MIN_GAIN on the semicircle; near a pole
+ *   of order m, arg L then turns by about −mπ along it.
+ * - Large arc: nyquistTailFrequency gives ω_max such that for |s| ≥ ω_max, Re s ≥ 0, 1 + L stays in
+ *   a disc around a real centre c (c = 1 for strictly proper L: |L| ≤ TAIL_GAIN there, so the arc
+ *   maps to a neighbourhood of 0 of L). The arc from +jω_max to −jω_max then changes arg F by
+ *   exactly −2·arg(F(jω_max)/c) (principal value).
+ * - Biproper L (deg num = deg den) with D = lim L/e^(−θs) at infinity: without delay, 1 + D = 0 is
+ *   an ill-posed loop (not stable). With a delay, |D| ≥ 1 is a neutral closed loop whose
+ *   characteristic equation has chains of roots approaching Re s = ln|D|/θ ≥ 0: reported not stable
+ *   with a reason. With |D| < 1 the arc is handled as above.
+ * - Winding: arg F(jω) is unwrapped on an adaptive grid from ω = 0⁺ (or the indentation at 0) to
+ *   ω_max: an initial grid of POINTS_PER_DECADE log-spaced points, steps of at most
+ *   DELAY_PHASE_STEP/θ in ω, and points at the poles' and zeros' frequencies; each step is halved
+ *   until |F(b) − F(a)| ≤ CHORD_RATIO·min|F| (CROSSING_CHORD_RATIO where L crosses the negative real
+ *   axis), so consecutive phases differ by well under π. The part ω < 0 follows by conjugate
+ *   symmetry, F(−jω) = conj F(jω), and doubles the half-contour's phase change. A step that cannot
+ *   meet the test before MIN_STEP_FRACTION·ω means F ≈ 0 on the axis: a closed-loop pole on the
+ *   imaginary axis (marginal), reported not stable.
+ *
+ * loop: num, den finite, den not all zero, deg num ≤ deg den (a proper loop), delay finite ≥ 0;
+ * a RangeError names the bad field otherwise.
+ *
+ * References: H. Nyquist, "Regeneration theory", Bell System Technical Journal 11(1), 126–147,
+ * 1932; K. J. Åström and R. M. Murray, Feedback Systems, Princeton University Press, 2008, §9.2
+ * (Nyquist criterion, indentations around imaginary-axis poles); for neutral delay systems
+ * J. K. Hale and S. M. Verduyn Lunel, Introduction to Functional Differential Equations, Springer,
+ * 1993, ch. 9.
+ */
+export function nyquistStability(loop: LoopTransferFunction): NyquistVerdict {
+  if (loop === null || typeof loop !== "object") throw new TypeError("loop must be { num, den, delay }");
+  assertFiniteCoefficients(loop.num, "loop.num");
+  assertFiniteCoefficients(loop.den, "loop.den");
+  const delay = loop.delay ?? 0;
+  if (typeof delay !== "number" || !Number.isFinite(delay) || delay < 0) {
+    throw new RangeError(`loop.delay: the dead time must be a finite number ≥ 0 s, got ${String(loop.delay)}`);
+  }
+  const num = trimLeadingZeros(loop.num);
+  const den = trimLeadingZeros(loop.den);
+  if (den.length === 0) throw new RangeError("loop.den: the denominator must not be all zeros");
+  if (num.length > den.length) {
+    throw new RangeError(`loop.num: the loop must be proper, numerator degree ${num.length - 1} exceeds denominator degree ${den.length - 1}`);
+  }
+
+  const poles = polynomialRoots(den);
+  const zeros = num.length > 1 ? polynomialRoots(num) : [];
+  let openLoopRhpPoles = 0;
+  const axisPoles: Complex[] = [];
+  let rootRadius = 0;
+  for (const p of poles) {
+    const size = Math.hypot(p.re, p.im);
+    rootRadius = Math.max(rootRadius, size);
+    if (Math.abs(p.re) <= AXIS_TOLERANCE * Math.max(1, size)) axisPoles.push(p);
+    else if (p.re > 0) openLoopRhpPoles++;
+  }
+  const notStable = (reason: string): NyquistVerdict => ({ stable: false, encirclements: Number.NaN, openLoopRhpPoles, reason });
+
+  const d = num.length === den.length ? num[0] / den[0] : 0;
+  if (delay === 0 && Math.abs(1 + d) <= WELL_POSED_TOLERANCE * Math.max(1, Math.abs(d))) {
+    return notStable("the loop is ill-posed: 1 + L(s) tends to 0 at high frequency (num and den of equal degree with num₀/den₀ = −1)");
+  }
+  if (delay > 0 && Math.abs(d) >= 1) {
+    return notStable(
+      `the closed loop is a neutral delay system: |L| tends to |num₀/den₀| = ${Math.abs(d)} ≥ 1 at high frequency with a dead time, so it has infinitely many poles near or right of the imaginary axis`,
+    );
+  }
+
+  const clusters = clusterAxisPoles(axisPoles);
+  for (const { omega } of clusters) {
+    if (num.length === 0 || Math.hypot(...complexPolynomial(num, 0, omega)) <= 1e-9 * absPolynomial(num, Math.abs(omega))) {
+      return notStable(`the loop has an imaginary-axis pole at s = ${omega === 0 ? "0" : `±${omega}j`} that feedback does not move (cancelled by a zero of num)`);
+    }
+  }
+
+  const tail = nyquistTailFrequency(num, den, delay, rootRadius);
+  if (tail === null) return notStable("no frequency was found beyond which the loop stays away from −1");
+  const { omegaMax, centre } = tail;
+
+  const F = (sigma: number, omega: number): Complex => {
+    const l = loopValueAt(num, den, delay, sigma, omega);
+    return { re: 1 + l.re, im: l.im };
+  };
+
+  // Indentations for clusters with ω_k ≥ 0 (the mirror images follow by symmetry).
+  const features = [...poles, ...zeros];
+  const indents: { omega: number; radius: number }[] = [];
+  for (const cluster of clusters) {
+    if (cluster.omega < 0) continue;
+    let separation = Number.POSITIVE_INFINITY;
+    for (const q of features) {
+      const dist = Math.hypot(q.re, q.im - cluster.omega);
+      if (dist > 100 * cluster.spread + 1e-300 && !cluster.members.includes(q)) separation = Math.min(separation, dist);
+    }
+    if (!Number.isFinite(separation)) separation = Math.max(1, cluster.omega);
+    let radius = INDENT_FRACTION * separation;
+    const floor = Math.max(100 * cluster.spread, 1e-12 * Math.max(1, cluster.omega));
+    for (let shrink = 0; shrink < INDENT_SHRINKS && radius / 10 >= floor; shrink++) {
+      let weakest = Number.POSITIVE_INFINITY;
+      for (const phi of [-Math.PI / 2, 0, Math.PI / 2]) {
+        const l = loopValueAt(num, den, delay, radius * Math.cos(phi), cluster.omega + radius * Math.sin(phi));
+        weakest = Math.min(weakest, Math.hypot(l.re, l.im));
+      }
+      if (weakest >= INDENT_MIN_GAIN) break;
+      radius /= 10;
+    }
+    indents.push({ omega: cluster.omega, radius });
+  }
+  indents.sort((a, b) => a.omega - b.omega);
+
+  const segments = buildSegments(indents, omegaMax, delay, features);
+  let total = 0;
+  let evaluations = 0;
+  for (const segment of segments) {
+    const result = trackPhase(segment, F, MAX_EVALUATIONS - evaluations);
+    evaluations += result.evaluations;
+    if (result.kind === "marginal") {
+      return notStable(`the closed loop has a pole on (or within rounding of) the imaginary axis near ω = ${result.omega.toPrecision(6)} rad/s`);
+    }
+    if (result.kind === "budget") return notStable(`the frequency grid needed more than ${MAX_EVALUATIONS} evaluations of L`);
+    total += result.phase;
+  }
+  // Both halves of the imaginary-axis part, then the large arc.
+  const fMax = F(0, omegaMax);
+  total = 2 * total - 2 * Math.atan2(fMax.im / centre, fMax.re / centre);
+  const turns = total / (2 * Math.PI);
+  const counterClockwise = Math.round(turns);
+  if (Math.abs(turns - counterClockwise) > 0.1) {
+    return notStable(`the winding number could not be resolved (${turns.toFixed(3)} turns)`);
+  }
+  const encirclements = -counterClockwise + 0; // clockwise count; + 0 turns −0 into 0
+  const closedLoopRhpPoles = encirclements + openLoopRhpPoles;
+  if (closedLoopRhpPoles === 0) return { stable: true, encirclements, openLoopRhpPoles };
+  return {
+    stable: false,
+    encirclements,
+    openLoopRhpPoles,
+    reason:
+      closedLoopRhpPoles > 0
+        ? `Z = N + P = ${encirclements} + ${openLoopRhpPoles} = ${closedLoopRhpPoles} closed-loop poles in the right half-plane`
+        : `inconsistent count Z = N + P = ${closedLoopRhpPoles} < 0; the loop is not resolved`,
+  };
+}
+
+interface AxisCluster {
+  omega: number;
+  spread: number;
+  members: Complex[];
+}
+
+/** Groups imaginary-axis poles by frequency (a multiple pole comes out as a tight cluster). */
+function clusterAxisPoles(axisPoles: readonly Complex[]): AxisCluster[] {
+  const sorted = [...axisPoles].sort((a, b) => a.im - b.im);
+  const clusters: AxisCluster[] = [];
+  for (const p of sorted) {
+    const last = clusters[clusters.length - 1];
+    if (last && Math.abs(p.im - last.members[last.members.length - 1].im) <= 1e-5 * Math.max(1, Math.abs(p.im))) {
+      last.members.push(p);
+    } else {
+      clusters.push({ omega: 0, spread: 0, members: [p] });
+    }
+  }
+  for (const c of clusters) {
+    const mean = c.members.reduce((acc, p) => acc + p.im, 0) / c.members.length;
+    c.omega = Math.abs(mean) <= AXIS_TOLERANCE ? 0 : mean;
+    c.spread = Math.max(...c.members.map((p) => Math.hypot(p.re, p.im - c.omega)));
+  }
+  return clusters;
+}
+
+/** The upper half of the Nyquist contour (ω ≥ 0) as segments: quarter circle at 0 if needed,
+ *  imaginary-axis pieces and semicircles around the indented poles. */
+function buildSegments(indents: readonly { omega: number; radius: number }[], omegaMax: number, delay: number, features: readonly Complex[]): Segment[] {
+  // Initial frequency grid on the axis.
+  let low = 1;
+  for (const q of features) {
+    const size = Math.hypot(q.re, q.im);
+    if (size > 0) low = Math.min(low, size);
+  }
+  for (const indent of indents) if (indent.radius > 0) low = Math.min(low, indent.radius);
+  low *= 1e-2;
+  const points: number[] = [0];
+  const decades = Math.log10(omegaMax / low);
+  const count = Math.max(2, Math.ceil(decades * POINTS_PER_DECADE));
+  for (let i = 0; i <= count; i++) points.push(low * 10 ** ((decades * i) / count));
+  if (delay > 0) {
+    const step = DELAY_PHASE_STEP / delay;
+    for (let w = step; w < omegaMax; w += step) points.push(w);
+  }
+  for (const q of features) {
+    const w = Math.abs(q.im);
+    const width = Math.abs(q.re);
+    for (const v of [Math.hypot(q.re, q.im), w, w - width, w + width, w - width / 2, w + width / 2]) points.push(v);
+  }
+  points.push(omegaMax);
+  const grid = [...new Set(points.filter((w) => w >= 0 && w <= omegaMax))].sort((a, b) => a - b);
+
+  const segments: Segment[] = [];
+  const axis = (from: number, to: number): Segment => ({
+    at: (t) => ({ sigma: 0, omega: t }),
+    grid: [from, ...grid.filter((w) => w > from && w < to), to],
+    minStep: (a, b) => MIN_STEP_FRACTION * Math.max(Math.abs(a), Math.abs(b), 1e-3 * (to - from)),
+    onAxis: true,
+  });
+  const arc = (centre: number, radius: number, from: number, to: number): Segment => {
+    const grid: number[] = [];
+    const pieces = 16;
+    for (let i = 0; i <= pieces; i++) grid.push(from + ((to - from) * i) / pieces);
+    return {
+      at: (phi) => ({ sigma: radius * Math.cos(phi), omega: centre + radius * Math.sin(phi) }),
+      grid,
+      minStep: () => MIN_STEP_FRACTION,
+      onAxis: false,
+    };
+  };
+  let start = 0;
+  for (const indent of indents) {
+    if (indent.omega === 0) {
+      segments.push(arc(0, indent.radius, 0, Math.PI / 2));
+      start = indent.radius;
+      continue;
+    }
+    segments.push(axis(start, indent.omega - indent.radius));
+    segments.push(arc(indent.omega, indent.radius, -Math.PI / 2, Math.PI / 2));
+    start = indent.omega + indent.radius;
+  }
+  segments.push(axis(start, omegaMax));
+  return segments;
+}
+
+type TrackResult =
+  | { kind: "ok"; phase: number; evaluations: number }
+  | { kind: "marginal"; omega: number; evaluations: number }
+  | { kind: "budget"; evaluations: number };
+
+/** Unwrapped change of arg F along one segment, by adaptive bisection of its initial grid. */
+function trackPhase(segment: Segment, F: (sigma: number, omega: number) => Complex, budget: number): TrackResult {
+  let evaluations = 0;
+  const value = (t: number): Complex => {
+    evaluations++;
+    const s = segment.at(t);
+    return F(s.sigma, s.omega);
+  };
+  let phase = 0;
+  const grid = segment.grid;
+  let left = value(grid[0]);
+  for (let g = 1; g < grid.length; g++) {
+    const right = value(grid[g]);
+    // Explicit stack of intervals [a, b] with their values.
+    const stack: { a: number; b: number; fa: Complex; fb: Complex }[] = [{ a: grid[g - 1], b: grid[g], fa: left, fb: right }];
+    while (stack.length > 0) {
+      const { a, b, fa, fb } = stack.pop()!;
+      const ma = Math.hypot(fa.re, fa.im);
+      const mb = Math.hypot(fb.re, fb.im);
+      if (!(ma > 0 && mb > 0) || !Number.isFinite(ma) || !Number.isFinite(mb)) {
+        return { kind: "marginal", omega: segment.at(ma > 0 ? b : a).omega, evaluations };
+      }
+      const chord = Math.hypot(fb.re - fa.re, fb.im - fa.im);
+      const la = fa.im;
+      const lb = fb.im;
+      const crossesNegativeAxis = segment.onAxis && la * lb <= 0 && (fa.re - 1 < 0 || fb.re - 1 < 0);
+      const ratio = crossesNegativeAxis ? CROSSING_CHORD_RATIO : CHORD_RATIO;
+      if (chord <= ratio * Math.min(ma, mb)) {
+        phase += Math.atan2(fa.re * fb.im - fa.im * fb.re, fa.re * fb.re + fa.im * fb.im);
+        continue;
+      }
+      if (b - a <= segment.minStep(a, b)) {
+        if (chord <= CHORD_RATIO * Math.min(ma, mb)) {
+          phase += Math.atan2(fa.re * fb.im - fa.im * fb.re, fa.re * fb.re + fa.im * fb.im);
+          continue;
+        }
+        return { kind: "marginal", omega: segment.at((a + b) / 2).omega, evaluations };
+      }
+      if (evaluations >= budget) return { kind: "budget", evaluations };
+      const mid = (a + b) / 2;
+      const fm = value(mid);
+      stack.push({ a: mid, b, fa: fm, fb }, { a, b: mid, fa, fb: fm });
+    }
+    left = right;
+  }
+  return { kind: "ok", phase, evaluations };
+}
+
+/** num(σ + jω) as [re, im]. */
+function complexPolynomial(p: readonly number[], sigma: number, omega: number): [number, number] {
+  let re = 0;
+  let im = 0;
+  for (const c of p) {
+    const r = re * sigma - im * omega + c;
+    im = re * omega + im * sigma;
+    re = r;
+  }
+  return [re, im];
+}
+
+/** Σ|p_k|·x^k, the scale against which |p(jx)| is judged to vanish. */
+function absPolynomial(p: readonly number[], x: number): number {
+  let acc = 0;
+  for (const c of p) acc = acc * x + Math.abs(c);
+  return acc;
+}
