@@ -1,0 +1,23 @@
+// Worker side of the evaluation pool: evaluates one chunk of candidates with evaluateBatch and
+// hands the result back in ONE transferred buffer (no copy on the way back).
+import { Piscina } from "piscina";
+import { evaluateBatch } from "../batch/evaluate-batch.js";
+import type { ChunkTask } from "./chunk-task.js";
+
+/**
+ * Evaluates `task.candidates` (n × d) and returns a Uint8Array over one ArrayBuffer laid out as
+ * [scores: Float64 × n·F·C][status: Uint8 × n·F] (see chunkResultViews), moved to the caller.
+ */
+export default function evaluateChunk(task: ChunkTask): unknown {
+  const d = task.structure.tunable.length;
+  const n = d === 0 ? 0 : task.candidates.length / d;
+  const rows = n * task.family.length;
+  const buffer = new ArrayBuffer(rows * task.criteria.length * 8 + rows);
+  const scores = new Float64Array(buffer, 0, rows * task.criteria.length);
+  const status = new Uint8Array(buffer, scores.byteLength, rows);
+  evaluateBatch(task.family, task.structure, task.candidates, task.scenario, task.criteria, {
+    ...(task.evaluation === undefined ? {} : { evaluation: task.evaluation }),
+    into: { status, scores },
+  });
+  return Piscina.move(new Uint8Array(buffer));
+}
