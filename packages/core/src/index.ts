@@ -79,6 +79,12 @@ export { DeclaredNameError, isDeclaredNameError } from "./expressions/declared-n
 export { createNameScope, DEFAULT_INPUT_NAME, MAX_NAME_LENGTH } from "./expressions/name-scope.js";
 export { EXPRESSION_FUNCTIONS, EXPRESSION_FUNCTION_NAMES, isExpressionFunctionName } from "./expressions/expression-functions.js";
 
+// Stability: Routh–Hurwitz for rational loops, Nyquist for loops with dead time.
+export { ROUTH_EPSILON, ROUTH_ZERO_TOLERANCE, routhHurwitz } from "./stability/routh-hurwitz.js";
+export { isHurwitz } from "./stability/is-hurwitz.js";
+export { evaluateLoop } from "./stability/evaluate-loop.js";
+export { nyquistStability } from "./stability/nyquist-stability.js";
+
 // Sweeps and fronts.
 export { gridCandidates } from "./sweeps/grid-candidates.js";
 export { paretoFront } from "./fronts/pareto-front.js";
@@ -127,3 +133,6 @@ export type { Structure } from "./batch/structure.js";
 export type { ParameterAxis, ParameterScale, ParameterSpace } from "./batch/parameter-space.js";
 export type { BatchStatus } from "./batch/batch-status.js";
 export type { BatchOptions, BatchResult, EvaluationOptions } from "./batch/evaluate-batch.js";
+export type { RouthHurwitzResult, RouthSpecialCase } from "./stability/routh-hurwitz.js";
+export type { LoopTransferFunction } from "./stability/evaluate-loop.js";
+export type { NyquistVerdict } from "./stability/nyquist-stability.js";
