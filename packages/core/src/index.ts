@@ -106,6 +106,29 @@ export { seededRandomDesign } from "./batch/random-design.js";
 export { BATCH_STATUSES, STATUS_DIVERGED, STATUS_INVALID, STATUS_STABLE, STATUS_UNSTABLE, batchStatusName } from "./batch/batch-status.js";
 export { evaluateBatch } from "./batch/evaluate-batch.js";
 
+
+// Engine: plant kinds, controller structures, scenarios, loop simulation.
+export { actuatorLimitsSchema, hasActuatorLimits } from "./plants/actuator-limits.js";
+export { stateSpaceSchema } from "./plants/state-space.js";
+export { MAX_NONLINEAR_STATES, nonlinearSchema } from "./plants/nonlinear.js";
+export { linearPlantModel } from "./plants/linear-plant-model.js";
+export { nonlinearPlantModel, linearizeNonlinearPlant } from "./plants/nonlinear-plant-model.js";
+export { stateSpaceToTransferFunction } from "./plants/state-space-to-transfer-function.js";
+export { CONTROLLER_KINDS, controllerSchema } from "./controllers/controller.js";
+export { controllerRealization, antiWindupTrackingTime, assertValidController } from "./controllers/controller-realization.js";
+export { controllerTransferFunction } from "./controllers/controller-transfer-function.js";
+export { discretizeZohInputs } from "./linear-algebra/discretize-zoh-inputs.js";
+export { solveLinear } from "./linear-algebra/solve-linear.js";
+export { resolveScenario } from "./simulation/resolve-scenario.js";
+export { gaussianNoise } from "./simulation/gaussian-noise.js";
+export { DormandPrince, DEFAULT_TOLERANCE } from "./simulation/dormand-prince.js";
+export { continuousClosedLoop, closedLoopSteadyState, LOOP_INPUTS } from "./simulation/continuous-closed-loop.js";
+export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulation/exact-loop.js";
+export { runGridLoop } from "./simulation/grid-loop.js";
+export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
+export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
+export { isLoopStable } from "./simulation/evaluate-candidate.js";
+
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
@@ -136,3 +159,27 @@ export type { BatchOptions, BatchResult, EvaluationOptions } from "./batch/evalu
 export type { RouthHurwitzResult, RouthSpecialCase } from "./stability/routh-hurwitz.js";
 export type { LoopTransferFunction } from "./stability/evaluate-loop.js";
 export type { NyquistVerdict } from "./stability/nyquist-stability.js";
+export type { ActuatorLimits } from "./plants/actuator-limits.js";
+export type { StateSpacePlant } from "./plants/state-space.js";
+export type { NonlinearPlant } from "./plants/nonlinear.js";
+export type { LinearPlant } from "./plants/plant.js";
+export type { LinearPlantModel } from "./plants/linear-plant-model.js";
+export type { NonlinearPlantModel } from "./plants/nonlinear-plant-model.js";
+export type {
+  AntiWindup,
+  Controller,
+  ControllerCommon,
+  ControllerKind,
+  PController,
+  PiController,
+  PidControllerSpec,
+  Pid2dofController,
+  LeadLagController,
+  StateFeedbackController,
+} from "./controllers/controller.js";
+export type { ControllerRealization } from "./controllers/controller-realization.js";
+export type { ResolvedScenario } from "./simulation/resolve-scenario.js";
+export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
+export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
+export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
+export type { EvaluateCandidateOptions } from "./simulation/evaluate-candidate.js";

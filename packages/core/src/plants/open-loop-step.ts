@@ -1,8 +1,10 @@
 import { discretizeZoh } from "../linear-algebra/discretize-zoh.js";
 import { timeGrid } from "../simulation/time-grid.js";
-import { normalizeTransferFunction } from "./normalize-transfer-function.js";
+import { DormandPrince } from "../simulation/dormand-prince.js";
+import { linearPlantModel } from "./linear-plant-model.js";
+import { nonlinearPlantModel } from "./nonlinear-plant-model.js";
+import type { NonlinearPlant } from "./nonlinear.js";
 import type { Plant } from "./plant.js";
-import { transferFunctionToStateSpace } from "./transfer-function-to-state-space.js";
 
 /** Relative tolerance within which θ/dt counts as a whole number of steps. */
 const GRID_ALIGNMENT_TOLERANCE = 1e-9;
@@ -20,15 +22,20 @@ const GRID_ALIGNMENT_TOLERANCE = 1e-9;
  *
  * At t = θ exactly, the sample holds the right limit y(θ⁺) = D (the input has just switched on).
  *
+ * State-space plants have no dead time. Nonlinear plants: the input steps from the operating input
+ * u_op to u_op + 1 at t = 0 from the initial state, integrated by Dormand–Prince 5(4); y is returned
+ * as the change y(t) − y0 from the operating-point output (so all kinds read as a unit step response).
+ *
  * horizon: final time [s] > 0; dt: step [s] > 0. Throws a RangeError naming the bad argument.
  * Reference: K. J. Åström and B. Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, §2.3–2.4
  * (zero-order-hold sampling, including a delay that is not a multiple of the step).
  */
 export function openLoopStep(plant: Plant, horizon: number, dt: number): { t: Float64Array; y: Float64Array } {
-  const tf = normalizeTransferFunction(plant);
+  if (plant.kind === "nonlinear") return nonlinearStep(plant, horizon, dt);
+  const tf = linearPlantModel(plant);
   const t = timeGrid(horizon, dt);
   const y = new Float64Array(t.length);
-  const ss = transferFunctionToStateSpace(tf);
+  const { ss } = tf;
   const { n } = ss;
 
   const q = tf.delay / dt;
@@ -54,6 +61,23 @@ export function openLoopStep(plant: Plant, horizon: number, dt: number): { t: Fl
       const swap = x;
       x = next;
       next = swap;
+    }
+  }
+  return { t, y };
+}
+
+function nonlinearStep(plant: NonlinearPlant, horizon: number, dt: number): { t: Float64Array; y: Float64Array } {
+  const model = nonlinearPlantModel(plant);
+  const t = timeGrid(horizon, dt);
+  const y = new Float64Array(t.length);
+  const x = Float64Array.from(model.initial);
+  const u = model.operatingInput + 1;
+  const solver = new DormandPrince(model.system, model.parameters);
+  for (let k = 0; k < t.length; k++) {
+    y[k] = model.system.output(t[k], x, model.parameters, u) - model.y0;
+    if (k + 1 < t.length && !solver.advance(x, t[k], t[k + 1], u)) {
+      y.fill(NaN, k + 1);
+      break;
     }
   }
   return { t, y };

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { actuatorLimitsSchema, type ActuatorLimits } from "./actuator-limits.js";
 
 /** Highest polynomial order a transfer-function plant may have (denominator degree). */
 export const MAX_PLANT_ORDER = 10;
@@ -14,6 +15,8 @@ export interface TransferFunctionPlant {
   num: number[];
   den: number[];
   delay: number;
+  /** Optional actuator saturation and rate limit. */
+  actuator?: ActuatorLimits;
 }
 
 const coefficients = z
@@ -39,6 +42,7 @@ export const transferFunctionSchema = z
       .min(0, "dead time must be ≥ 0 s")
       .max(1e6, "dead time must be at most 1e6 s")
       .default(0),
+    actuator: actuatorLimitsSchema.optional(),
   })
   .superRefine((tf, ctx) => {
     if (tf.den[0] === 0) {

@@ -1,15 +1,17 @@
 import type { Complex } from "../linear-algebra/complex.js";
+import { polynomialAdd } from "../linear-algebra/polynomial-add.js";
 import { polynomialMultiply } from "../linear-algebra/polynomial-multiply.js";
 import { polynomialRoots } from "../linear-algebra/polynomial-roots.js";
-import type { PidController } from "../controllers/pid.js";
-import { normalizeTransferFunction } from "../plants/normalize-transfer-function.js";
+import { trimLeadingZeros } from "../linear-algebra/polynomial-trim.js";
+import type { Controller } from "../controllers/controller.js";
 import { DELAY_PADE_ORDER, padeDelay } from "../plants/pade-delay.js";
-import type { Plant } from "../plants/plant.js";
-import { characteristicPolynomial } from "./closed-loop-characteristic-polynomial.js";
+import type { LinearPlant } from "../plants/plant.js";
+import { loopTransferFunction } from "./loop-transfer-function.js";
 
 /**
- * Closed-loop poles of the unity-feedback loop of a plant and a PID: the roots of
- * den_p·den_c + num_p·num_c (see closedLoopCharacteristicPolynomial).
+ * Closed-loop poles of the loop of a linear plant and a controller: the roots of
+ * den_L + num_L of the loop transfer function (see closedLoopCharacteristicPolynomial; for output
+ * feedback den_p·den_c + num_p·num_c). A sampled controller is judged by its continuous counterpart.
  *
  * Dead time: a loop with e^(−θs) has infinitely many poles. For θ > 0 the dead time is replaced by
  * its [m/m] Padé approximant, m = DELAY_PADE_ORDER (see padeDelay), num_p ← num_p·q(−θs),
@@ -19,11 +21,9 @@ import { characteristicPolynomial } from "./closed-loop-characteristic-polynomia
  *
  * Sorted by real part, then imaginary part, ascending.
  */
-export function closedLoopPoles(plant: Plant, controller: PidController): Complex[] {
-  const { num, den, delay } = normalizeTransferFunction(plant);
-  if (delay === 0) return polynomialRoots(characteristicPolynomial(num, den, controller));
+export function closedLoopPoles(plant: LinearPlant, controller: Controller): Complex[] {
+  const { num, den, delay } = loopTransferFunction(plant, controller);
+  if (delay === 0) return polynomialRoots(trimLeadingZeros(polynomialAdd(den, num)));
   const pade = padeDelay(delay, DELAY_PADE_ORDER);
-  return polynomialRoots(
-    characteristicPolynomial(polynomialMultiply(num, pade.num), polynomialMultiply(den, pade.den), controller),
-  );
+  return polynomialRoots(trimLeadingZeros(polynomialAdd(polynomialMultiply(den, pade.den), polynomialMultiply(num, pade.num))));
 }

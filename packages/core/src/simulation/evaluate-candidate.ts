@@ -1,70 +1,132 @@
-import type { Complex } from "../linear-algebra/complex.js";
-import { pidStateSpace } from "../controllers/pid-state-space.js";
-import type { PidController } from "../controllers/pid.js";
+import type { Controller } from "../controllers/controller.js";
+import { controllerRealization } from "../controllers/controller-realization.js";
+import type { CriterionOptions } from "../criteria/criterion-definition.js";
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 import { CRITERIA } from "../criteria/registry.js";
-import { normalizeTransferFunction } from "../plants/normalize-transfer-function.js";
-import type { Plant } from "../plants/plant.js";
+import type { Complex } from "../linear-algebra/complex.js";
+import { polynomialAdd } from "../linear-algebra/polynomial-add.js";
+import { hasActuatorLimits } from "../plants/actuator-limits.js";
+import { linearPlantModel } from "../plants/linear-plant-model.js";
+import type { LinearPlant, Plant } from "../plants/plant.js";
+import { isHurwitz } from "../stability/is-hurwitz.js";
+import { nyquistStability } from "../stability/nyquist-stability.js";
 import { closedLoopPoles } from "./closed-loop-poles.js";
+import { closedLoopSteadyState, continuousClosedLoop } from "./continuous-closed-loop.js";
+import { FAST_CRITERIA, type FastCriterionId, scoreExactSetpointLoop } from "./exact-loop.js";
 import { isWellPosedLoop } from "./ill-posed-loop-error.js";
-import { isStable } from "./is-stable.js";
-import type { LoopTrace, SetpointStepScenario } from "./loop-trace.js";
+import { divergenceBound } from "./loop-bound.js";
+import { loopTransferFunction } from "./loop-transfer-function.js";
+import type { Scenario } from "./scenario.js";
 import { simulateLoop } from "./simulate-loop.js";
 
 /** The verdict and scores of one candidate controller on one plant and scenario. */
 export interface CandidateEvaluation<C extends CriterionId = CriterionId> {
-  status: "stable" | "unstable";
-  /** Closed-loop poles (with a Padé-approximated dead time, see closedLoopPoles). */
+  /** "unstable": the stability verdict failed; "diverged": the simulation left its bound. */
+  status: "stable" | "unstable" | "diverged";
+  /**
+   * Closed-loop poles of linear loops (with a Padé-approximated dead time, see closedLoopPoles);
+   * empty for nonlinear plants and when options.poles is false.
+   */
   poles: Complex[];
-  /** One value per requested criterion; null when the candidate is unstable. */
+  /** One value per requested criterion (NaN where a criterion does not apply); null unless "stable". */
   scores: Record<C, number> | null;
 }
 
+/** Options of evaluateCandidate. */
+export interface EvaluateCandidateOptions {
+  /** Compute the closed-loop poles for the result (default true; batch runs pass false for speed). */
+  poles?: boolean;
+  /** Options passed to every criterion (weights, settling band). */
+  criterion?: CriterionOptions;
+}
+
+const scoreBuffer = new Float64Array(FAST_CRITERIA.length);
+
 /**
- * Evaluates a PID candidate on a plant under a setpoint-step scenario:
+ * Evaluates a candidate controller on a plant under a scenario:
  *
- * 1. closed-loop poles from the characteristic polynomial (closedLoopPoles); if any pole is not
- *    strictly in the left half-plane (isStable, STABILITY_TOLERANCE), or the loop is ill-posed
- *    (1 + D_c·D_p = 0), the candidate is "unstable" and is not simulated; scores are null;
- * 2. otherwise simulateLoop, then each requested criterion from CRITERIA;
- * 3. a trace or score that is not finite (a verdict the Padé approximation of a dead time missed,
- *    or overflow) also makes the candidate "unstable" with null scores.
- *
- * So an unstable candidate is never scored, hence never ranked as good.
+ * 1. linear plants: the stability verdict of the continuous loop (a sampled controller is judged by
+ *    its continuous counterpart; actuator limits are ignored for the verdict, which is then the
+ *    local one). Delay-free: Routh–Hurwitz on χ = den_L + num_L (isHurwitz); with dead time: the
+ *    Nyquist verdict (nyquistStability). An ill-posed loop (1 + D_c·D_p = 0) is unstable.
+ *    "unstable" candidates are not simulated; scores null;
+ * 2. the simulation (simulateLoop); a trace that left the divergence bound gives "diverged" with
+ *    null scores (nonlinear and saturated loops, or a sampled loop the continuous verdict missed);
+ * 3. each requested criterion from CRITERIA with options.criterion. A criterion that does not apply
+ *    returns NaN and stays NaN in the scores.
+ * Fast path: a delay-free linear loop with a continuous controller, no limits, a setpoint step only
+ * and criteria among iae, ise, itae, effort is scored inside the recurrence without a trace
+ * (scoreExactSetpointLoop; same values to rounding).
  * Throws a RangeError for a bad plant, controller, scenario or an unknown criterion id.
  */
 export function evaluateCandidate<C extends CriterionId>(
   plant: Plant,
-  controller: PidController,
-  scenario: SetpointStepScenario,
+  controller: Controller,
+  scenario: Scenario,
   criteria: readonly C[],
+  options: EvaluateCandidateOptions = {},
 ): CandidateEvaluation<C> {
   for (const id of criteria) {
     if (!(CRITERION_IDS as readonly string[]).includes(id)) {
       throw new RangeError(`criteria: unknown criterion "${String(id)}"; known: ${CRITERION_IDS.join(", ")}`);
     }
   }
-  const poles = closedLoopPoles(plant, controller);
-  const tf = normalizeTransferFunction(plant);
-  const plantFeedthrough = tf.num.length === tf.den.length ? tf.num[0] : 0;
-  if (!isWellPosedLoop(pidStateSpace(controller).d, plantFeedthrough) || !isStable(poles)) {
-    return { status: "unstable", poles, scores: null };
+  const wantPoles = options.poles !== false;
+  let poles: Complex[] = [];
+  if (plant.kind !== "nonlinear") {
+    if (wantPoles) poles = closedLoopPoles(plant, controller);
+    if (!isLoopStable(plant, controller)) return { status: "unstable", poles, scores: null };
+    const fast = fastScores(plant, controller, scenario, criteria, options);
+    if (fast === "diverged") return { status: "diverged", poles, scores: null };
+    if (fast) return { status: "stable", poles, scores: fast };
   }
   const trace = simulateLoop(plant, controller, scenario);
-  if (!isFiniteTrace(trace)) return { status: "unstable", poles, scores: null };
+  if (trace.status === "diverged") return { status: "diverged", poles, scores: null };
   const scores = {} as Record<C, number>;
-  for (const id of criteria) {
-    const value = CRITERIA[id].compute(trace);
-    if (!Number.isFinite(value)) return { status: "unstable", poles, scores: null };
-    scores[id] = value;
-  }
+  for (const id of criteria) scores[id] = CRITERIA[id].compute(trace, options.criterion);
   return { status: "stable", poles, scores };
 }
 
-function isFiniteTrace(trace: LoopTrace): boolean {
-  const { y, u } = trace;
-  for (let k = 0; k < y.length; k++) {
-    if (!Number.isFinite(y[k]) || !Number.isFinite(u[k])) return false;
+/**
+ * Stability verdict of the continuous linear loop (see evaluateCandidate, step 1).
+ * References: Routh 1877 / Ogata 2010 §5-6 (isHurwitz); Nyquist 1932 (nyquistStability).
+ */
+export function isLoopStable(plant: LinearPlant, controller: Controller): boolean {
+  const loop = loopTransferFunction(plant, controller);
+  if (controller.kind !== "state-feedback") {
+    const model = linearPlantModel(plant);
+    const plantFeedthrough = model.num.length === model.den.length ? model.num[0] : 0;
+    if (!isWellPosedLoop(-controllerRealization(controller).dy, plantFeedthrough)) return false;
   }
-  return true;
+  if (loop.delay > 0) return nyquistStability(loop).stable;
+  return isHurwitz(polynomialAdd(loop.den, loop.num));
+}
+
+function fastScores<C extends CriterionId>(
+  plant: LinearPlant,
+  controller: Controller,
+  scenario: Scenario,
+  criteria: readonly C[],
+  options: EvaluateCandidateOptions,
+): Record<C, number> | "diverged" | null {
+  if (scenario.kind !== "setpoint-step" || scenario.load !== undefined || (scenario.noise !== undefined && scenario.noise.sd !== 0)) return null;
+  if (controller.sampleTime !== undefined || hasActuatorLimits(plant.actuator) || options.criterion !== undefined) return null;
+  for (const id of criteria) if (!(FAST_CRITERIA as readonly string[]).includes(id)) return null;
+  const model = linearPlantModel(plant);
+  if (model.delay !== 0) return null;
+  const { horizon, dt } = scenario;
+  if (!(horizon > 0) || !(dt > 0) || !Number.isFinite(horizon) || !Number.isFinite(dt) || dt > horizon) return null; // let simulateLoop name the error
+  const setpoint = scenario.setpoint ?? 1;
+  if (!Number.isFinite(setpoint)) return null;
+  const loop = continuousClosedLoop(model.ss, controllerRealization(controller, model.ss.n));
+  const steady = closedLoopSteadyState(loop, [setpoint, 0, 0]);
+  const samples = Math.round(horizon / dt) + 1;
+  if (samples - 1 > 200_000) return null;
+  if (!scoreExactSetpointLoop(loop, dt, samples, setpoint, steady.u, divergenceBound([setpoint]), scoreBuffer)) return "diverged";
+  const scores = {} as Record<C, number>;
+  for (const id of criteria) {
+    const index = FAST_CRITERIA.indexOf(id as FastCriterionId);
+    scores[id] = id === "effort" && !Number.isFinite(steady.u) ? NaN : scoreBuffer[index];
+  }
+  return scores;
 }

@@ -1,8 +1,8 @@
 import { polynomialEvaluate } from "../linear-algebra/polynomial-evaluate.js";
 import { pidTransferFunction } from "../controllers/pid-transfer-function.js";
 import type { PidController } from "../controllers/pid.js";
-import { normalizeTransferFunction } from "../plants/normalize-transfer-function.js";
-import type { Plant } from "../plants/plant.js";
+import { linearPlantModel } from "../plants/linear-plant-model.js";
+import type { LinearPlant } from "../plants/plant.js";
 import { characteristicPolynomial } from "./closed-loop-characteristic-polynomial.js";
 
 /**
@@ -21,8 +21,8 @@ import { characteristicPolynomial } from "./closed-loop-characteristic-polynomia
  * Reference: G. F. Franklin, J. D. Powell and A. Emami-Naeini, Feedback Control of Dynamic
  * Systems, 4th ed., 2002, §3.1.6 (final value theorem) and §4.2 (steady-state error).
  */
-export function steadyStateInput(plant: Plant, controller: PidController): number {
-  const { num, den } = normalizeTransferFunction(plant);
+export function steadyStateInput(plant: LinearPlant, controller: PidController): number {
+  const { num, den } = linearPlantModel(plant);
   const c = pidTransferFunction(controller);
   const chi0 = polynomialEvaluate(characteristicPolynomial(num, den, controller), 0);
   if (chi0 === 0) return NaN;
@@ -34,8 +34,8 @@ export function steadyStateInput(plant: Plant, controller: PidController): numbe
  * the final-value theorem: y∞ = C(0)G(0)/(1 + C(0)G(0)) = num_c(0)·num_p(0)/χ(0) (1 with integral
  * action or an integrating plant). NaN when χ(0) = 0. Same reference as steadyStateInput.
  */
-export function steadyStateOutput(plant: Plant, controller: PidController): number {
-  const { num, den } = normalizeTransferFunction(plant);
+export function steadyStateOutput(plant: LinearPlant, controller: PidController): number {
+  const { num, den } = linearPlantModel(plant);
   const c = pidTransferFunction(controller);
   const chi0 = polynomialEvaluate(characteristicPolynomial(num, den, controller), 0);
   if (chi0 === 0) return NaN;
