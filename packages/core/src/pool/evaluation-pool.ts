@@ -7,8 +7,20 @@ import type { Plant } from "../plants/plant.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { chunkResultViews, type ChunkTask } from "./chunk-task.js";
 
-/** Candidates per chunk unless told otherwise: small enough for smooth progress, large enough to amortise a message. */
+/** Most candidates per chunk: small enough for smooth progress, large enough to amortise a message. */
 export const DEFAULT_CHUNK_SIZE = 500;
+/** Fewest candidates per chunk when a batch is small. */
+const MIN_CHUNK_SIZE = 8;
+/** A small batch is cut into about this many chunks, so that every worker gets some. */
+const TARGET_CHUNKS = 64;
+
+/**
+ * Chunk size for n candidates: min(DEFAULT_CHUNK_SIZE, max(MIN_CHUNK_SIZE, ⌈n/TARGET_CHUNKS⌉)).
+ * A function of n alone, never of the number of workers.
+ */
+export function chunkSizeFor(n: number): number {
+  return Math.min(DEFAULT_CHUNK_SIZE, Math.max(MIN_CHUNK_SIZE, Math.ceil(n / TARGET_CHUNKS)));
+}
 
 /** Configuration of createEvaluationPool. */
 export interface EvaluationPoolConfig {
@@ -28,7 +40,7 @@ export interface PoolBatch {
 
 /** Options of one pool run. */
 export interface PoolRunOptions {
-  /** Candidates per chunk, a whole number ≥ 1; default DEFAULT_CHUNK_SIZE. */
+  /** Candidates per chunk, a whole number ≥ 1; default chunkSizeFor(n). */
   chunkSize?: number;
   /** Called after each finished chunk with the candidates done so far and the total. */
   onProgress?: (done: number, total: number) => void;
@@ -46,7 +58,8 @@ export interface EvaluationPool {
 /**
  * A piscina pool of `workers` threads, each running evaluateBatch on a chunk of candidates
  * (src/pool/evaluate-chunk-worker.ts). A batch is cut into consecutive row slices of `chunkSize`
- * candidates — the cut depends only on n and chunkSize, never on the number of workers — each
+ * candidates (default chunkSizeFor(n)) — the cut depends only on n and chunkSize, never on the
+ * number of workers — each
  * slice is copied into its own buffer and transferred to a worker (Piscina.move semantics through
  * transferList), and each result buffer is transferred back and copied into place. Since a
  * candidate's result depends only on its own inputs (see evaluateBatch), the assembled result is
@@ -71,7 +84,7 @@ export function createEvaluationPool(config: EvaluationPoolConfig = {}): Evaluat
 
   async function evaluate(batch: PoolBatch, options: PoolRunOptions = {}): Promise<BatchResult> {
     if (closed) throw new Error("the evaluation pool is closed");
-    const chunkSize = options.chunkSize ?? DEFAULT_CHUNK_SIZE;
+    const chunkSize = options.chunkSize ?? chunkSizeFor(batch.candidates.length / Math.max(1, batch.structure.tunable.length));
     if (!Number.isInteger(chunkSize) || chunkSize < 1) throw new RangeError(`chunkSize must be a whole number ≥ 1, got ${String(chunkSize)}`);
     if (!Array.isArray(batch.family) || batch.family.length === 0) throw new RangeError("family: give at least one plant");
     assertValidStructure(batch.structure);

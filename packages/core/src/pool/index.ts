@@ -1,3 +1,3 @@
 // @loopyard/core/pool — the Node-only entry (worker threads). The main entry stays browser-safe.
-export { createEvaluationPool, DEFAULT_CHUNK_SIZE, MAX_WORKERS } from "./evaluation-pool.js";
+export { chunkSizeFor, createEvaluationPool, DEFAULT_CHUNK_SIZE, MAX_WORKERS } from "./evaluation-pool.js";
 export type { EvaluationPool, EvaluationPoolConfig, PoolBatch, PoolRunOptions } from "./evaluation-pool.js";
