@@ -3,6 +3,7 @@ import { type ContinuousClosedLoop, LOOP_INPUTS } from "./continuous-closed-loop
 import { gaussianNoise } from "./gaussian-noise.js";
 import type { LoopTrace } from "./loop-trace.js";
 import type { ResolvedScenario } from "./resolve-scenario.js";
+import { setpointScoreKernel } from "./setpoint-score-kernel.js";
 
 /** Relative tolerance within which an event time counts as lying on the grid. */
 const GRID_TOLERANCE = 1e-9;
@@ -95,73 +96,31 @@ function fillNaN(trace: LoopTrace, from: number, dr: number): void {
 export const FAST_CRITERIA = ["iae", "ise", "itae", "effort"] as const;
 export type FastCriterionId = (typeof FAST_CRITERIA)[number];
 
-/** Reused buffers of the scores-only path (module-level: no allocation per candidate). */
-let zBuffer = new Float64Array(16);
-let nextBuffer = new Float64Array(16);
-
 /**
  * Scores-only twin of runExactLoop for a setpoint step without load or noise: the same recurrence,
  * accumulating IAE, ISE, ITAE and effort by the trapezoidal rule exactly as the trace criteria do
- * (same samples, same order of operations up to rounding), without storing a trace.
+ * (same samples, same order of operations up to rounding), without storing a trace; the recurrence
+ * runs in an unrolled kernel (setpointScoreKernel).
  * Writes [iae, ise, itae, effort] into `out`; returns false when the loop left `bound`.
  */
 export function scoreExactSetpointLoop(loop: ContinuousClosedLoop, dt: number, samples: number, dr: number, uInfinity: number, bound: number, out: Float64Array): boolean {
   const { nz, uz, uw, yz, yw } = loop;
   const m = LOOP_INPUTS;
-  const { phi, gamma } = nz > 0 ? discretizeZohInputs(loop.a, loop.b, nz, m, dt) : { phi: new Float64Array(0), gamma: new Float64Array(0) };
-  if (zBuffer.length < nz) {
-    zBuffer = new Float64Array(nz);
-    nextBuffer = new Float64Array(nz);
-  }
-  let z = zBuffer;
-  let next = nextBuffer;
-  z.fill(0);
-  const g = new Float64Array(nz);
-  for (let i = 0; i < nz; i++) g[i] = gamma[i * m] * dr;
   const u0 = uw[0] * dr;
   const y0 = yw[0] * dr;
-  let iae = 0, ise = 0, itae = 0, effort = 0;
-  let pAbs = 0, pSq = 0, pTabs = 0, pDu = 0, tPrev = 0;
-  for (let k = 0; k < samples; k++) {
-    let us = u0;
-    let ys = y0;
-    for (let j = 0; j < nz; j++) {
-      const zj = z[j];
-      us += uz[j] * zj;
-      ys += yz[j] * zj;
-    }
+  if (nz === 0) {
+    const ys = y0;
     if (!(Math.abs(ys) <= bound)) return false;
-    const tk = k * dt;
-    const ek = dr - ys;
-    const abs = Math.abs(ek);
-    const sq = ek * ek;
-    const tabs = tk * abs;
-    const du = (us - uInfinity) * (us - uInfinity);
-    if (k > 0) {
-      const h = tk - tPrev;
-      iae += h * (pAbs + abs);
-      ise += h * (pSq + sq);
-      itae += h * (pTabs + tabs);
-      effort += h * (pDu + du);
-    }
-    pAbs = abs;
-    pSq = sq;
-    pTabs = tabs;
-    pDu = du;
-    tPrev = tk;
-    for (let i = 0; i < nz; i++) {
-      let acc = g[i];
-      const row = i * nz;
-      for (let j = 0; j < nz; j++) acc += phi[row + j] * z[j];
-      next[i] = acc;
-    }
-    const swap = z;
-    z = next;
-    next = swap;
+    const e = dr - ys;
+    const T = (samples - 1) * dt;
+    out[0] = Math.abs(e) * T;
+    out[1] = e * e * T;
+    out[2] = (Math.abs(e) * T * T) / 2;
+    out[3] = (u0 - uInfinity) * (u0 - uInfinity) * T;
+    return true;
   }
-  out[0] = iae / 2;
-  out[1] = ise / 2;
-  out[2] = itae / 2;
-  out[3] = effort / 2;
-  return true;
+  const { phi, gamma } = discretizeZohInputs(loop.a, loop.b, nz, m, dt);
+  const g = new Float64Array(nz);
+  for (let i = 0; i < nz; i++) g[i] = gamma[i * m] * dr;
+  return setpointScoreKernel(nz)(phi, g, uz, yz, u0, y0, dr, uInfinity, dt, samples, bound, out);
 }
