@@ -1,26 +1,15 @@
-import type { Controller } from "../controllers/controller.js";
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 import type { Plant } from "../plants/plant.js";
-import { evaluateCandidate } from "../simulation/evaluate-candidate.js";
+import { evaluateCandidate, type CandidateEvaluation, type EvaluateCandidateOptions } from "../simulation/evaluate-candidate.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { STATUS_DIVERGED, STATUS_INVALID, STATUS_STABLE, STATUS_UNSTABLE } from "./batch-status.js";
 import { assertValidStructure, controllerFromVector, type Structure } from "./structure.js";
 
 /**
- * The options of evaluateCandidate (criterion options and the like), passed through unchanged for
- * every candidate.
+ * The options of evaluateCandidate for every candidate of a batch. evaluateBatch does not report
+ * poles, so it passes `poles: false` unless told otherwise.
  */
-export type EvaluationOptions = Readonly<Record<string, unknown>>;
-
-/** evaluateCandidate as evaluateBatch calls it: any plant, controller and scenario, with options. */
-type EvaluateCandidate = (
-  plant: Plant,
-  controller: Controller,
-  scenario: Scenario,
-  criteria: readonly CriterionId[],
-  options?: EvaluationOptions,
-) => { status: string; scores: Readonly<Record<string, number>> | null };
-const evaluate = evaluateCandidate as unknown as EvaluateCandidate;
+export type EvaluationOptions = EvaluateCandidateOptions;
 
 /**
  * Scores of a batch: n candidates × F variants (the family's plants) × C criteria.
@@ -35,7 +24,7 @@ export interface BatchResult {
 
 /** Options of evaluateBatch. */
 export interface BatchOptions {
-  /** Passed to evaluateCandidate for every candidate (criterion options and the like). */
+  /** Passed to evaluateCandidate for every candidate (criterion options); poles default to false. */
   evaluation?: EvaluationOptions;
   /** Preallocated outputs to fill (lengths n·F and n·F·C); fresh arrays when omitted. */
   into?: BatchResult;
@@ -45,7 +34,7 @@ export interface BatchOptions {
  * Evaluates every candidate of a structure on every plant of a family, in process:
  * candidate i is controllerFromVector(structure, candidates, i·d), d = structure.tunable.length,
  * and its result on variant f is exactly evaluateCandidate(family[f], controller, scenario,
- * criteria, options.evaluation), written into typed arrays (see BatchResult). A candidate whose
+ * criteria, { poles: false, ...options.evaluation }), written into typed arrays (see BatchResult). A candidate whose
  * controller is rejected (evaluateCandidate throws a RangeError or TypeError) gets status
  * "invalid" and NaN scores instead of stopping the batch.
  *
@@ -82,14 +71,15 @@ export function evaluateBatch(
   if (out.status.length !== n * nf || out.scores.length !== n * nf * nc) {
     throw new RangeError(`into: needs status of length ${n * nf} and scores of length ${n * nf * nc}`);
   }
+  const evaluationOptions: EvaluationOptions = { poles: false, ...options.evaluation };
   for (let i = 0; i < n; i++) {
     const controller = controllerFromVector(structure, candidates, i * d);
     for (let f = 0; f < nf; f++) {
       const row = i * nf + f;
       const base = row * nc;
-      let evaluation: ReturnType<EvaluateCandidate>;
+      let evaluation: CandidateEvaluation;
       try {
-        evaluation = evaluate(family[f], controller, scenario, criteria, options.evaluation);
+        evaluation = evaluateCandidate(family[f], controller, scenario, criteria, evaluationOptions);
       } catch (error) {
         if (!(error instanceof RangeError || error instanceof TypeError)) throw error;
         out.status[row] = STATUS_INVALID;
@@ -99,7 +89,7 @@ export function evaluateBatch(
       out.status[row] = statusCode(evaluation.status);
       const scores = evaluation.scores;
       if (scores === null) out.scores.fill(NaN, base, base + nc);
-      else for (let c = 0; c < nc; c++) out.scores[base + c] = scores[criteria[c]];
+      else for (let c = 0; c < nc; c++) out.scores[base + c] = scores[criteria[c] as CriterionId];
     }
   }
   return out;
