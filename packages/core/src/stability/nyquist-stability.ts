@@ -3,27 +3,13 @@ import { polynomialRoots } from "../linear-algebra/polynomial-roots.js";
 import { assertFiniteCoefficients, trimLeadingZeros } from "../linear-algebra/polynomial-trim.js";
 import { loopValueAt, type LoopTransferFunction } from "./evaluate-loop.js";
 import { nyquistTailFrequency } from "./nyquist-tail-frequency.js";
+import { nyquistContour } from "./nyquist-contour.js";
+import { contourPhaseChange } from "./contour-phase-change.js";
+import { clusterAxisPoles, indentationRadius } from "./axis-pole-indentation.js";
 
 /** An open-loop pole counts as on the imaginary axis when |Re p| ≤ AXIS_TOLERANCE·max(1, |p|)
  *  (roots of a double pole come out of the companion matrix only to about √eps ≈ 1e-8). */
 export const AXIS_TOLERANCE = 1e-6;
-/** Indentation radius around an imaginary-axis pole, as a fraction of its distance to the nearest
- *  other pole or zero of L (or of max(1, |ω_k|) when there is none). */
-export const INDENT_FRACTION = 1e-3;
-/** The radius is shrunk (÷10, at most INDENT_SHRINKS times) until |L| ≥ INDENT_MIN_GAIN on the
- *  indentation, so that no root of 1 + L can hide inside it. */
-export const INDENT_MIN_GAIN = 10;
-const INDENT_SHRINKS = 8;
-/** Adaptive grid: accept a step when |F(b) − F(a)| ≤ CHORD_RATIO·min(|F(a)|, |F(b)|) (F = 1 + L);
- *  the phase step is then below 2·asin(CHORD_RATIO/2) ≈ 0.34 rad. */
-export const CHORD_RATIO = 0.35;
-/** Tighter ratio on steps where L crosses the negative real axis. */
-export const CROSSING_CHORD_RATIO = 0.05;
-/** Initial grid: points per decade, and the largest step of the delay phase ω·θ [rad]. */
-export const POINTS_PER_DECADE = 40;
-export const DELAY_PHASE_STEP = Math.PI / 8;
-/** A step shorter than this fraction of |ω| that still fails the chord test means 1 + L(jω) ≈ 0. */
-export const MIN_STEP_FRACTION = 1e-12;
 /** Cap on the number of evaluations of L along the contour. */
 export const MAX_EVALUATIONS = 2_000_000;
 /** 1 + D within this of 0 (no delay) is an ill-posed loop. */
@@ -39,16 +25,6 @@ export interface NyquistVerdict {
   openLoopRhpPoles: number;
   /** Why the loop is not stable (or why the count could not be made). */
   reason?: string;
-}
-
-interface Segment {
-  /** s(t) on the contour. */
-  at(t: number): { sigma: number; omega: number };
-  /** Initial parameter grid, increasing. */
-  grid: number[];
-  /** Step below which a failing chord test means a closed-loop root on the contour. */
-  minStep(a: number, b: number): number;
-  onAxis: boolean;
 }
 
 /**
@@ -129,7 +105,7 @@ export function nyquistStability(loop: LoopTransferFunction): NyquistVerdict {
     );
   }
 
-  const clusters = clusterAxisPoles(axisPoles);
+  const clusters = clusterAxisPoles(axisPoles, AXIS_TOLERANCE);
   for (const { omega } of clusters) {
     if (num.length === 0 || Math.hypot(...complexPolynomial(num, 0, omega)) <= 1e-9 * absPolynomial(num, Math.abs(omega))) {
       return notStable(`the loop has an imaginary-axis pole at s = ${omega === 0 ? "0" : `±${omega}j`} that feedback does not move (cancelled by a zero of num)`);
@@ -149,33 +125,15 @@ export function nyquistStability(loop: LoopTransferFunction): NyquistVerdict {
   const features = [...poles, ...zeros];
   const indents: { omega: number; radius: number }[] = [];
   for (const cluster of clusters) {
-    if (cluster.omega < 0) continue;
-    let separation = Number.POSITIVE_INFINITY;
-    for (const q of features) {
-      const dist = Math.hypot(q.re, q.im - cluster.omega);
-      if (dist > 100 * cluster.spread + 1e-300 && !cluster.members.includes(q)) separation = Math.min(separation, dist);
-    }
-    if (!Number.isFinite(separation)) separation = Math.max(1, cluster.omega);
-    let radius = INDENT_FRACTION * separation;
-    const floor = Math.max(100 * cluster.spread, 1e-12 * Math.max(1, cluster.omega));
-    for (let shrink = 0; shrink < INDENT_SHRINKS && radius / 10 >= floor; shrink++) {
-      let weakest = Number.POSITIVE_INFINITY;
-      for (const phi of [-Math.PI / 2, 0, Math.PI / 2]) {
-        const l = loopValueAt(num, den, delay, radius * Math.cos(phi), cluster.omega + radius * Math.sin(phi));
-        weakest = Math.min(weakest, Math.hypot(l.re, l.im));
-      }
-      if (weakest >= INDENT_MIN_GAIN) break;
-      radius /= 10;
-    }
-    indents.push({ omega: cluster.omega, radius });
+    if (cluster.omega >= 0) indents.push({ omega: cluster.omega, radius: indentationRadius(cluster, features, num, den, delay) });
   }
   indents.sort((a, b) => a.omega - b.omega);
 
-  const segments = buildSegments(indents, omegaMax, delay, features);
+  const segments = nyquistContour(indents, omegaMax, delay, features);
   let total = 0;
   let evaluations = 0;
   for (const segment of segments) {
-    const result = trackPhase(segment, F, MAX_EVALUATIONS - evaluations);
+    const result = contourPhaseChange(segment, F, MAX_EVALUATIONS - evaluations);
     evaluations += result.evaluations;
     if (result.kind === "marginal") {
       return notStable(`the closed loop has a pole on (or within rounding of) the imaginary axis near ω = ${result.omega.toPrecision(6)} rad/s`);
@@ -203,145 +161,6 @@ export function nyquistStability(loop: LoopTransferFunction): NyquistVerdict {
         ? `Z = N + P = ${encirclements} + ${openLoopRhpPoles} = ${closedLoopRhpPoles} closed-loop poles in the right half-plane`
         : `inconsistent count Z = N + P = ${closedLoopRhpPoles} < 0; the loop is not resolved`,
   };
-}
-
-interface AxisCluster {
-  omega: number;
-  spread: number;
-  members: Complex[];
-}
-
-/** Groups imaginary-axis poles by frequency (a multiple pole comes out as a tight cluster). */
-function clusterAxisPoles(axisPoles: readonly Complex[]): AxisCluster[] {
-  const sorted = [...axisPoles].sort((a, b) => a.im - b.im);
-  const clusters: AxisCluster[] = [];
-  for (const p of sorted) {
-    const last = clusters[clusters.length - 1];
-    if (last && Math.abs(p.im - last.members[last.members.length - 1].im) <= 1e-5 * Math.max(1, Math.abs(p.im))) {
-      last.members.push(p);
-    } else {
-      clusters.push({ omega: 0, spread: 0, members: [p] });
-    }
-  }
-  for (const c of clusters) {
-    const mean = c.members.reduce((acc, p) => acc + p.im, 0) / c.members.length;
-    c.omega = Math.abs(mean) <= AXIS_TOLERANCE ? 0 : mean;
-    c.spread = Math.max(...c.members.map((p) => Math.hypot(p.re, p.im - c.omega)));
-  }
-  return clusters;
-}
-
-/** The upper half of the Nyquist contour (ω ≥ 0) as segments: quarter circle at 0 if needed,
- *  imaginary-axis pieces and semicircles around the indented poles. */
-function buildSegments(indents: readonly { omega: number; radius: number }[], omegaMax: number, delay: number, features: readonly Complex[]): Segment[] {
-  // Initial frequency grid on the axis.
-  let low = 1;
-  for (const q of features) {
-    const size = Math.hypot(q.re, q.im);
-    if (size > 0) low = Math.min(low, size);
-  }
-  for (const indent of indents) if (indent.radius > 0) low = Math.min(low, indent.radius);
-  low *= 1e-2;
-  const points: number[] = [0];
-  const decades = Math.log10(omegaMax / low);
-  const count = Math.max(2, Math.ceil(decades * POINTS_PER_DECADE));
-  for (let i = 0; i <= count; i++) points.push(low * 10 ** ((decades * i) / count));
-  if (delay > 0) {
-    const step = DELAY_PHASE_STEP / delay;
-    for (let w = step; w < omegaMax; w += step) points.push(w);
-  }
-  for (const q of features) {
-    const w = Math.abs(q.im);
-    const width = Math.abs(q.re);
-    for (const v of [Math.hypot(q.re, q.im), w, w - width, w + width, w - width / 2, w + width / 2]) points.push(v);
-  }
-  points.push(omegaMax);
-  const grid = [...new Set(points.filter((w) => w >= 0 && w <= omegaMax))].sort((a, b) => a - b);
-
-  const segments: Segment[] = [];
-  const axis = (from: number, to: number): Segment => ({
-    at: (t) => ({ sigma: 0, omega: t }),
-    grid: [from, ...grid.filter((w) => w > from && w < to), to],
-    minStep: (a, b) => MIN_STEP_FRACTION * Math.max(Math.abs(a), Math.abs(b), 1e-3 * (to - from)),
-    onAxis: true,
-  });
-  const arc = (centre: number, radius: number, from: number, to: number): Segment => {
-    const grid: number[] = [];
-    const pieces = 16;
-    for (let i = 0; i <= pieces; i++) grid.push(from + ((to - from) * i) / pieces);
-    return {
-      at: (phi) => ({ sigma: radius * Math.cos(phi), omega: centre + radius * Math.sin(phi) }),
-      grid,
-      minStep: () => MIN_STEP_FRACTION,
-      onAxis: false,
-    };
-  };
-  let start = 0;
-  for (const indent of indents) {
-    if (indent.omega === 0) {
-      segments.push(arc(0, indent.radius, 0, Math.PI / 2));
-      start = indent.radius;
-      continue;
-    }
-    segments.push(axis(start, indent.omega - indent.radius));
-    segments.push(arc(indent.omega, indent.radius, -Math.PI / 2, Math.PI / 2));
-    start = indent.omega + indent.radius;
-  }
-  segments.push(axis(start, omegaMax));
-  return segments;
-}
-
-type TrackResult =
-  | { kind: "ok"; phase: number; evaluations: number }
-  | { kind: "marginal"; omega: number; evaluations: number }
-  | { kind: "budget"; evaluations: number };
-
-/** Unwrapped change of arg F along one segment, by adaptive bisection of its initial grid. */
-function trackPhase(segment: Segment, F: (sigma: number, omega: number) => Complex, budget: number): TrackResult {
-  let evaluations = 0;
-  const value = (t: number): Complex => {
-    evaluations++;
-    const s = segment.at(t);
-    return F(s.sigma, s.omega);
-  };
-  let phase = 0;
-  const grid = segment.grid;
-  let left = value(grid[0]);
-  for (let g = 1; g < grid.length; g++) {
-    const right = value(grid[g]);
-    // Explicit stack of intervals [a, b] with their values.
-    const stack: { a: number; b: number; fa: Complex; fb: Complex }[] = [{ a: grid[g - 1], b: grid[g], fa: left, fb: right }];
-    while (stack.length > 0) {
-      const { a, b, fa, fb } = stack.pop()!;
-      const ma = Math.hypot(fa.re, fa.im);
-      const mb = Math.hypot(fb.re, fb.im);
-      if (!(ma > 0 && mb > 0) || !Number.isFinite(ma) || !Number.isFinite(mb)) {
-        return { kind: "marginal", omega: segment.at(ma > 0 ? b : a).omega, evaluations };
-      }
-      const chord = Math.hypot(fb.re - fa.re, fb.im - fa.im);
-      const la = fa.im;
-      const lb = fb.im;
-      const crossesNegativeAxis = segment.onAxis && la * lb <= 0 && (fa.re - 1 < 0 || fb.re - 1 < 0);
-      const ratio = crossesNegativeAxis ? CROSSING_CHORD_RATIO : CHORD_RATIO;
-      if (chord <= ratio * Math.min(ma, mb)) {
-        phase += Math.atan2(fa.re * fb.im - fa.im * fb.re, fa.re * fb.re + fa.im * fb.im);
-        continue;
-      }
-      if (b - a <= segment.minStep(a, b)) {
-        if (chord <= CHORD_RATIO * Math.min(ma, mb)) {
-          phase += Math.atan2(fa.re * fb.im - fa.im * fb.re, fa.re * fb.re + fa.im * fb.im);
-          continue;
-        }
-        return { kind: "marginal", omega: segment.at((a + b) / 2).omega, evaluations };
-      }
-      if (evaluations >= budget) return { kind: "budget", evaluations };
-      const mid = (a + b) / 2;
-      const fm = value(mid);
-      stack.push({ a: mid, b, fa: fm, fb }, { a, b: mid, fa, fb: fm });
-    }
-    left = right;
-  }
-  return { kind: "ok", phase, evaluations };
 }
 
 /** num(σ + jω) as [re, im]. */

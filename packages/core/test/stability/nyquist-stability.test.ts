@@ -181,6 +181,28 @@ describe("nyquistStability without dead time", () => {
   });
 });
 
+describe("nyquistStability on static loops and tiny gains", () => {
+  it("nyquistStability decides static loops: L = D e^(−θs) is stable iff |D| < 1, L = D iff 1 + D ≠ 0", () => {
+    // Closed forms: y(t) = −D·y(t − θ) + … is a difference equation, stable iff |D| < 1; without delay
+    // the closed loop D/(1 + D) has no dynamics.
+    expect(nyquistStability({ num: [0.5], den: [1], delay: 1 }).stable).toBe(true);
+    expect(nyquistStability({ num: [-0.5], den: [1], delay: 1 }).stable).toBe(true);
+    expect(nyquistStability({ num: [-1.5], den: [1], delay: 1 }).reason).toMatch(/neutral/);
+    expect(nyquistStability({ num: [-3], den: [1], delay: 0 }).stable).toBe(true);
+  });
+
+  it("nyquistStability sees a closed-loop pole at +1e-9 next to an indented integrator (L = −1e-9/s)", () => {
+    // Closed form: s − 1e-9 = 0. The indentation shrinks until |L| ≥ 10 on it, so the root stays outside it.
+    expect(nyquistStability({ num: [-1e-9], den: [1, 0], delay: 0 })).toMatchObject({ stable: false, encirclements: 1 });
+    expect(nyquistStability({ num: [1e-9], den: [1, 0], delay: 0 }).stable).toBe(true);
+  });
+
+  it("nyquistStability(1/s³) counts the two right-half-plane roots of s³ + 1", () => {
+    // Closed form: s³ + 1 = (s + 1)(s² − s + 1), roots −1 and 0.5 ± 0.866j.
+    expect(nyquistStability({ num: [1], den: [1, 0, 0, 0], delay: 0 })).toMatchObject({ stable: false, encirclements: 2, openLoopRhpPoles: 0 });
+  });
+});
+
 describe("nyquistStability input handling", () => {
   it("nyquistStability names the bad field", () => {
     expect(() => nyquistStability({ num: [1, 0, 0], den: [1, 1], delay: 0 })).toThrow(/loop\.num/);
