@@ -58,6 +58,16 @@ export interface NyquistVerdict {
  *   meet the test before MIN_STEP_FRACTION·ω means F ≈ 0 on the axis: a closed-loop pole on the
  *   imaginary axis (marginal), reported not stable.
  *
+ * - An imaginary-axis pole of den that is also a root of num stays a closed-loop pole (feedback
+ *   cannot move it): reported not stable. Z counts the right-half-plane roots of
+ *   den(s) + num(s)·e^(−θs), so a cancelled right-half-plane pole counts too (it is in P).
+ *
+ * Limits: the indentation radius stops shrinking after INDENT_SHRINKS steps, so a closed-loop root
+ * closer than about 1e-11·max(1, ω_k) to an integrator or undamped pole could be missed; at most
+ * MAX_EVALUATIONS evaluations of L (else not stable, with a reason). Cost: about 0.1–0.2 ms for a
+ * low-order loop — fine per candidate for dead-time loops, but rational loops should use isHurwitz.
+ * Verdicts are numerical failures returned as { stable: false, reason }, never thrown.
+ *
  * loop: num, den finite, den not all zero, deg num ≤ deg den (a proper loop), delay finite ≥ 0;
  * a RangeError names the bad field otherwise.
  *
