@@ -12,6 +12,14 @@ export {
   parameterRangeSchema,
   derivativeFilterSchema,
   sweepInputSchema,
+  sweepScenarioSchema,
+  criterionOptionsSchema,
+  DEFAULT_DERIVATIVE_FILTER,
+  parameterSign,
+  sweepStructure,
+  sweepParameterNames,
+  sweepCandidateCount,
+  sweepCandidates,
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
 

@@ -73,8 +73,17 @@ export interface PlantDetailDto {
   /** The revision shown (the latest unless ?revision=N). */
   revision: PlantRevisionDto;
   revisions: { id: string; number: number; createdAt: string; createdBy: UserDto }[];
+  /**
+   * Poles of the shown revision. For a nonlinear plant these are the poles of its linearisation at
+   * the operating point (`initial`, `operatingInput`); see polesNote.
+   */
   poles: Complex[];
-  /** Open-loop unit step response of the shown revision. */
+  /** A sentence saying what `poles` means when it is not the plain plant poles (nonlinear plants); null otherwise. */
+  polesNote: string | null;
+  /**
+   * Open-loop response of the shown revision to a unit step of the input (from the operating point
+   * for a nonlinear plant: y − y0 to a step of u from operatingInput by 1), over a horizon from suggestHorizon.
+   */
   step: { t: number[]; y: number[] };
 }
 
@@ -84,7 +93,7 @@ export interface SweepSummaryDto {
   id: string;
   name: string;
   status: SweepStatus;
-  plant: { id: string; name: string; revisionId: string; revisionNumber: number };
+  plant: { id: string; name: string; kind: Plant["kind"]; revisionId: string; revisionNumber: number };
   total: number;
   done: number;
   createdAt: string;
@@ -96,19 +105,42 @@ export interface SweepSummaryDto {
 /** GET /api/workspaces/:slug/sweeps/:sweepId */
 export interface SweepDetailDto extends SweepSummaryDto {
   definition: SweepInputParsed;
-  /** Parameter names in the order of CandidateDto.params, e.g. ["kp","ki","kd","tf"]. */
+  /**
+   * Parameter names in the order of CandidateDto.params (sweepParameterNames): every parameter of
+   * the structure, swept or fixed, e.g. ["kp","ki","kd","tf"] (tf derived from the filter), then
+   * "sampleTime" when the sweep has one.
+   */
   parameters: string[];
+  /** The swept parameters (the keys of definition.ranges, in the order of `parameters`). */
+  swept: string[];
   criteria: CriterionId[];
   unstableCount: number;
+  divergedCount: number;
 }
+
+/**
+ * One score in JSON: a finite number; "inf" or "-inf" for an infinite value (e.g. a settling time
+ * not reached within the horizon); null when the criterion does not apply to the run (NaN, e.g.
+ * overshoot without a setpoint change). Fronts and rankings ignore everything but finite numbers.
+ */
+export type ScoreValue = number | "inf" | "-inf" | null;
+
+/**
+ * "stable": simulated and scored; "unstable": the stability verdict failed, not simulated;
+ * "diverged": the simulation left its bound or became non-finite (nonlinear or saturated loops),
+ * or the candidate could not be evaluated (then `error` says why).
+ */
+export type CandidateStatus = "stable" | "unstable" | "diverged";
 
 export interface CandidateDto {
   index: number;
   /** Values in the order of SweepDetailDto.parameters. */
   params: number[];
-  status: "stable" | "unstable";
-  /** Values in the order of SweepDetailDto.criteria; null when the candidate is unstable. */
-  scores: number[] | null;
+  status: CandidateStatus;
+  /** Values in the order of SweepDetailDto.criteria; null unless the candidate is stable. */
+  scores: ScoreValue[] | null;
+  /** Why the candidate could not be evaluated, when that is the reason for "diverged". */
+  error?: string;
 }
 
 /** GET /api/workspaces/:slug/sweeps/:sweepId/candidates */
@@ -130,7 +162,7 @@ export interface FrontDto {
 export interface ResponseDto {
   index: number;
   params: Record<string, number>;
-  status: "stable" | "unstable";
+  status: CandidateStatus;
   t: number[];
   r: number[];
   y: number[];

@@ -1,0 +1,117 @@
+import { describe, expect, it } from "vitest";
+import { gridCandidates } from "../../src/sweeps/grid-candidates.js";
+import {
+  sweepCandidateCount,
+  sweepCandidates,
+  sweepInputSchema,
+  sweepParameterNames,
+  sweepStructure,
+  type SweepInput,
+} from "../../src/sweeps/sweep-input.js";
+
+const REVISION = "5f0c6b0e-8a4e-4b43-9d4c-1f1f2b0a9c11";
+const scenario = { horizon: 30, dt: 0.01 };
+
+function paths(input: SweepInput): string[] {
+  const result = sweepInputSchema.safeParse(input);
+  return result.success ? [] : result.error.issues.map((i) => i.path.join("."));
+}
+
+describe("sweepInputSchema v2", () => {
+  it("sweepInputSchema parses a version-1 definition to the same PID sweep with the ratio filter (common practice)", () => {
+    const v1 = {
+      name: "v1",
+      plantRevisionId: REVISION,
+      structure: "pid" as const,
+      ranges: { kp: { min: 0.5, max: 2, count: 3 }, ki: { min: 0, max: 0.4, count: 2 }, kd: { min: 0, max: 1, count: 2 } },
+      filter: { mode: "ratio" as const, n: 10 },
+      scenario: { kind: "setpoint-step" as const, horizon: 30, dt: 0.01 },
+      criteria: ["iae", "ise", "itae", "effort"] as const,
+    };
+    const parsed = sweepInputSchema.parse(v1);
+    expect(parsed.filter).toEqual({ mode: "ratio", n: 10 });
+    expect(sweepInputSchema.parse({ ...v1, filter: undefined, structure: undefined }).filter).toEqual({ mode: "ratio", n: 10 });
+    expect(sweepStructure(parsed)).toEqual({ kind: "pid", tunable: ["kp", "ki", "kd"], fixed: {}, filter: { mode: "ratio", n: 10 } });
+    expect(sweepParameterNames(parsed)).toEqual(["kp", "ki", "kd", "tf"]);
+    // Same order and values as the version-1 grid (kp slowest, kd fastest).
+    const { names, values } = sweepCandidates(parsed);
+    expect(names).toEqual(["kp", "ki", "kd"]);
+    const pids = gridCandidates(parsed.ranges as never, { mode: "ratio", n: 10 });
+    expect(values.length).toBe(pids.length * 3);
+    pids.forEach((pid, i) => {
+      expect(values[i * 3]).toBeCloseTo(pid.kp, 12);
+      expect(values[i * 3 + 1]).toBeCloseTo(pid.ki, 12);
+      expect(values[i * 3 + 2]).toBeCloseTo(pid.kd, 12);
+    });
+    expect(sweepCandidateCount(parsed)).toBe(12);
+  });
+
+  it("sweepInputSchema takes a PI sweep with a fixed ki, a load step and criterion options", () => {
+    const parsed = sweepInputSchema.parse({
+      name: "pi",
+      plantRevisionId: REVISION,
+      structure: "pi",
+      ranges: { kp: { min: 0.5, max: 3, count: 4 } },
+      fixed: { ki: 0.2 },
+      scenario: { kind: "load-step", horizon: 60, dt: 0.05, load: { size: 0.3, time: 5 } },
+      criteria: ["iae", "settlingTime"],
+      criterionOptions: { settlingBand: 0.05 },
+    });
+    expect(parsed.filter).toBeUndefined();
+    expect(sweepStructure(parsed)).toEqual({ kind: "pi", tunable: ["kp"], fixed: { ki: 0.2 } });
+    expect(sweepParameterNames(parsed)).toEqual(["kp", "ki"]);
+  });
+
+  it("sweepInputSchema orders the tunable names as the structure does, not as the ranges are written", () => {
+    const parsed = sweepInputSchema.parse({
+      name: "lead-lag",
+      plantRevisionId: REVISION,
+      structure: "lead-lag",
+      ranges: { tLag: { min: 0.5, max: 1, count: 2 }, k: { min: 1, max: 2, count: 3 } },
+      fixed: { tLead: 4 },
+      sampleTime: 0.1,
+      scenario,
+    });
+    const structure = sweepStructure(parsed);
+    expect(structure.tunable).toEqual(["k", "tLag"]);
+    expect(structure.fixed).toEqual({ tLead: 4, sampleTime: 0.1 });
+    expect(sweepParameterNames(parsed)).toEqual(["k", "tLead", "tLag", "sampleTime"]);
+    const { values } = sweepCandidates(parsed);
+    // Row-major, k slowest: (1, 0.5), (1, 1), (1.5, 0.5), …
+    expect(Array.from(values.slice(0, 6))).toEqual([1, 0.5, 1, 1, 1.5, 0.5]);
+  });
+
+  it("sweepInputSchema names an unknown parameter, a missing one and one given twice", () => {
+    const base = { name: "s", plantRevisionId: REVISION, structure: "pi" as const, scenario };
+    expect(paths({ ...base, ranges: { kp: { min: 1, max: 2, count: 2 }, kx: { min: 0, max: 1, count: 2 } }, fixed: { ki: 1 } })).toContain("ranges.kx");
+    expect(paths({ ...base, ranges: { kp: { min: 1, max: 2, count: 2 } } })).toContain("ranges.ki");
+    expect(paths({ ...base, ranges: { kp: { min: 1, max: 2, count: 2 }, ki: { min: 0, max: 1, count: 2 } }, fixed: { ki: 1 } })).toContain("fixed.ki");
+    expect(paths({ ...base, ranges: {} })).toContain("ranges");
+  });
+
+  it("sweepInputSchema keeps gains ≥ 0 and lead–lag times > 0, but lets state-feedback gains go negative", () => {
+    const base = { name: "s", plantRevisionId: REVISION, scenario };
+    expect(paths({ ...base, structure: "p", ranges: { kp: { min: -1, max: 1, count: 3 } } })).toContain("ranges.kp.min");
+    expect(paths({ ...base, structure: "lead-lag", ranges: { k: { min: 1, max: 2, count: 2 } }, fixed: { tLead: 0, tLag: 1 } })).toContain("fixed.tLead");
+    const sf = sweepInputSchema.safeParse({
+      ...base,
+      structure: "state-feedback",
+      ranges: { "k[0]": { min: -2, max: 2, count: 5 }, "k[1]": { min: -1, max: 1, count: 3 } },
+      fixed: { n: 1 },
+    });
+    expect(sf.success).toBe(true);
+    if (sf.success) expect(sweepParameterNames(sf.data)).toEqual(["k[0]", "k[1]", "n"]);
+    expect(paths({ ...base, structure: "state-feedback", ranges: { "k[0]": { min: 1, max: 2, count: 2 }, "k[2]": { min: 1, max: 2, count: 2 } }, fixed: { n: 1 } })).toContain(
+      "ranges.k[1]",
+    );
+  });
+
+  it("sweepInputSchema refuses a sample time below the time step, a filter on PI and grids above the cap", () => {
+    const base = { name: "s", plantRevisionId: REVISION, scenario };
+    expect(paths({ ...base, structure: "p", ranges: { kp: { min: 1, max: 2, count: 2 } }, sampleTime: 0.001 })).toContain("sampleTime");
+    expect(paths({ ...base, structure: "pi", ranges: { kp: { min: 1, max: 2, count: 2 } }, fixed: { ki: 1 }, filter: { mode: "ratio", n: 5 } })).toContain("filter");
+    expect(
+      paths({ ...base, structure: "pi", ranges: { kp: { min: 1, max: 2, count: 100 }, ki: { min: 1, max: 2, count: 100 } } }),
+    ).toContain("ranges");
+  });
+});
