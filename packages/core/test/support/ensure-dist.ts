@@ -1,5 +1,5 @@
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from "node:fs";
+import { chmodSync, existsSync, mkdirSync, readdirSync, rmSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -41,6 +41,7 @@ export function ensureDist(): void {
       if (owner) rmSync(LOCK, { recursive: true, force: true });
     }
     for (const file of OUTPUTS) if (!existsSync(file)) throw new Error(`building packages/core did not produce ${file}`);
+    chmodSync(CLI_MAIN, 0o755); // as the package's build script does, so `npx loopyard` keeps working
     return;
   }
 }
