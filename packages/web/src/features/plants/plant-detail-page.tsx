@@ -9,9 +9,10 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { Section } from "../../components/section.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
-import { formatCoefficient } from "./format-transfer-function.js";
+import { ActuatorLimitsList } from "./actuator-limits-view.js";
+import { PlantModelView } from "./plant-model-view.js";
+import { plantKindShort } from "./plant-kind.js";
 import { PolesTable } from "./poles-table.js";
-import { TransferFunctionView } from "./transfer-function-view.js";
 
 /** /w/:slug/plants/:plantId[?revision=N] — one revision of a plant: model, poles, open-loop step, revisions. */
 export function PlantDetailPage() {
@@ -36,7 +37,14 @@ export function PlantDetailPage() {
   const { plant: summary, revision: shown, revisions, poles, step } = plant.data;
   const isLatest = shown.number === summary.latestRevision.number;
   const refusal = workspace.data && !canEdit ? roleSentence("Revising plants", "engineer", workspace.data.workspace.name, role) : null;
-  const tf = shown.model;
+  const model = shown.model;
+  const nonlinear = model.kind === "nonlinear";
+  const stepNote =
+    model.kind === "nonlinear"
+      ? `u steps from u₀ = ${model.operatingInput ?? 0} to u₀ + 1 at t = 0; shown as y − y₀`
+      : model.kind === "state-space"
+        ? "unit step on u at t = 0 from x = 0"
+        : "unit step on u at t = 0";
 
   return (
     <div data-testid="plant-detail-page">
@@ -76,32 +84,36 @@ export function PlantDetailPage() {
       )}
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-5">
         <div className="space-y-6 lg:col-span-3">
-          <Section title="Model" aside={<span className="font-mono">{tf.kind}</span>}>
-            <div className="overflow-x-auto py-2">
-              <TransferFunctionView num={tf.num} den={tf.den} delay={tf.delay} size="large" />
-            </div>
+          <Section title="Model" aside={<span className="font-mono" data-testid="plant-kind-label">{plantKindShort(model.kind)}</span>}>
+            <PlantModelView model={model} />
             <dl className="mt-4 grid grid-cols-[max-content_1fr] gap-x-6 gap-y-1.5 text-sm">
-              <dt className="text-ink-soft">Numerator</dt>
-              <dd className="font-mono text-[13px]" data-testid="coefficients-num">[{tf.num.map(formatCoefficient).join(", ")}]</dd>
-              <dt className="text-ink-soft">Denominator</dt>
-              <dd className="font-mono text-[13px]" data-testid="coefficients-den">[{tf.den.map(formatCoefficient).join(", ")}]</dd>
-              <dt className="text-ink-soft">Dead time θ</dt>
-              <dd className="font-mono text-[13px]">{formatCoefficient(tf.delay)} s</dd>
               <dt className="text-ink-soft">Units</dt>
               <dd>{shown.unitsNote || <span className="text-ink-faint">No units note. Add one in a new revision so that others read the scores right.</span>}</dd>
             </dl>
           </Section>
-          <Section title="Open-loop step response" aside="unit step on u at t = 0">
+          <Section title="Open-loop step response" aside={stepNote}>
             {step.t.length > 0 ? (
-              <TimeChart testId="plant-step-chart" height={300} yTitle="y" series={[{ name: "y(t)", t: step.t, values: step.y, color: CHART_COLORS.moss }]} />
+              <TimeChart testId="plant-step-chart" height={300} yTitle={nonlinear ? "y − y₀" : "y"} series={[{ name: nonlinear ? "y(t) − y₀" : "y(t)", t: step.t, values: step.y, color: CHART_COLORS.moss }]} />
             ) : (
               <p className="text-sm text-ink-soft">No step response for this plant.</p>
             )}
           </Section>
         </div>
         <div className="space-y-6 lg:col-span-2">
-          <Section title="Poles" aside={`${poles.length} pole${poles.length === 1 ? "" : "s"}`}>
+          <Section
+            title={nonlinear ? "Poles of the linearisation" : "Poles"}
+            aside={`${poles.length} pole${poles.length === 1 ? "" : "s"}`}
+            testId="poles-section"
+          >
+            {nonlinear ? (
+              <p className="mb-2 text-xs text-ink-soft" data-testid="linearisation-note">
+                The nonlinear plant linearised at its operating point (initial state, u₀). They describe small changes around that point only.
+              </p>
+            ) : null}
             <PolesTable poles={poles} />
+          </Section>
+          <Section title="Actuator limits">
+            <ActuatorLimitsList limits={model.actuator} />
           </Section>
           <Section title="Revisions" testId="revision-list">
             <ol className="space-y-1 text-sm">

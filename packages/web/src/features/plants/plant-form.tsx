@@ -1,18 +1,25 @@
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import type { PlantInput } from "@loopyard/core";
+import { MAX_NONLINEAR_STATES, type PlantInput } from "@loopyard/core";
 import { Button } from "../../components/button.js";
 import { RoleNote } from "../../components/role-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { Field, inputClass } from "../../components/field.js";
 import { applyServerErrors } from "../../forms/apply-server-errors.js";
-import { parseCoefficients } from "./coefficient-text.js";
+import { ActuatorFields } from "./actuator-fields.js";
+import { NonlinearFields } from "./nonlinear-fields.js";
+import { parseMatrix } from "./matrix-text.js";
+import { previewNames } from "./nonlinear-text.js";
 import { PLANT_FORM_FIELDS, plantFormResolver, type PlantFormValues } from "./plant-form-values.js";
-import { TransferFunctionView } from "./transfer-function-view.js";
+import { PLANT_KINDS } from "./plant-kind.js";
+import { PlantPreview } from "./plant-preview.js";
+import { StateSpaceFields } from "./state-space-fields.js";
+import { TransferFunctionFields } from "./transfer-function-fields.js";
 
 /**
- * Name, units note, coefficients and dead time of a transfer-function plant, with a live preview
- * of G(s). Checked with the shared schema on submit; a 400 from the server lands on the field it names.
+ * Name, units note, the kind of model and its fields, actuator limits, with a live preview.
+ * Checked with the shared plantInputSchema on submit; a 400 from the server lands on the field it names
+ * (a refused formula next to its derivative, with the token at fault).
  */
 export function PlantForm({
   initial,
@@ -33,6 +40,10 @@ export function PlantForm({
   const { register, handleSubmit, formState, setError, control } = form;
   const errors = formState.errors;
   const model = useWatch({ control, name: "model" });
+  const kind = model?.kind ?? "transfer-function";
+  const stateNames = previewNames(model?.states ?? "", MAX_NONLINEAR_STATES);
+  const a = parseMatrix(model?.A ?? "", "A");
+  const order = a.ok ? a.rows.length : null;
   /** A refusal or failure that names no field (403, 404, network), shown above the form. */
   const [failure, setFailure] = useState<unknown>(null);
 
@@ -46,7 +57,7 @@ export function PlantForm({
   });
 
   return (
-    <form onSubmit={submit} noValidate className="grid grid-cols-1 gap-6 lg:grid-cols-5" data-testid="plant-form">
+    <form onSubmit={submit} noValidate className="grid grid-cols-1 gap-6 lg:grid-cols-5" data-testid="plant-form" data-kind={kind}>
       <div className="space-y-5 lg:col-span-3">
         {refusal ? <RoleNote sentence={refusal} /> : null}
         {failure ? <ErrorNote error={failure} title="The plant was not saved" /> : null}
@@ -67,29 +78,30 @@ export function PlantForm({
         >
           <textarea id="plant-units" rows={2} className={inputClass} aria-invalid={Boolean(errors.unitsNote)} {...register("unitsNote")} />
         </Field>
-        <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
-          <Field
-            label="Numerator coefficients"
-            htmlFor="plant-num"
-            name="model.num"
-            error={errors.model?.num?.message}
-            hint="Descending powers of s, separated by spaces or commas"
-          >
-            <input id="plant-num" className={`${inputClass} font-mono`} placeholder="1.2" aria-invalid={Boolean(errors.model?.num)} {...register("model.num")} />
-          </Field>
-          <Field
-            label="Denominator coefficients"
-            htmlFor="plant-den"
-            name="model.den"
-            error={errors.model?.den?.message}
-            hint="e.g. 16 10 1 for 16s² + 10s + 1"
-          >
-            <input id="plant-den" className={`${inputClass} font-mono`} placeholder="16 10 1" aria-invalid={Boolean(errors.model?.den)} {...register("model.den")} />
-          </Field>
-        </div>
-        <Field label="Dead time θ [s]" htmlFor="plant-delay" name="model.delay" error={errors.model?.delay?.message} hint="0 when the plant has none" className="max-w-48">
-          <input id="plant-delay" inputMode="decimal" className={`${inputClass} font-mono`} aria-invalid={Boolean(errors.model?.delay)} {...register("model.delay")} />
-        </Field>
+
+        <fieldset data-testid="plant-kind">
+          <legend className="mb-1 block text-xs font-medium text-ink-soft">Model</legend>
+          <div className="grid grid-cols-1 gap-2 sm:grid-cols-3">
+            {PLANT_KINDS.map((k) => (
+              <label
+                key={k.kind}
+                className={`flex cursor-pointer flex-col gap-0.5 rounded-md border px-3 py-2 text-sm ${kind === k.kind ? "border-moss bg-moss-wash" : "border-line bg-white hover:border-ink-faint"}`}
+              >
+                <span className="flex items-center gap-2 font-medium">
+                  <input type="radio" value={k.kind} className="accent-moss" data-testid={`plant-kind-${k.kind}`} {...register("model.kind")} />
+                  {k.label}
+                </span>
+                <span className="pl-5 text-xs text-ink-soft">{k.summary}</span>
+              </label>
+            ))}
+          </div>
+        </fieldset>
+
+        {kind === "transfer-function" ? <TransferFunctionFields register={register} errors={errors} /> : null}
+        {kind === "state-space" ? <StateSpaceFields register={register} errors={errors} order={order} /> : null}
+        {kind === "nonlinear" ? <NonlinearFields register={register} errors={errors} stateNames={stateNames} /> : null}
+        <ActuatorFields register={register} errors={errors} />
+
         <div className="flex items-center gap-3 pt-2">
           <Button type="submit" tone="primary" disabled={formState.isSubmitting || Boolean(refusal)} data-testid="plant-submit">
             {formState.isSubmitting ? pendingLabel : submitLabel}
@@ -97,33 +109,10 @@ export function PlantForm({
         </div>
       </div>
       <aside className="lg:col-span-2">
-        <div className="sticky top-20 rounded-lg border border-line bg-sheet p-4">
-          <div className="mb-3 text-xs font-medium uppercase tracking-wide text-ink-soft">Preview</div>
-          <Preview num={model?.num ?? ""} den={model?.den ?? ""} delay={model?.delay ?? ""} />
-          <p className="mt-4 text-xs text-ink-faint">
-            Input u to output y. Loopyard checks that the plant is proper (numerator degree ≤ denominator degree), of order at most 10, with a non-zero
-            leading denominator coefficient.
-          </p>
+        <div className="sticky top-20">
+          <PlantPreview model={model} stateNames={stateNames} />
         </div>
       </aside>
     </form>
-  );
-}
-
-function Preview({ num, den, delay }: { num: string; den: string; delay: string }) {
-  const n = parseCoefficients(num);
-  const d = parseCoefficients(den);
-  const theta = Number(delay.trim() === "" ? 0 : delay);
-  if (!n.ok || !d.ok) {
-    return (
-      <p className="font-mono text-sm text-ink-faint" data-testid="plant-preview">
-        G(s) = … <span className="font-sans">— type both coefficient lists to see the plant</span>
-      </p>
-    );
-  }
-  return (
-    <div data-testid="plant-preview" className="overflow-x-auto">
-      <TransferFunctionView num={n.values} den={d.values} delay={Number.isFinite(theta) && theta > 0 ? theta : 0} testId="plant-preview-tf" />
-    </div>
   );
 }

@@ -8,7 +8,9 @@ import { formatDateTime } from "../../components/format-date.js";
 import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
-import { formatCoefficient, formatTransferFunction } from "./format-transfer-function.js";
+import { formatCoefficient } from "./format-transfer-function.js";
+import { plantKindShort } from "./plant-kind.js";
+import { plantDelay, plantModelSummary } from "./plant-summary.js";
 
 /** /w/:slug/plants — the library. */
 export function PlantListPage() {
@@ -43,7 +45,7 @@ export function PlantListPage() {
           testId="plants-empty"
         >
           {canEdit
-            ? "Add a plant: type its transfer function's numerator and denominator coefficients and its dead time. Then sweep PID gains on it."
+            ? "Add a plant: a transfer function, a state-space model or nonlinear equations. Then sweep controller gains on it."
             : "An engineer of this workspace can add the first plant; you will see it here."}
         </EmptyState>
       ) : (
@@ -52,6 +54,7 @@ export function PlantListPage() {
             <thead>
               <tr className="border-b border-line text-left text-xs uppercase tracking-wide text-ink-soft">
                 <th className="px-4 py-2 font-medium">Name</th>
+                <th className="px-4 py-2 font-medium">Kind</th>
                 <th className="px-4 py-2 font-medium">Model</th>
                 <th className="px-4 py-2 text-right font-medium">Dead time [s]</th>
                 <th className="px-4 py-2 text-right font-medium">Revision</th>
@@ -67,8 +70,15 @@ export function PlantListPage() {
                     </Link>
                     {p.latestRevision.unitsNote ? <div className="max-w-xs truncate text-xs text-ink-soft">{p.latestRevision.unitsNote}</div> : null}
                   </td>
-                  <td className="px-4 py-2.5 font-mono text-[13px]">{formatTransferFunction({ ...p.latestRevision.model, delay: 0 }).replace("G(s) = ", "")}</td>
-                  <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">{formatCoefficient(p.latestRevision.model.delay)}</td>
+                  <td className="px-4 py-2.5 text-xs text-ink-soft" data-testid="plant-kind-cell">
+                    {plantKindShort(p.latestRevision.model.kind)}
+                  </td>
+                  <td className="max-w-md truncate px-4 py-2.5 font-mono text-[13px]" title={plantModelSummary(p.latestRevision.model)}>
+                    {plantModelSummary(p.latestRevision.model)}
+                  </td>
+                  <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
+                    {plantDelay(p.latestRevision.model) === null ? <span className="text-ink-faint">—</span> : formatCoefficient(plantDelay(p.latestRevision.model) ?? 0)}
+                  </td>
                   <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
                     {p.latestRevision.number}
                     <span className="text-ink-faint"> / {p.revisionCount}</span>

@@ -16,7 +16,7 @@ export function PlantNewPage() {
     <div data-testid="plant-new-page">
       <PageHeader
         title="New plant"
-        subtitle="A transfer function G(s) = num(s)/den(s) · e^(−θs) from the actuator input u to the measured output y."
+        subtitle="A model from the actuator input u to the measured output y: a transfer function, a state-space model or nonlinear equations."
         back={{ to: `/w/${slug}/plants`, label: "Library" }}
       />
       <PlantForm
