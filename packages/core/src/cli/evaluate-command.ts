@@ -2,7 +2,7 @@ import type { Controller } from "../controllers/controller.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import type { Complex } from "../linear-algebra/complex.js";
 import type { Plant } from "../plants/plant.js";
-import { evaluateCandidate } from "../simulation/evaluate-candidate.js";
+import { evaluateCandidate, type EvaluateCandidateOptions } from "../simulation/evaluate-candidate.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { evaluateSpecSchema } from "./evaluate-spec.js";
 import { toCliJson } from "./json-output.js";
@@ -21,6 +21,7 @@ type Evaluate = (
   controller: Controller,
   scenario: Scenario,
   criteria: readonly CriterionId[],
+  options?: EvaluateCandidateOptions,
 ) => { status: string; poles: Complex[]; scores: Record<string, number> | null };
 
 /**
@@ -32,7 +33,9 @@ export async function evaluateCommand(source: string): Promise<string> {
   const spec = validateSpec(evaluateSpecSchema, await readSpec(source), "evaluate spec");
   let result: ReturnType<Evaluate>;
   try {
-    result = (evaluateCandidate as unknown as Evaluate)(spec.plant as Plant, spec.controller as Controller, spec.scenario, spec.criteria);
+    result = (evaluateCandidate as unknown as Evaluate)(spec.plant as Plant, spec.controller as Controller, spec.scenario, spec.criteria, {
+      ...(spec.criterionOptions === undefined ? {} : { criterion: spec.criterionOptions }),
+    });
   } catch (error) {
     asInputError(error);
   }

@@ -1,18 +1,21 @@
 import { z } from "zod";
 import { controllerSchema } from "../controllers/controller.js";
 import { plantModelSchema } from "../plants/plant.js";
+import { criterionOptionsSchema } from "../sweeps/sweep-input.js";
 import { criteriaSpecSchema } from "./criteria-spec.js";
 import { scenarioSpecSchema } from "./scenario-spec.js";
 
 /**
  * The spec of `loopyard evaluate`: one plant, one controller, one scenario, the criteria.
- * Keys exactly: plant, controller, scenario, criteria (see packages/core/README.md, "CLI").
+ * Keys exactly: plant, controller, scenario, criteria, and optionally criterionOptions
+ * { q, r, settlingBand } (see packages/core/README.md, "CLI").
  */
 export const evaluateSpecSchema = z.strictObject({
   plant: plantModelSchema,
   controller: controllerSchema,
   scenario: scenarioSpecSchema,
   criteria: criteriaSpecSchema,
+  criterionOptions: criterionOptionsSchema.strict().optional(),
 });
 
 export type EvaluateSpec = z.output<typeof evaluateSpecSchema>;

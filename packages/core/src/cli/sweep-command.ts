@@ -46,7 +46,10 @@ export async function sweepCommand(source: string, options: SweepCommandOptions)
   let result;
   try {
     result = await pool.evaluate(
-      { family: spec.family.map((v) => v.plant as Plant), structure, candidates, scenario: spec.scenario, criteria: spec.criteria },
+      { family: spec.family.map((v) => v.plant as Plant), structure, candidates, scenario: spec.scenario,
+        criteria: spec.criteria,
+        ...(spec.criterionOptions === undefined ? {} : { evaluation: { criterion: spec.criterionOptions } }),
+      },
       { onProgress: (done) => progress.update(done) },
     );
   } finally {

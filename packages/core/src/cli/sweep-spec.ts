@@ -3,7 +3,7 @@ import { CONTROLLER_KINDS } from "../controllers/controller.js";
 import { OPTIONAL_STRUCTURE_PARAMETERS, structureParameterNames, type Structure } from "../batch/structure.js";
 import type { ParameterSpace } from "../batch/parameter-space.js";
 import { plantModelSchema } from "../plants/plant.js";
-import { derivativeFilterSchema } from "../sweeps/sweep-input.js";
+import { criterionOptionsSchema, derivativeFilterSchema } from "../sweeps/sweep-input.js";
 import { criteriaSpecSchema } from "./criteria-spec.js";
 import { scenarioSpecSchema } from "./scenario-spec.js";
 
@@ -47,7 +47,7 @@ const antiWindupSchema = z.discriminatedUnion("kind", [
  * - structure: { kind, tunable: { <name>: { min, max, scale? } } in candidate-vector order,
  *   fixed?: { <name>: value }, filter?: { mode: "ratio", n } | { mode: "fixed", tf }, antiWindup? };
  * - design: { kind: "grid", counts: { <name>: n } | count: n } | { kind: "latin-hypercube" | "random", count, seed };
- * - scenario, criteria: as in the evaluate spec.
+ * - scenario, criteria, criterionOptions?: as in the evaluate spec.
  */
 export const sweepSpecSchema = z
   .strictObject({
@@ -65,6 +65,7 @@ export const sweepSpecSchema = z
     design: designSchema,
     scenario: scenarioSpecSchema,
     criteria: criteriaSpecSchema,
+    criterionOptions: criterionOptionsSchema.strict().optional(),
   })
   .superRefine((spec, ctx) => {
     const names = new Set(spec.family.map((v, i) => v.name ?? `v${i + 1}`));
