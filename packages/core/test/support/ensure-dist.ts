@@ -9,6 +9,7 @@ export const CORE_DIR = fileURLToPath(new URL("../..", import.meta.url));
 export const CLI_MAIN = join(CORE_DIR, "dist", "cli", "main.js");
 const TSC = join(CORE_DIR, "..", "..", "node_modules", "typescript", "bin", "tsc");
 const LOCK = join(CORE_DIR, ".dist-build.lock");
+const STALE_LOCK_MS = 120_000;
 const OUTPUTS = [CLI_MAIN, join(CORE_DIR, "dist", "pool", "index.js"), join(CORE_DIR, "dist", "pool", "evaluate-chunk-worker.js")];
 
 /**
@@ -25,6 +26,8 @@ export function ensureDist(): void {
       mkdirSync(LOCK);
       owner = true;
     } catch {
+      // A lock left by a killed run (older than any build takes) is cleared.
+      if (existsSync(LOCK) && Date.now() - statSync(LOCK).mtimeMs > STALE_LOCK_MS) rmSync(LOCK, { recursive: true, force: true });
       if (Date.now() > deadline) throw new Error(`waited too long for another test to build dist (${LOCK})`);
       sleep(200);
       continue;
