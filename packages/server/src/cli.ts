@@ -47,11 +47,11 @@ async function seedCommand(): Promise<void> {
   try {
     const auth = createAuth(database.db, { authSecret, publicUrl });
     const report = await seedDemo(database.db, auth, new SweepRunner(database.db));
-    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + Number(report.sweepCreated);
+    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated;
     console.log(
       changed === 0
         ? "Demo data already present; nothing changed."
-        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepCreated ? 1 : 0} sweep.`,
+        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps.`,
     );
     printDemoSignIns();
   } finally {

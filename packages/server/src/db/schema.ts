@@ -104,7 +104,8 @@ export const roleEnum = pgEnum("member_role", ["viewer", "engineer", "lead", "ad
 
 export const sweepStatusEnum = pgEnum("sweep_status", ["queued", "running", "finished", "failed"]);
 
-export const candidateStatusEnum = pgEnum("candidate_status", ["stable", "unstable"]);
+/** Mirrors CandidateStatus in @loopyard/core. */
+export const candidateStatusEnum = pgEnum("candidate_status", ["stable", "unstable", "diverged"]);
 
 export const workspace = pgTable("workspace", {
   id: uuid("id").primaryKey().defaultRandom(),
@@ -202,7 +203,12 @@ export const sweep = pgTable(
   ],
 );
 
-/** One parameter vector of a sweep with its scores (in the order of the sweep's criteria). */
+/**
+ * One parameter vector of a sweep (in the order of sweepParameterNames) with its scores (in the
+ * order of the sweep's criteria). scores: null unless stable; inside, 'NaN' marks a criterion that
+ * does not apply and 'Infinity' one never reached (PostgreSQL double precision keeps both).
+ * error: why a candidate marked diverged could not be evaluated, when that was the reason.
+ */
 export const candidate = pgTable(
   "candidate",
   {
@@ -213,6 +219,7 @@ export const candidate = pgTable(
     params: doublePrecision("params").array().notNull(),
     status: candidateStatusEnum("status").notNull(),
     scores: doublePrecision("scores").array(),
+    error: text("error"),
   },
   (table) => [primaryKey({ columns: [table.sweepId, table.index] })],
 );

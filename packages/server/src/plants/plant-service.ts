@@ -4,10 +4,12 @@ import type { Database } from "../db/database.js";
 import { notFound } from "../http/http-error.js";
 import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
+import { assertUsablePlantModel, STEP_SAMPLES } from "./plant-model-check.js";
 import { findPlantWithRevisions, insertPlant, insertRevision, listPlantSummaries } from "./plant-repository.js";
 
-/** Samples of the open-loop step response over the suggested horizon. */
-const STEP_SAMPLES = 600;
+/** What the poles of a nonlinear plant are. */
+export const NONLINEAR_POLES_NOTE =
+  "Poles of the linearisation at the operating point (the initial state with the operating input); the nonlinear plant may behave differently away from it.";
 
 export const PLANT_NOT_FOUND = "There is no such plant in this workspace.";
 
@@ -34,6 +36,7 @@ export async function getPlantDetail(
     revision,
     revisions: found.revisions.map(({ id, number, createdAt, createdBy }) => ({ id, number, createdAt, createdBy })),
     poles: plantPoles(revision.model),
+    polesNote: revision.model.kind === "nonlinear" ? NONLINEAR_POLES_NOTE : null,
     step: stepOf(revision),
   };
 }
@@ -47,6 +50,7 @@ function stepOf(revision: PlantRevisionDto): { t: number[]; y: number[] } {
 
 /** Adds a plant with its revision 1 to the library (engineer+ checked by the route). */
 export async function createPlant(db: Database, access: MemberAccess, input: PlantInputParsed): Promise<PlantDetailDto> {
+  assertUsablePlantModel(input.model);
   const plantId = await insertPlant(db, access.workspace.id, access.user.id, input);
   return getPlantDetail(db, access, plantId);
 }
@@ -60,6 +64,7 @@ export async function createRevision(
 ): Promise<PlantDetailDto> {
   const found = await findPlantWithRevisions(db, access.workspace.id, plantId);
   if (!found) throw notFound(PLANT_NOT_FOUND);
+  assertUsablePlantModel(input.model);
   const number = await insertRevision(db, plantId, access.user.id, input);
   return getPlantDetail(db, access, plantId, number);
 }

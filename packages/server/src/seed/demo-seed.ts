@@ -1,11 +1,10 @@
 import type { PlantInputParsed, Role, SweepInputParsed, UserDto } from "@loopyard/core";
-import { plantInputSchema, sweepInputSchema } from "@loopyard/core";
+import { plantInputSchema, sweepCandidateCount, sweepInputSchema } from "@loopyard/core";
 import type { Auth } from "../auth/auth.js";
 import type { Database } from "../db/database.js";
 import { findPlantIdByName, findPlantWithRevisions, insertPlant } from "../plants/plant-repository.js";
 import { findSweepIdByName, insertSweep } from "../sweeps/sweep-repository.js";
 import type { SweepRunner } from "../sweeps/sweep-runner.js";
-import { gridSize } from "../sweeps/sweep-service.js";
 import { findUserByEmail } from "../users/user-repository.js";
 import { findWorkspaceBySlug, insertMembership, insertWorkspace } from "../workspaces/workspace-repository.js";
 
@@ -28,7 +27,10 @@ export const DEMO_USERS: readonly { name: string; email: string; role: Role }[] 
 
 const UNITS_NOTE = "u: heater power, fraction of rated power (0–1); y: plate temperature rise, fraction of the rated rise";
 
-/** The three demo plants; denominators are the expanded products of their first-order lags. */
+/**
+ * The demo plants: three transfer functions (denominators are the expanded products of their
+ * first-order lags), a two-state state-space plate and a nonlinear plate with radiative loss.
+ */
 export const DEMO_PLANTS: readonly PlantInputParsed[] = [
   // 1/((8s+1)(2s+1)) = 1/(16s² + 10s + 1)
   { name: "Ember 200 plate", unitsNote: UNITS_NOTE, model: { kind: "transfer-function", num: [1], den: [16, 10, 1], delay: 0 } },
@@ -40,42 +42,107 @@ export const DEMO_PLANTS: readonly PlantInputParsed[] = [
   },
   // 1.5/((20s+1)(4s+1)) · e^(−s) = 1.5/(80s² + 24s + 1) · e^(−s)
   { name: "Ember 800 plate", unitsNote: UNITS_NOTE, model: { kind: "transfer-function", num: [1.5], den: [80, 24, 1], delay: 1 } },
+  // Heating element x1 and plate x2 (temperature rises, fractions of the rated rise):
+  //   x1' = −0.5·x1 + 0.4·x2 + 0.5·u,  x2' = 0.1·x1 − 0.2·x2,  y = x2.
+  // Poles −0.1 and −0.6 (trace −0.7, det 0.06); static gain −C·A⁻¹·B = 0.1·0.5/0.06 ≈ 0.83.
+  {
+    name: "Ember 600 plate (state-space)",
+    unitsNote: "u: heater power, fraction of rated power (0–1); states: element and plate temperature rise; y: plate temperature rise, fraction of the rated rise",
+    model: {
+      kind: "state-space",
+      A: [
+        [-0.5, 0.4],
+        [0.1, -0.2],
+      ],
+      B: [[0.5], [0]],
+      C: [[0, 1]],
+      D: [[0]],
+      actuator: { min: 0, max: 1 },
+    },
+  },
+  // Lumped plate with convective and radiative loss (Stefan–Boltzmann, e = ε·σ·area):
+  //   c·dT/dt = Pmax·u − h·T − e·((T + Ta)⁴ − Ta⁴),  T the temperature rise [K] over ambient Ta [K].
+  // Full power settles near T ≈ 290 K; at T = 0 the linearisation has the pole −(h + 4·e·Ta³)/c ≈ −0.0055 s⁻¹.
+  {
+    name: "Ember 800 plate (radiative)",
+    unitsNote: "u: heater power, fraction of rated power Pmax (0–1); y: plate temperature rise T over ambient [K]",
+    model: {
+      kind: "nonlinear",
+      states: ["T"],
+      parameters: { c: 400, h: 2, e: 2.0e-9, Ta: 293, Pmax: 800 },
+      derivatives: ["(Pmax*u - h*T - e*((T + Ta)^4 - Ta^4)) / c"],
+      output: "T",
+      initial: [0],
+      actuator: { min: 0, max: 1 },
+    },
+  },
 ];
 
 export const DEMO_SWEEP_NAME = "Ember 200 — first PID grid";
+export const DEMO_LOAD_SWEEP_NAME = "Ember 600 — PI load rejection";
 
-/** The demo sweep on Ember 200: a 6 × 6 × 4 grid, filter ten times faster than Td, 60 s horizon. */
-function demoSweepInput(plantRevisionId: string): SweepInputParsed {
-  return sweepInputSchema.parse({
-    name: DEMO_SWEEP_NAME,
-    plantRevisionId,
-    structure: "pid",
-    ranges: {
-      kp: { min: 0.5, max: 5, count: 6 },
-      ki: { min: 0.05, max: 0.8, count: 6 },
-      kd: { min: 0, max: 6, count: 4 },
-    },
-    filter: { mode: "ratio", n: 10 },
-    scenario: { kind: "setpoint-step", horizon: 60, dt: 0.05 },
-    criteria: ["iae", "ise", "itae", "effort"],
-  });
+/** A demo sweep: its name, the plant it runs on (revision 1) and its definition. */
+interface DemoSweep {
+  name: string;
+  plantName: string;
+  input(plantRevisionId: string): SweepInputParsed;
 }
+
+export const DEMO_SWEEPS: readonly DemoSweep[] = [
+  {
+    // A 6 × 6 × 4 PID grid on Ember 200, filter ten times faster than Td, 60 s horizon.
+    name: DEMO_SWEEP_NAME,
+    plantName: "Ember 200 plate",
+    input: (plantRevisionId) =>
+      sweepInputSchema.parse({
+        name: DEMO_SWEEP_NAME,
+        plantRevisionId,
+        structure: "pid",
+        ranges: {
+          kp: { min: 0.5, max: 5, count: 6 },
+          ki: { min: 0.05, max: 0.8, count: 6 },
+          kd: { min: 0, max: 6, count: 4 },
+        },
+        filter: { mode: "ratio", n: 10 },
+        scenario: { kind: "setpoint-step", horizon: 60, dt: 0.05 },
+        criteria: ["iae", "ise", "itae", "effort"],
+      }),
+  },
+  {
+    // An 8 × 8 PI grid on the state-space Ember 600 rejecting a load step of −0.2 (a draught
+    // taking a fifth of rated power) at t = 10 s, from the operating point 0 with the setpoint held.
+    name: DEMO_LOAD_SWEEP_NAME,
+    plantName: "Ember 600 plate (state-space)",
+    input: (plantRevisionId) =>
+      sweepInputSchema.parse({
+        name: DEMO_LOAD_SWEEP_NAME,
+        plantRevisionId,
+        structure: "pi",
+        ranges: {
+          kp: { min: 0.25, max: 4, count: 8 },
+          ki: { min: 0.02, max: 0.6, count: 8 },
+        },
+        scenario: { kind: "load-step", horizon: 150, dt: 0.05, load: { size: -0.2, time: 10 } },
+        criteria: ["iae", "ise", "effort", "tv", "upeak"],
+      }),
+  },
+];
 
 export interface SeedReport {
   usersCreated: number;
   workspaceCreated: boolean;
   membershipsAdded: number;
   plantsCreated: number;
-  sweepCreated: boolean;
+  sweepsCreated: number;
 }
 
 /**
  * Seeds the demo workspace. Idempotent: what exists (matched by email, slug and name) is left
  * as it is, so a second run changes nothing. Users are created through better-auth so that
- * their passwords are hashed as at sign-up. The demo sweep runs to its end before this returns.
+ * their passwords are hashed as at sign-up. The demo sweeps run to their end before this returns.
  */
 export async function seedDemo(db: Database, auth: Auth, runner: SweepRunner): Promise<SeedReport> {
-  const report: SeedReport = { usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepCreated: false };
+  const report: SeedReport = { usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepsCreated: 0 };
 
   const users = new Map<string, UserDto>();
   for (const demo of DEMO_USERS) {
@@ -108,17 +175,19 @@ export async function seedDemo(db: Database, auth: Auth, runner: SweepRunner): P
     report.plantsCreated += 1;
   }
 
-  let sweepId = await findSweepIdByName(db, workspace.id, DEMO_SWEEP_NAME);
-  if (!sweepId) {
-    const plantId = await findPlantIdByName(db, workspace.id, "Ember 200 plate");
-    const plant = plantId ? await findPlantWithRevisions(db, workspace.id, plantId) : null;
-    const revision = plant?.revisions[0];
-    if (!revision) throw new Error("the Ember 200 plate has no revision to sweep");
-    const definition = demoSweepInput(revision.id);
-    sweepId = await insertSweep(db, { workspaceId: workspace.id, createdBy: engineer.id, definition, total: gridSize(definition.ranges) });
-    report.sweepCreated = true;
+  for (const demo of DEMO_SWEEPS) {
+    let sweepId = await findSweepIdByName(db, workspace.id, demo.name);
+    if (!sweepId) {
+      const plantId = await findPlantIdByName(db, workspace.id, demo.plantName);
+      const plant = plantId ? await findPlantWithRevisions(db, workspace.id, plantId) : null;
+      const revision = plant?.revisions[0];
+      if (!revision) throw new Error(`the ${demo.plantName} has no revision to sweep`);
+      const definition = demo.input(revision.id);
+      sweepId = await insertSweep(db, { workspaceId: workspace.id, createdBy: engineer.id, definition, total: sweepCandidateCount(definition) });
+      report.sweepsCreated += 1;
+    }
+    // Runs a new sweep, finishes one an interrupted seed left behind, and does nothing to a finished one.
+    await runner.runNow(sweepId);
   }
-  // Runs a new sweep, finishes one an interrupted seed left behind, and does nothing to a finished one.
-  await runner.runNow(sweepId);
   return report;
 }

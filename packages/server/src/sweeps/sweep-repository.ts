@@ -1,11 +1,18 @@
 import { and, asc, count, desc, eq, inArray, sql } from "drizzle-orm";
-import type { CriterionId, SweepDetailDto, SweepInputParsed, SweepStatus, SweepSummaryDto, UserDto } from "@loopyard/core";
+import { sweepInputSchema, sweepParameterNames } from "@loopyard/core";
+import type { CriterionId, PlantKind, SweepDetailDto, SweepInputParsed, SweepStatus, SweepSummaryDto, UserDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { candidate, plantRevision, sweep, user } from "../db/schema.js";
 import { userDtoColumns } from "../users/user-repository.js";
 
-/** Names of CandidateDto.params for the PID structure, in stored order. */
-export const PID_PARAMETERS = ["kp", "ki", "kd", "tf"] as const;
+/**
+ * A stored definition as the current sweepInputSchema reads it: definitions stored by earlier
+ * versions parse to the same sweep (defaults filled in); one that no longer parses is used as stored.
+ */
+export function storedDefinition(raw: unknown): SweepInputParsed {
+  const parsed = sweepInputSchema.safeParse(raw);
+  return parsed.success ? parsed.data : (raw as SweepInputParsed);
+}
 
 const summaryColumns = {
   id: sweep.id,
@@ -19,6 +26,7 @@ const summaryColumns = {
   definition: sweep.definition,
   plantId: plantRevision.plantId,
   plantName: plantRevision.name,
+  plantKind: sql<PlantKind>`${plantRevision.model}->>'kind'`,
   revisionId: plantRevision.id,
   revisionNumber: plantRevision.number,
   createdBy: userDtoColumns,
@@ -36,6 +44,7 @@ interface SummaryRow {
   definition: unknown;
   plantId: string;
   plantName: string;
+  plantKind: PlantKind;
   revisionId: string;
   revisionNumber: number;
   createdBy: UserDto;
@@ -46,7 +55,7 @@ function toSummary(row: SummaryRow): SweepSummaryDto {
     id: row.id,
     name: row.name,
     status: row.status,
-    plant: { id: row.plantId, name: row.plantName, revisionId: row.revisionId, revisionNumber: row.revisionNumber },
+    plant: { id: row.plantId, name: row.plantName, kind: row.plantKind, revisionId: row.revisionId, revisionNumber: row.revisionNumber },
     total: row.total,
     done: row.done,
     createdAt: row.createdAt.toISOString(),
@@ -78,18 +87,22 @@ export async function findSweepDetail(db: Database, workspaceId: string, sweepId
     .limit(1);
   const row = rows[0];
   if (!row) return null;
-  const [unstable] = await db
-    .select({ n: count() })
+  const counts = await db
+    .select({ status: candidate.status, n: count() })
     .from(candidate)
-    .where(and(eq(candidate.sweepId, sweepId), eq(candidate.status, "unstable")));
-  // Stored only after sweepInputSchema parsed it.
-  const definition = row.definition as SweepInputParsed;
+    .where(eq(candidate.sweepId, sweepId))
+    .groupBy(candidate.status);
+  const countOf = (status: string) => counts.find((c) => c.status === status)?.n ?? 0;
+  const definition = storedDefinition(row.definition);
+  const parameters = sweepParameterNames(definition);
   return {
     ...toSummary(row),
     definition,
-    parameters: [...PID_PARAMETERS],
+    parameters,
+    swept: parameters.filter((name) => name in definition.ranges),
     criteria: [...definition.criteria],
-    unstableCount: unstable?.n ?? 0,
+    unstableCount: countOf("unstable"),
+    divergedCount: countOf("diverged"),
   };
 }
 
@@ -139,7 +152,7 @@ export async function findSweepForRun(db: Database, sweepId: string): Promise<Sw
     .limit(1);
   const row = rows[0];
   if (!row) return null;
-  const definition = row.definition as SweepInputParsed;
+  const definition = storedDefinition(row.definition);
   return { ...row, definition, criteria: [...definition.criteria] };
 }
 

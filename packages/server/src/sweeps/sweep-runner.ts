@@ -1,9 +1,10 @@
 import { performance } from "node:perf_hooks";
-import { evaluateCandidate, gridCandidates } from "@loopyard/core";
-import type { CandidateDto, PidController, Plant } from "@loopyard/core";
+import { assertValidController, batchStatusName, evaluateBatch, sweepCandidateCount } from "@loopyard/core";
+import type { Plant } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { findRevisionById } from "../plants/plant-repository.js";
-import { countCandidates, insertCandidateChunk } from "./candidate-repository.js";
+import { countCandidates, insertCandidateChunk, type CandidateRow } from "./candidate-repository.js";
+import { candidateParams, planController, structureProblem, sweepPlan, type SweepPlan } from "./sweep-plan.js";
 import {
   findSweepForRun,
   listUnfinishedSweepIds,
@@ -32,7 +33,7 @@ class SweepFailure extends Error {
 interface ActiveSweep {
   record: SweepRunRecord;
   plant: Plant;
-  controllers: PidController[];
+  plan: SweepPlan;
   /** Index of the next candidate to evaluate (candidates before it are stored). */
   next: number;
 }
@@ -41,7 +42,7 @@ const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resol
 
 /**
  * Runs sweeps in this process. Each step evaluates one chunk of one sweep's candidates with core's
- * evaluateCandidate, then stores them together with the sweep's progress in one transaction, and
+ * evaluateBatch (the same numerics as the CLI and the worker pool), then stores them together with the sweep's progress in one transaction, and
  * yields to the event loop so the API stays responsive. Several sweeps take turns chunk by chunk,
  * so a small sweep is not stuck behind a large one.
  *
@@ -130,12 +131,15 @@ export class SweepRunner {
       if (!record || record.status === "finished" || record.status === "failed") return null;
       const plant = (await findRevisionById(this.#db, record.plantRevisionId))?.model;
       if (!plant) throw new SweepFailure("The sweep could not start: its plant revision no longer exists.");
-      const controllers = gridCandidates(record.definition.ranges, record.definition.filter);
-      if (controllers.length !== record.total) {
-        throw new SweepFailure(`The sweep could not start: its grid has ${controllers.length} candidates, not the ${record.total} recorded.`);
+      const plan = sweepPlan(record.definition);
+      const count = sweepCandidateCount(record.definition);
+      if (count !== record.total) {
+        throw new SweepFailure(`The sweep could not start: its grid has ${count} candidates, not the ${record.total} recorded.`);
       }
+      const problem = structureProblem(plan.structure, plant);
+      if (problem) throw new SweepFailure(`The sweep could not start: ${problem}.`);
       await markSweepRunning(this.#db, sweepId);
-      return { record, plant, controllers, next: await countCandidates(this.#db, sweepId) };
+      return { record, plant, plan, next: await countCandidates(this.#db, sweepId) };
     } catch (error) {
       await this.#fail(sweepId, error, 0);
       return null;
@@ -160,24 +164,66 @@ export class SweepRunner {
     }
   }
 
-  /** Evaluates candidates from `sweep.next` until the chunk size or the time budget is reached. */
-  #evaluateChunk(sweep: ActiveSweep): CandidateDto[] {
-    const { record, plant, controllers } = sweep;
-    const { scenario } = record.definition;
+  /**
+   * Evaluates candidates from `sweep.next` until the chunk size or the time budget is reached, in
+   * slices sized from the time the previous slice took per candidate (nonlinear loops cost far
+   * more than linear ones).
+   */
+  #evaluateChunk(sweep: ActiveSweep): CandidateRow[] {
     const started = performance.now();
-    const rows: CandidateDto[] = [];
-    for (let index = sweep.next; index < record.total && rows.length < this.#chunkSize; index += 1) {
-      if (rows.length > 0 && performance.now() - started > this.#chunkBudgetMs) break;
-      const controller = controllers[index] as PidController;
-      const evaluation = evaluateCandidate(plant, controller, scenario, record.criteria);
-      const scores = evaluation.scores;
-      rows.push({
-        index,
-        params: [controller.kp, controller.ki, controller.kd, controller.tf],
-        status: evaluation.status,
-        scores: scores ? record.criteria.map((criterion) => scores[criterion]) : null,
-      });
+    const end = Math.min(sweep.record.total, sweep.next + this.#chunkSize);
+    const rows: CandidateRow[] = [];
+    let from = sweep.next;
+    let slice = 1;
+    while (from < end) {
+      const to = Math.min(end, from + slice);
+      const sliceStarted = performance.now();
+      rows.push(...this.#evaluateSlice(sweep, from, to));
+      const now = performance.now();
+      const remaining = this.#chunkBudgetMs - (now - started);
+      if (remaining <= 0) break;
+      const perCandidate = Math.max((now - sliceStarted) / (to - from), 1e-3);
+      slice = Math.max(1, Math.floor(remaining / perCandidate));
+      from = to;
     }
+    return rows;
+  }
+
+  /**
+   * Candidates [from, to) through core evaluateBatch on the sweep's plant. A candidate core rejects
+   * (status "invalid") and every candidate of a slice whose evaluation throws are stored as
+   * "diverged" with the reason, so one bad slice does not stop the sweep.
+   */
+  #evaluateSlice(sweep: ActiveSweep, from: number, to: number): CandidateRow[] {
+    const { plan, plant, record } = sweep;
+    const controllers = Array.from({ length: to - from }, (_, i) => planController(plan, from + i));
+    const rows = controllers.map((controller, i): CandidateRow => ({
+      index: from + i,
+      params: candidateParams(plan, controller),
+      status: "diverged",
+      scores: null,
+    }));
+    let result;
+    try {
+      result = evaluateBatch([plant], plan.structure, plan.candidates.subarray(from * plan.d, to * plan.d), plan.scenario, record.criteria, {
+        evaluation: plan.evaluation,
+      });
+    } catch (error) {
+      const reason = `evaluation failed: ${error instanceof Error ? error.message : String(error)}`;
+      console.error(`[loopyard] sweep ${record.id}: candidates ${from}–${to - 1} could not be evaluated:`, error);
+      for (const row of rows) row.error = reason;
+      return rows;
+    }
+    const nc = record.criteria.length;
+    rows.forEach((row, i) => {
+      const status = batchStatusName(result.status[i] as number);
+      if (status === "invalid") {
+        row.error = rejectionReason(controllers[i]);
+        return;
+      }
+      row.status = status;
+      if (status === "stable") row.scores = Array.from(result.scores.subarray(i * nc, (i + 1) * nc));
+    });
     return rows;
   }
 
@@ -193,4 +239,14 @@ export class SweepRunner {
       console.error(`[loopyard] could not mark sweep ${sweepId} as failed:`, markError);
     }
   }
+}
+
+/** Why core rejected a candidate's controller (its RangeError's sentence). */
+function rejectionReason(controller: Parameters<typeof assertValidController>[0] | undefined): string {
+  try {
+    if (controller) assertValidController(controller);
+  } catch (error) {
+    return `the controller was rejected: ${error instanceof Error ? error.message : String(error)}`;
+  }
+  return "the controller was rejected before evaluation";
 }

@@ -1,4 +1,4 @@
-import { CRITERION_IDS, IllPosedLoopError, paretoFront, simulateLoop } from "@loopyard/core";
+import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
 import type {
   CandidateListDto,
   CriterionId,
@@ -14,15 +14,12 @@ import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate, listCandidates as listStoredCandidates } from "./candidate-repository.js";
-import { findSweepDetail, insertSweep, listSweepSummaries, PID_PARAMETERS } from "./sweep-repository.js";
+import { fromScoreValue } from "./score-value.js";
+import { structureProblem, sweepPlan, tunableFromParams } from "./sweep-plan.js";
+import { findSweepDetail, insertSweep, listSweepSummaries } from "./sweep-repository.js";
 import type { SweepRunner } from "./sweep-runner.js";
 
 export const SWEEP_NOT_FOUND = "There is no such sweep in this workspace.";
-
-/** Number of candidates of a grid: the product of the three counts. */
-export function gridSize(ranges: SweepInputParsed["ranges"]): number {
-  return ranges.kp.count * ranges.ki.count * ranges.kd.count;
-}
 
 export async function listSweeps(db: Database, access: MemberAccess): Promise<SweepSummaryDto[]> {
   return listSweepSummaries(db, access.workspace.id);
@@ -45,11 +42,13 @@ export async function createSweep(
   if (!revision) {
     throw badRequest("plantRevisionId: there is no such plant revision in this workspace", "plantRevisionId");
   }
+  const problem = structureProblem(sweepPlan(input).structure, revision.model);
+  if (problem) throw badRequest(`ranges: ${problem}`, "ranges");
   const sweepId = await insertSweep(db, {
     workspaceId: access.workspace.id,
     createdBy: access.user.id,
     definition: input,
-    total: gridSize(input.ranges),
+    total: sweepCandidateCount(input),
   });
   runner.enqueue(sweepId);
   return getSweep(db, access, sweepId);
@@ -85,14 +84,19 @@ export async function getFront(
   const y = frontAxis("y", query.y, criteria, criteria[criteria.length - 1] as CriterionId);
   const xi = criteria.indexOf(x);
   const yi = criteria.indexOf(y);
+  // Only finite scores of stable candidates count; paretoFront ignores the rest (NaN for null, ±inf).
   const scored = (await listStoredCandidates(db, sweepId)).filter((c) => c.status === "stable" && c.scores !== null);
-  const xs = Float64Array.from(scored, (c) => (c.scores as number[])[xi] ?? Number.NaN);
-  const ys = Float64Array.from(scored, (c) => (c.scores as number[])[yi] ?? Number.NaN);
+  const xs = Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[xi]));
+  const ys = Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[yi]));
   const positions = paretoFront(xs, ys);
   return { x, y, indices: positions.map((p) => (scored[p] as { index: number }).index) };
 }
 
-/** Closed-loop setpoint-step response of one candidate, simulated on demand (≤ 2000 points per trace). */
+/**
+ * Closed-loop response of one candidate under the sweep's scenario, simulated on demand with core
+ * simulateLoop (≤ 2000 points per trace). The controller is rebuilt from the stored parameters
+ * with the sweep's structure (controllerFromVector), exactly as the runner evaluated it.
+ */
 export async function getCandidateResponse(
   db: Database,
   access: MemberAccess,
@@ -110,12 +114,13 @@ export async function getCandidateResponse(
   }
   const revision = await findRevisionInWorkspace(db, access.workspace.id, sweep.plant.revisionId);
   if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
-  const [kp, ki, kd, tf] = stored.params as [number, number, number, number];
-  const trace = simulateOrExplain(() => simulateLoop(revision.model, { kind: "pid", kp, ki, kd, tf }, sweep.definition.scenario));
+  const plan = sweepPlan(sweep.definition);
+  const controller = controllerFromVector(plan.structure, tunableFromParams(plan, sweep.parameters, stored.params));
+  const trace = simulateOrExplain(() => simulateLoop(revision.model, controller, plan.scenario));
   const indices = downsampleIndices(trace.t.length);
   return {
     index,
-    params: Object.fromEntries(PID_PARAMETERS.map((name, i) => [name, stored.params[i] as number])),
+    params: Object.fromEntries(sweep.parameters.map((name, i) => [name, stored.params[i] as number])),
     status: stored.status,
     t: pick(trace.t, indices),
     r: pick(trace.r, indices),
@@ -133,6 +138,9 @@ function simulateOrExplain<T>(simulate: () => T): T {
         409,
         "This candidate makes the loop ill-posed (1 + C·G vanishes at high frequency), so it has no response to show; choose another candidate.",
       );
+    }
+    if (error instanceof RangeError || error instanceof TypeError) {
+      throw new HttpError(409, `This candidate could not be simulated (${error.message}); choose another candidate.`);
     }
     throw error;
   }
