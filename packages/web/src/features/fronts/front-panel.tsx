@@ -47,11 +47,12 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   if (candidates.isError) return <ErrorNote error={candidates.error} title="Could not load the candidates" />;
 
   const stableCount = candidates.data.candidates.filter((c) => c.status === "stable").length;
+  const divergedCount = sweep.divergedCount ?? candidates.data.candidates.filter((c) => c.status === "diverged").length;
   if (stableCount === 0) {
     return (
       <EmptyState title="No stable candidate in this grid" testId="front-empty">
-        All {sweep.total} candidates give an unstable closed loop, so there is no front to draw. Start a new sweep with smaller gains (lower kp and ki
-        maxima), or check the plant model.
+        Of {sweep.total} candidates, {sweep.unstableCount} give an unstable closed loop and {divergedCount} diverged in simulation, so there is no front
+        to draw. Start a new sweep with smaller gains (lower maxima), or check the plant model and its actuator limits.
       </EmptyState>
     );
   }
@@ -67,7 +68,10 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
           {stableCount} stable of {sweep.total}
-          {sweep.unstableCount > 0 ? ` · ${sweep.unstableCount} unstable, not drawn` : ""}
+          {sweep.unstableCount > 0 ? ` · ${sweep.unstableCount} unstable` : ""}
+          {divergedCount > 0 ? ` · ${divergedCount} diverged` : ""}
+          {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
+          {points.length < stableCount ? ` · ${stableCount - points.length} without a finite score on these axes` : ""}
           {front.data ? ` · ${front.data.indices.length} on the front` : ""}
         </span>
       </div>
@@ -111,14 +115,25 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   );
 }
 
+/** What the scenario of a sweep does, in a few words, e.g. "load step of 1 at t = 10 s". */
+export function scenarioSummary(scenario: SweepDetailDto["definition"]["scenario"]): string {
+  const setpoint = `setpoint step of ${formatNumber(scenario.setpoint ?? 1)}`;
+  const load = scenario.load ?? { size: 1, time: 0 };
+  const loadText = `load step of ${formatNumber(load.size)} at t = ${formatNumber(load.time)} s`;
+  const main = scenario.kind === "load-step" ? loadText : scenario.kind === "combined" ? `${setpoint}, ${loadText}` : setpoint;
+  return scenario.noise ? `${main}, noise sd ${formatNumber(scenario.noise.sd)}` : main;
+}
+
 function CandidateResponse({ slug, sweep, index }: { slug: string; sweep: SweepDetailDto; index: number | null }) {
   const response = useCandidateResponse(slug, sweep.id, index);
+  const scenario = sweep.definition.scenario;
+  const loadTime = scenario.kind === "setpoint-step" ? null : (scenario.load?.time ?? 0);
   return (
-    <Section title={index === null ? "Step response" : `Step response of candidate #${index}`} aside="unit setpoint step" testId="response-section">
+    <Section title={index === null ? "Response" : `Response of candidate #${index}`} aside={scenarioSummary(scenario)} testId="response-section">
       {index === null ? (
         <p className="py-10 text-center text-sm text-ink-soft" data-testid="response-empty">
-          Click a point of the front, or a row of the table below, to see that candidate's closed-loop response y(t) to the setpoint r(t) and its
-          controller output u(t).
+          Click a point of the front, or a row of the table below, to see that candidate's closed-loop output y(t) against the setpoint r(t) and
+          its controller output u(t) in this sweep's scenario.
         </p>
       ) : response.isPending ? (
         <Loading label="Simulating the loop…" />
@@ -134,7 +149,12 @@ function CandidateResponse({ slug, sweep, index }: { slug: string; sweep: SweepD
               </div>
             ))}
           </dl>
-          <ResponseChart t={response.data.t} r={response.data.r} y={response.data.y} u={response.data.u} />
+          {response.data.status !== "stable" ? (
+            <p className="mb-2 text-xs text-rust" data-testid="response-status">
+              This candidate is {response.data.status}; the trace shows how it fails.
+            </p>
+          ) : null}
+          <ResponseChart t={response.data.t} r={response.data.r} y={response.data.y} u={response.data.u} loadTime={loadTime} />
         </>
       )}
     </Section>

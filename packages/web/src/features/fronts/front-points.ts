@@ -1,4 +1,5 @@
 import type { CandidateDto, CriterionId } from "@loopyard/core";
+import { finiteScore } from "../../components/format-score.js";
 
 export interface FrontPoint {
   index: number;
@@ -8,7 +9,7 @@ export interface FrontPoint {
 
 /**
  * The stable candidates with finite scores on the two chosen criteria, as plot points;
- * unstable candidates and non-finite scores are left out (they have no place on the axes).
+ * unstable and diverged candidates and scores sent as "inf", "-inf" or null are left out (they have no place on the axes).
  */
 export function frontPoints(candidates: readonly CandidateDto[], criteria: readonly CriterionId[], x: CriterionId, y: CriterionId): FrontPoint[] {
   const ix = criteria.indexOf(x);
@@ -17,9 +18,9 @@ export function frontPoints(candidates: readonly CandidateDto[], criteria: reado
   const points: FrontPoint[] = [];
   for (const c of candidates) {
     if (c.status !== "stable" || !c.scores) continue;
-    const px = c.scores[ix];
-    const py = c.scores[iy];
-    if (Number.isFinite(px) && Number.isFinite(py)) points.push({ index: c.index, x: px, y: py });
+    const px = finiteScore(c.scores[ix]);
+    const py = finiteScore(c.scores[iy]);
+    if (px !== null && py !== null) points.push({ index: c.index, x: px, y: py });
   }
   return points;
 }

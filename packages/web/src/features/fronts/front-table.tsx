@@ -1,5 +1,6 @@
 import type { CandidateDto, CriterionId } from "@loopyard/core";
 import { NumberCell } from "../../components/number-cell.js";
+import { ScoreCell } from "../../components/score-cell.js";
 import { criterionShortLabel } from "./criterion-label.js";
 
 /** The front as a table: one row per non-dominated candidate (sorted by x), its parameters and every score. */
@@ -64,7 +65,7 @@ export function FrontTable({
                   <NumberCell key={parameters[i] ?? i} value={v} />
                 ))}
                 {criteria.map((c, i) => (
-                  <NumberCell key={c} value={row.scores?.[i] ?? null} className={axisClass(c)} />
+                  <ScoreCell key={c} value={row.scores?.[i] ?? null} className={axisClass(c)} />
                 ))}
               </tr>
             );

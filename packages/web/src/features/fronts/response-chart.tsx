@@ -2,10 +2,54 @@ import { LazyPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
 
 /**
- * A closed-loop setpoint-step response: output y(t) against setpoint r(t) in the upper panel,
- * controller output u(t) in the lower one, on one shared time axis. Takes plain arrays.
+ * A closed-loop response: output y(t) against setpoint r(t) in the upper panel, controller output
+ * u(t) in the lower one, on one shared time axis; a dotted vertical line marks the load step when
+ * the scenario has one. Takes plain arrays.
  */
-export function ResponseChart({ t, r, y, u }: { t: readonly number[]; r: readonly number[]; y: readonly number[]; u: readonly number[] }) {
+export function ResponseChart({
+  t,
+  r,
+  y,
+  u,
+  loadTime = null,
+}: {
+  t: readonly number[];
+  r: readonly number[];
+  y: readonly number[];
+  u: readonly number[];
+  /** Time of the load step [s], or null without one. */
+  loadTime?: number | null;
+}) {
+  const loadMarks =
+    loadTime === null
+      ? {}
+      : {
+          shapes: [
+            {
+              type: "line",
+              xref: "x",
+              yref: "paper",
+              x0: loadTime,
+              x1: loadTime,
+              y0: 0,
+              y1: 1,
+              line: { color: CHART_COLORS.faint, width: 1, dash: "dot" },
+            },
+          ],
+          annotations: [
+            {
+              xref: "x",
+              yref: "paper",
+              x: loadTime,
+              y: 1,
+              yanchor: "bottom",
+              xanchor: "left",
+              text: "load step",
+              showarrow: false,
+              font: { size: 11, color: CHART_COLORS.inkSoft },
+            },
+          ],
+        };
   const line = (name: string, values: readonly number[], color: string, yaxis: string, dash = "solid") => ({
     type: "scatter",
     mode: "lines",
@@ -18,7 +62,7 @@ export function ResponseChart({ t, r, y, u }: { t: readonly number[]; r: readonl
     hovertemplate: `${name}: %{y:.4g}<br>t = %{x:.4g} s<extra></extra>`,
   });
   return (
-    <div data-testid="response-chart">
+    <div data-testid="response-chart" data-load-time={loadTime ?? undefined}>
       <LazyPlot
         height={380}
         data={[
@@ -31,6 +75,7 @@ export function ResponseChart({ t, r, y, u }: { t: readonly number[]; r: readonl
           yaxis: axis("y, r", { domain: [0.42, 1], anchor: "x" }),
           yaxis2: axis("u", { domain: [0, 0.32], anchor: "x" }),
           margin: { l: 56, r: 16, t: 28, b: 44 },
+          ...loadMarks,
         })}
         config={CHART_CONFIG}
       />

@@ -34,7 +34,7 @@ export function PlantDetailPage() {
       </>
     );
 
-  const { plant: summary, revision: shown, revisions, poles, step } = plant.data;
+  const { plant: summary, revision: shown, revisions, poles, step, polesNote } = plant.data;
   const isLatest = shown.number === summary.latestRevision.number;
   const refusal = workspace.data && !canEdit ? roleSentence("Revising plants", "engineer", workspace.data.workspace.name, role) : null;
   const model = shown.model;
@@ -105,9 +105,9 @@ export function PlantDetailPage() {
             aside={`${poles.length} pole${poles.length === 1 ? "" : "s"}`}
             testId="poles-section"
           >
-            {nonlinear ? (
+            {nonlinear || polesNote ? (
               <p className="mb-2 text-xs text-ink-soft" data-testid="linearisation-note">
-                The nonlinear plant linearised at its operating point (initial state, u₀). They describe small changes around that point only.
+                {polesNote ?? "The nonlinear plant linearised at its operating point (initial state, u₀). They describe small changes around that point only."}
               </p>
             ) : null}
             <PolesTable poles={poles} />

@@ -39,3 +39,11 @@ export function hasLimits(model: Plant): boolean {
   const a = model.actuator;
   return a !== undefined && (a.min !== undefined || a.max !== undefined || a.rate !== undefined);
 }
+
+const SUBSCRIPT_DIGITS = "₀₁₂₃₄₅₆₇₈₉";
+
+/** Names of the states a state-feedback gain acts on: the nonlinear plant's names, else x₀, x₁, … */
+export function plantStateNames(model: Plant): string[] {
+  if (model.kind === "nonlinear") return [...model.states];
+  return Array.from({ length: plantStateCount(model) }, (_, i) => `x${String(i).replace(/\d/g, (d) => SUBSCRIPT_DIGITS[Number(d)])}`);
+}

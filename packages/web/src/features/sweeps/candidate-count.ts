@@ -1,12 +1,7 @@
 import { MAX_SWEEP_CANDIDATES } from "@loopyard/core";
 
-interface CountedRange {
-  count: number;
-}
-
-/** How many candidates a grid sweep holds: the product of the three counts; null while a count is not a whole number ≥ 1. */
-export function candidateCount(ranges: { kp: CountedRange; ki: CountedRange; kd: CountedRange }): number | null {
-  const counts = [ranges.kp.count, ranges.ki.count, ranges.kd.count];
+/** How many candidates a grid sweep holds: the product of the counts; null while a count is not a whole number ≥ 1. */
+export function candidateCount(counts: readonly number[]): number | null {
   if (counts.some((c) => typeof c !== "number" || !Number.isInteger(c) || c < 1)) return null;
   return counts.reduce((product, c) => product * c, 1);
 }

@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { Link, useParams } from "react-router";
 import type { SweepDetailDto } from "@loopyard/core";
 import { isSweepActive, useSweep } from "../../api/use-sweeps.js";
@@ -10,6 +11,9 @@ import { PageHeader } from "../../components/page-header.js";
 import { ProgressBar } from "../../components/progress-bar.js";
 import { FrontPanel } from "../fronts/front-panel.js";
 import { criterionShortLabel } from "../fronts/criterion-label.js";
+import { scenarioSummary } from "../fronts/front-panel.js";
+import { plantKindShort } from "../plants/plant-kind.js";
+import { STRUCTURES } from "./structure-choices.js";
 import { useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { SweepStatusBadge } from "./sweep-status.js";
 
@@ -44,7 +48,8 @@ export function SweepDetailPage() {
             <Link to={`/w/${slug}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="text-ink hover:text-moss">
               {s.plant.name}
             </Link>{" "}
-            <span className="font-mono text-xs">rev {s.plant.revisionNumber}</span> · started {formatDateTime(s.createdAt)} by {s.createdBy.name}
+            <span className="font-mono text-xs">rev {s.plant.revisionNumber}</span>
+            {s.plant.kind ? <span className="text-xs"> ({plantKindShort(s.plant.kind)})</span> : null} · started {formatDateTime(s.createdAt)} by {s.createdBy.name}
             {s.finishedAt ? <> · finished {formatDateTime(s.finishedAt)}</> : null}
           </>
         }
@@ -76,36 +81,50 @@ export function SweepDetailPage() {
 
 function Definition({ sweep }: { sweep: SweepDetailDto }) {
   const d = sweep.definition;
-  const range = (name: "kp" | "ki" | "kd") => {
+  const fixed: Record<string, number> = { ...(d.fixed ?? {}) };
+  if (d.sampleTime !== undefined) fixed.sampleTime = d.sampleTime;
+  const names = [...Object.keys(d.ranges), ...Object.keys(fixed).filter((n) => !(n in d.ranges))];
+  const value = (name: string) => {
     const r = d.ranges[name];
+    if (!r) return formatNumber(fixed[name]);
     return r.count === 1 ? formatNumber(r.min) : `${formatNumber(r.min)} … ${formatNumber(r.max)} × ${r.count}`;
   };
+  const antiWindup = d.antiWindup
+    ? d.antiWindup.kind === "back-calculation"
+      ? `back-calculation${d.antiWindup.tt !== undefined ? `, tt = ${formatNumber(d.antiWindup.tt)} s` : ""}`
+      : d.antiWindup.kind === "conditional"
+        ? "conditional integration"
+        : "none"
+    : null;
+  const options = d.criterionOptions;
+  const optionText = [
+    options?.q !== undefined ? `q = ${formatNumber(options.q)}` : null,
+    options?.r !== undefined ? `r = ${formatNumber(options.r)}` : null,
+    options?.settlingBand !== undefined ? `band ±${formatNumber(options.settlingBand * 100)} %` : null,
+  ].filter((t) => t !== null);
+  const item = (label: ReactNode, body: ReactNode, mono = true, key?: string) => (
+    <div key={key}>
+      <dt className={`text-xs text-ink-soft ${mono && typeof label === "string" && key ? "font-mono" : ""}`}>{label}</dt>
+      <dd className={mono ? "font-mono text-[13px]" : "text-[13px]"}>{body}</dd>
+    </div>
+  );
   return (
-    <dl className="grid grid-cols-2 gap-x-6 gap-y-2 rounded-lg border border-line bg-sheet px-5 py-3 text-sm sm:grid-cols-4 lg:grid-cols-7" data-testid="sweep-definition">
-      {(["kp", "ki", "kd"] as const).map((p) => (
-        <div key={p}>
-          <dt className="font-mono text-xs text-ink-soft">{p}</dt>
-          <dd className="font-mono text-[13px]">{range(p)}</dd>
-        </div>
-      ))}
-      <div>
-        <dt className="text-xs text-ink-soft">Derivative filter</dt>
-        <dd className="font-mono text-[13px]">{d.filter.mode === "ratio" ? `tf = Td/${formatNumber(d.filter.n)}` : `tf = ${formatNumber(d.filter.tf)} s`}</dd>
-      </div>
-      <div>
-        <dt className="text-xs text-ink-soft">Horizon · step</dt>
-        <dd className="font-mono text-[13px]">
-          {formatNumber(d.scenario.horizon)} s · {formatNumber(d.scenario.dt)} s
-        </dd>
-      </div>
-      <div>
-        <dt className="text-xs text-ink-soft">Candidates</dt>
-        <dd className="font-mono text-[13px]">{sweep.total}</dd>
-      </div>
-      <div>
-        <dt className="text-xs text-ink-soft">Criteria</dt>
-        <dd className="text-[13px]">{sweep.criteria.map(criterionShortLabel).join(", ")}</dd>
-      </div>
+    <dl className="grid grid-cols-2 gap-x-6 gap-y-2 rounded-lg border border-line bg-sheet px-5 py-3 text-sm sm:grid-cols-4 lg:grid-cols-6" data-testid="sweep-definition">
+      {item("Structure", STRUCTURES[d.structure]?.label ?? d.structure, false)}
+      {names.map((name) => item(name, value(name), true, name))}
+      {d.filter ? item("Derivative filter", d.filter.mode === "ratio" ? `tf = Td/${formatNumber(d.filter.n)}` : `tf = ${formatNumber(d.filter.tf)} s`) : null}
+      {antiWindup ? item("Anti-windup", antiWindup, false) : null}
+      {item("Scenario", scenarioSummary(d.scenario), false)}
+      {item("Horizon · step", `${formatNumber(d.scenario.horizon)} s · ${formatNumber(d.scenario.dt)} s`)}
+      {item("Candidates", sweep.total)}
+      {item(
+        "Criteria",
+        <>
+          {sweep.criteria.map(criterionShortLabel).join(", ")}
+          {optionText.length > 0 ? <span className="text-ink-soft"> ({optionText.join(", ")})</span> : null}
+        </>,
+        false,
+      )}
     </dl>
   );
 }

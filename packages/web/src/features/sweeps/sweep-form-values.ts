@@ -1,35 +1,95 @@
-import { DEFAULT_SWEEP_CRITERIA, sweepInputSchema, type CriterionId, type SweepInput } from "@loopyard/core";
+import { DEFAULT_SWEEP_CRITERIA, sweepInputSchema, type ControllerKind, type CriterionId, type ScenarioKind, type SweepInput } from "@loopyard/core";
 import type { Resolver } from "react-hook-form";
-import { fieldErrors } from "../../forms/field-errors.js";
+import { dottedPath, fieldErrors, type FieldIssue } from "../../forms/field-errors.js";
 import { toResolverErrors } from "../../forms/resolver-errors.js";
+import { ALL_PARAMETER_KEYS, parameterKey, parameterRows } from "./structure-choices.js";
 
-interface RangeValues {
+export interface RangeValues {
   min: number;
   max: number;
   count: number;
 }
 
-/** What the sweep form holds; paths match sweepInputSchema so that schema and server errors land on the fields. */
+export type AntiWindupChoice = "default" | "back-calculation" | "conditional" | "none";
+
+/**
+ * What the sweep form holds. Ranges are kept for every structure's parameters (keyed without
+ * brackets: k[2] → k2), so switching the structure keeps what was typed; only the chosen
+ * structure's rows are sent. Other paths follow sweepInputSchema so that errors land on the fields.
+ */
 export interface SweepFormValues {
   name: string;
   plantRevisionId: string;
-  ranges: { kp: RangeValues; ki: RangeValues; kd: RangeValues };
+  structure: ControllerKind;
+  ranges: Record<string, RangeValues>;
   filter: { mode: "ratio" | "fixed"; n: number; tf: number };
-  scenario: { horizon: number; dt: number };
+  sampled: boolean;
+  sampleTime: number;
+  antiWindup: { kind: AntiWindupChoice; tt: number };
+  scenario: {
+    kind: ScenarioKind;
+    horizon: number;
+    dt: number;
+    setpoint: number;
+    load: { size: number; time: number };
+    noiseOn: boolean;
+    noise: { sd: number; seed: number };
+  };
   criteria: CriterionId[];
+  criterionOptions: { q: number; r: number; settlingBand: number };
+}
+
+/** What the form needs to know of the chosen plant revision: its state names (for state feedback). */
+export interface SweepFormContext {
+  stateNames: readonly string[];
 }
 
 export const SWEEP_FORM_FIELDS = [
   "name",
   "plantRevisionId",
+  "structure",
   "ranges",
-  ...(["kp", "ki", "kd"] as const).flatMap((p) => [`ranges.${p}.min`, `ranges.${p}.max`, `ranges.${p}.count`]),
+  ...ALL_PARAMETER_KEYS.flatMap((k) => [`ranges.${k}`, `ranges.${k}.min`, `ranges.${k}.max`, `ranges.${k}.count`]),
+  "filter",
   "filter.n",
   "filter.tf",
+  "sampleTime",
+  "antiWindup",
+  "antiWindup.tt",
+  "scenario",
+  "scenario.kind",
   "scenario.horizon",
   "scenario.dt",
+  "scenario.setpoint",
+  "scenario.load",
+  "scenario.load.size",
+  "scenario.load.time",
+  "scenario.noise",
+  "scenario.noise.sd",
+  "scenario.noise.seed",
   "criteria",
+  "criterionOptions.q",
+  "criterionOptions.r",
+  "criterionOptions.settlingBand",
 ] as const;
+
+/**
+ * The form field of an API or schema path: brackets of state gains dropped ("ranges.k[0].min" →
+ * "ranges.k0.min"), and a fixed value shown at its row ("fixed.kd" → "ranges.kd.min").
+ */
+export function formFieldOf(path: readonly PropertyKey[] | string): string {
+  const dotted = parameterKey(dottedPath(path));
+  const fixed = /^fixed\.([^.]+)$/.exec(dotted);
+  return fixed ? `ranges.${fixed[1]}.min` : dotted;
+}
+
+/** Problems keyed by form field. */
+export function sweepFieldErrors(issues: readonly FieldIssue[]): Record<string, string> {
+  return fieldErrors(
+    issues.map((i) => ({ path: formFieldOf(i.path), message: i.message })),
+    SWEEP_FORM_FIELDS,
+  );
+}
 
 /** Time samples per simulation the form proposes by default (horizon / dt). */
 const DEFAULT_SAMPLES = 1000;
@@ -43,38 +103,96 @@ export function defaultTimeStep(horizon: number): number {
   return Number((step * decade).toPrecision(12));
 }
 
+/** Starting grids per parameter: a few values over a range that suits plants of unit gain. */
+const DEFAULT_RANGES: Record<string, RangeValues> = {
+  kp: { min: 0.5, max: 5, count: 5 },
+  ki: { min: 0.05, max: 1, count: 5 },
+  kd: { min: 0, max: 4, count: 3 },
+  b: { min: 0.5, max: 1, count: 2 },
+  c: { min: 0, max: 0, count: 1 },
+  k: { min: 0.5, max: 5, count: 6 },
+  tLead: { min: 1, max: 10, count: 5 },
+  tLag: { min: 0.1, max: 1, count: 3 },
+  n: { min: 1, max: 1, count: 1 },
+};
+
+function defaultRanges(): Record<string, RangeValues> {
+  const ranges: Record<string, RangeValues> = { ...DEFAULT_RANGES };
+  for (let i = 0; i < 10; i++) ranges[`k${i}`] = i < 3 ? { min: 0, max: 2, count: 3 } : { min: 0, max: 0, count: 1 };
+  return ranges;
+}
+
 export function defaultSweepForm(plantRevisionId = "", horizon = 60): SweepFormValues {
   return {
     name: "",
     plantRevisionId,
-    ranges: {
-      kp: { min: 0.5, max: 5, count: 5 },
-      ki: { min: 0.05, max: 1, count: 5 },
-      kd: { min: 0, max: 4, count: 3 },
-    },
+    structure: "pid",
+    ranges: defaultRanges(),
     filter: { mode: "ratio", n: 10, tf: 0.1 },
-    scenario: { horizon, dt: defaultTimeStep(horizon) },
+    sampled: false,
+    sampleTime: 0.1,
+    antiWindup: { kind: "default", tt: 1 },
+    scenario: {
+      kind: "setpoint-step",
+      horizon,
+      dt: defaultTimeStep(horizon),
+      setpoint: 1,
+      load: { size: 1, time: 0 },
+      noiseOn: false,
+      noise: { sd: 0.01, seed: 1 },
+    },
     criteria: [...DEFAULT_SWEEP_CRITERIA],
+    criterionOptions: { q: 1, r: 1, settlingBand: 0.02 },
   };
 }
 
-/** The form values as the API's sweep input (only the chosen filter's number is sent). */
-export function toSweepInput(values: SweepFormValues): SweepInput {
-  return {
+/** The counts of the rows the chosen structure sweeps, in row order. */
+export function structureCounts(values: Pick<SweepFormValues, "structure" | "ranges">, context: SweepFormContext): number[] {
+  return parameterRows(values.structure, context.stateNames).map((row) => values.ranges?.[row.key]?.count ?? Number.NaN);
+}
+
+/** The form values as the API's sweep input: only the chosen structure's rows and the fields its scenario uses. */
+export function toSweepInput(values: SweepFormValues, context: SweepFormContext): SweepInput {
+  const kind = values.structure;
+  const ranges: Record<string, RangeValues> = {};
+  for (const row of parameterRows(kind, context.stateNames)) {
+    const r = values.ranges?.[row.key] ?? { min: Number.NaN, max: Number.NaN, count: Number.NaN };
+    ranges[row.name] = { min: r.min, max: r.count === 1 && Number.isNaN(r.max) ? r.min : r.max, count: r.count };
+  }
+  const s = values.scenario;
+  const input: SweepInput = {
     name: values.name,
     plantRevisionId: values.plantRevisionId,
-    structure: "pid",
-    ranges: values.ranges,
-    filter: values.filter.mode === "ratio" ? { mode: "ratio", n: values.filter.n } : { mode: "fixed", tf: values.filter.tf },
-    scenario: { kind: "setpoint-step", horizon: values.scenario.horizon, dt: values.scenario.dt },
+    structure: kind,
+    ranges,
+    scenario: {
+      kind: s.kind,
+      horizon: s.horizon,
+      dt: s.dt,
+      ...(s.kind !== "load-step" ? { setpoint: s.setpoint } : {}),
+      ...(s.kind !== "setpoint-step" ? { load: { size: s.load.size, time: s.load.time } } : {}),
+      ...(s.noiseOn ? { noise: { sd: s.noise.sd, seed: s.noise.seed } } : {}),
+    },
     criteria: Array.isArray(values.criteria) ? values.criteria : values.criteria ? [values.criteria] : [],
   };
+  if (kind === "pid" || kind === "pid2dof") {
+    input.filter = values.filter.mode === "ratio" ? { mode: "ratio", n: values.filter.n } : { mode: "fixed", tf: values.filter.tf };
+  }
+  if (values.sampled) input.sampleTime = values.sampleTime;
+  const aw = values.antiWindup;
+  if (aw.kind === "none" || aw.kind === "conditional") input.antiWindup = { kind: aw.kind };
+  if (aw.kind === "back-calculation") input.antiWindup = { kind: "back-calculation", tt: aw.tt };
+  const options: NonNullable<SweepInput["criterionOptions"]> = {};
+  if (input.criteria?.includes("quadratic")) Object.assign(options, { q: values.criterionOptions.q, r: values.criterionOptions.r });
+  if (input.criteria?.includes("settlingTime")) options.settlingBand = values.criterionOptions.settlingBand;
+  if (Object.keys(options).length > 0) input.criterionOptions = options;
+  return input;
 }
 
 /** react-hook-form resolver: checks the input with the shared sweepInputSchema and puts each problem at its field. */
-export const sweepFormResolver: Resolver<SweepFormValues, unknown, SweepInput> = async (values) => {
-  const input = toSweepInput(values);
+export const sweepFormResolver: Resolver<SweepFormValues, SweepFormContext, SweepInput> = async (values, context) => {
+  const input = toSweepInput(values, context ?? { stateNames: [] });
   const parsed = sweepInputSchema.safeParse(input);
   if (parsed.success) return { values: input, errors: {} };
-  return { values: {}, errors: toResolverErrors<SweepFormValues>(fieldErrors(parsed.error.issues, SWEEP_FORM_FIELDS)) };
+  return { values: {}, errors: toResolverErrors<SweepFormValues>(sweepFieldErrors(parsed.error.issues)) };
 };

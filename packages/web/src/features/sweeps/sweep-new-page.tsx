@@ -1,7 +1,7 @@
-import { useEffect, useState } from "react";
-import { useForm, useWatch } from "react-hook-form";
+import { useEffect, useMemo, useRef, useState } from "react";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { useNavigate, useSearchParams } from "react-router";
-import { CRITERION_IDS, MAX_SIMULATION_SAMPLES, MAX_SWEEP_CANDIDATES, type SweepInput } from "@loopyard/core";
+import { MAX_SWEEP_CANDIDATES, type SweepInput } from "@loopyard/core";
 import { usePlant, usePlants } from "../../api/use-plants.js";
 import { useCreateSweep } from "../../api/use-sweeps.js";
 import { Button, ButtonLink } from "../../components/button.js";
@@ -13,18 +13,25 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { Section } from "../../components/section.js";
 import { applyServerErrors } from "../../forms/apply-server-errors.js";
-import { criterionDescription, criterionShortLabel } from "../fronts/criterion-label.js";
+import { plantKindShort } from "../plants/plant-kind.js";
+import { hasLimits, plantStateNames } from "../plants/plant-summary.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { candidateCount, isWithinCandidateCap } from "./candidate-count.js";
-import { SWEEP_FORM_FIELDS, defaultSweepForm, defaultTimeStep, sweepFormResolver, type SweepFormValues } from "./sweep-form-values.js";
+import { CriteriaSection } from "./criteria-section.js";
+import { ScenarioSection } from "./scenario-section.js";
+import { StructureSection } from "./structure-section.js";
+import { STRUCTURES, parameterRows } from "./structure-choices.js";
+import {
+  SWEEP_FORM_FIELDS,
+  defaultSweepForm,
+  defaultTimeStep,
+  formFieldOf,
+  structureCounts,
+  sweepFormResolver,
+  type SweepFormValues,
+} from "./sweep-form-values.js";
 
-const GAINS = [
-  { key: "kp", label: "kp", unit: "proportional gain" },
-  { key: "ki", label: "ki", unit: "integral gain [1/s]" },
-  { key: "kd", label: "kd", unit: "derivative gain [s]" },
-] as const;
-
-/** /w/:slug/sweeps/new — a PID grid on one plant revision. */
+/** /w/:slug/sweeps/new — a grid over one controller structure's parameters on one plant revision. */
 export function SweepNewPage() {
   const { slug, workspace, role, canEdit } = useWorkspaceRole();
   const [params] = useSearchParams();
@@ -36,20 +43,37 @@ export function SweepNewPage() {
   const [failure, setFailure] = useState<unknown>(null);
   const refusal = workspace.data && !canEdit ? roleSentence("Running sweeps", "engineer", workspace.data.workspace.name, role) : null;
 
-  const form = useForm<SweepFormValues, unknown, SweepInput>({ defaultValues: defaultSweepForm(params.get("revision") ?? ""), resolver: sweepFormResolver });
+  // The resolver reads the plant's state names when it runs (state feedback has one gain per state).
+  const stateNamesRef = useRef<readonly string[]>([]);
+  const resolver = useMemo<Resolver<SweepFormValues, unknown, SweepInput>>(
+    () => (values, _context, options) => sweepFormResolver(values, { stateNames: stateNamesRef.current }, options),
+    [],
+  );
+  const form = useForm<SweepFormValues, unknown, SweepInput>({ defaultValues: defaultSweepForm(params.get("revision") ?? ""), resolver });
   const { register, handleSubmit, formState, setError, setValue, getValues, control } = form;
   const errors = formState.errors;
+
+  // The plant's model (its latest revision; the server checks an earlier revision's state count itself).
+  const revisionModel = plant.data?.revision.model ?? null;
+  const stateNames = useMemo(() => (revisionModel ? plantStateNames(revisionModel) : []), [revisionModel]);
+  stateNamesRef.current = stateNames;
+
+  const structure = useWatch({ control, name: "structure" });
   const ranges = useWatch({ control, name: "ranges" });
   const filterMode = useWatch({ control, name: "filter.mode" });
+  const sampled = useWatch({ control, name: "sampled" });
+  const antiWindup = useWatch({ control, name: "antiWindup.kind" });
   const scenario = useWatch({ control, name: "scenario" });
-  const count = candidateCount(ranges);
+  const criteria = useWatch({ control, name: "criteria" });
+  const counts = structureCounts({ structure, ranges }, { stateNames });
+  const count = candidateCount(counts);
 
   // Pick the first plant when none was asked for.
   useEffect(() => {
     if (!plantId && plants.data && plants.data.length > 0) setPlantId(plants.data[0].id);
   }, [plantId, plants.data]);
 
-  // When a plant loads: choose its latest revision (unless a listed one is chosen), a horizon from its step response, and a name.
+  // When a plant loads: choose its latest revision (unless a listed one is chosen), a horizon from its step response.
   useEffect(() => {
     if (!plant.data) return;
     const { revisions, plant: summary, step } = plant.data;
@@ -57,9 +81,16 @@ export function SweepNewPage() {
     const horizon = step.t.length > 0 ? Number(step.t[step.t.length - 1].toPrecision(3)) : 60;
     if (!formState.dirtyFields.scenario?.horizon) setValue("scenario.horizon", horizon);
     if (!formState.dirtyFields.scenario?.dt) setValue("scenario.dt", defaultTimeStep(horizon));
-    if (!formState.dirtyFields.name) setValue("name", `${summary.name} PID grid`);
+    if (getValues("structure") === "state-feedback" && plantStateNames(plant.data.revision.model).length === 0) setValue("structure", "pid");
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [plant.data]);
+
+  // A name from the plant and the structure, until the user types one.
+  useEffect(() => {
+    if (!plant.data || formState.dirtyFields.name) return;
+    setValue("name", `${plant.data.plant.name} ${STRUCTURES[structure].label} grid`);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [plant.data, structure]);
 
   const submit = handleSubmit(async (input) => {
     setFailure(null);
@@ -67,7 +98,7 @@ export function SweepNewPage() {
       const created = await create.mutateAsync(input);
       navigate(`/w/${slug}/sweeps/${created.id}`);
     } catch (error) {
-      if (!applyServerErrors(error, SWEEP_FORM_FIELDS, setError)) setFailure(error);
+      if (!applyServerErrors(error, SWEEP_FORM_FIELDS, setError, formFieldOf)) setFailure(error);
     }
   });
 
@@ -96,17 +127,24 @@ export function SweepNewPage() {
 
   const samples = scenario.dt > 0 ? Math.ceil(scenario.horizon / scenario.dt) : null;
   const overCap = count !== null && !isWithinCandidateCap(count);
+  const rows = parameterRows(structure, stateNames);
+  const rangesErrors = errors.ranges as { message?: string; root?: { message?: string } } | undefined;
+  const rangesMessage = rangesErrors?.message ?? rangesErrors?.root?.message;
 
   return (
     <div data-testid="sweep-new-page">
-      <PageHeader title="New sweep" subtitle="A grid of PID gains on one plant revision; every candidate is simulated under a unit setpoint step and scored." back={back} />
+      <PageHeader
+        title="New sweep"
+        subtitle="A grid over the parameters of one controller structure on one plant revision; every candidate is simulated in the chosen scenario and scored."
+        back={back}
+      />
       <form onSubmit={submit} noValidate className="grid grid-cols-1 gap-6 lg:grid-cols-3" data-testid="sweep-form">
         <div className="space-y-6 lg:col-span-2">
           {refusal ? <RoleNote sentence={refusal} /> : null}
           {failure ? <ErrorNote error={failure} title="The sweep was not started" /> : null}
-          {errors.root?.server ? (
+          {errors.root?.server || errors.root?.message ? (
             <p role="alert" data-testid="form-error" className="rounded-md border border-rust/40 bg-rust-wash px-4 py-2.5 text-sm text-rust">
-              {errors.root.server.message}
+              {errors.root?.server?.message ?? errors.root?.message}
             </p>
           ) : null}
 
@@ -115,7 +153,7 @@ export function SweepNewPage() {
               <Field label="Name" htmlFor="sweep-name" name="name" error={errors.name?.message} className="sm:col-span-2">
                 <input id="sweep-name" className={inputClass} aria-invalid={Boolean(errors.name)} {...register("name")} />
               </Field>
-              <Field label="Plant" htmlFor="sweep-plant" name="plant">
+              <Field label="Plant" htmlFor="sweep-plant" name="plant" hint={plant.data ? `${plantKindShort(plant.data.revision.model.kind)}${hasLimits(plant.data.revision.model) ? ", with actuator limits" : ""}` : undefined}>
                 <select id="sweep-plant" className={inputClass} value={plantId ?? ""} onChange={(e) => setPlantId(e.target.value)} data-testid="sweep-plant">
                   {plants.data.map((p) => (
                     <option key={p.id} value={p.id}>
@@ -142,68 +180,18 @@ export function SweepNewPage() {
             {plant.isError ? <div className="mt-3"><ErrorNote error={plant.error} title="Could not load the plant" /></div> : null}
           </Section>
 
-          <Section title="Gains" aside="C(s) = kp + ki/s + kd·s/(tf·s + 1); count values spaced evenly from min to max">
-            <div className="grid grid-cols-[4rem_1fr_1fr_1fr] items-start gap-x-3 gap-y-3">
-              <span />
-              <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">min</span>
-              <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">max</span>
-              <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">count</span>
-              {GAINS.map((g) => (
-                <GainRow key={g.key} gain={g} register={register} errors={errors.ranges?.[g.key]} />
-              ))}
-            </div>
-          </Section>
-
-          <Section title="Derivative filter" aside="first-order filter on the derivative term">
-            <div className="flex flex-wrap items-start gap-6">
-              <label className="flex items-center gap-2 pt-1.5 text-sm">
-                <input type="radio" value="ratio" className="accent-moss" {...register("filter.mode")} />
-                tf = Td / n, with Td = kd/kp
-              </label>
-              <Field label="n" htmlFor="filter-n" name="filter.n" error={errors.filter?.n?.message} className="w-28">
-                <input id="filter-n" type="number" step="any" disabled={filterMode !== "ratio"} className={`${inputClass} font-mono`} {...register("filter.n", { valueAsNumber: true })} />
-              </Field>
-              <label className="flex items-center gap-2 pt-1.5 text-sm">
-                <input type="radio" value="fixed" className="accent-moss" {...register("filter.mode")} />
-                fixed tf
-              </label>
-              <Field label="tf [s]" htmlFor="filter-tf" name="filter.tf" error={errors.filter?.tf?.message} className="w-28">
-                <input id="filter-tf" type="number" step="any" disabled={filterMode !== "fixed"} className={`${inputClass} font-mono`} {...register("filter.tf", { valueAsNumber: true })} />
-              </Field>
-            </div>
-          </Section>
-
-          <Section title="Scenario" aside="unit setpoint step at t = 0, plant at rest">
-            <div className="grid grid-cols-2 gap-4 sm:grid-cols-3">
-              <Field label="Horizon [s]" htmlFor="horizon" name="scenario.horizon" error={errors.scenario?.horizon?.message}>
-                <input id="horizon" type="number" step="any" className={`${inputClass} font-mono`} {...register("scenario.horizon", { valueAsNumber: true })} />
-              </Field>
-              <Field
-                label="Time step dt [s]"
-                htmlFor="dt"
-                name="scenario.dt"
-                error={errors.scenario?.dt?.message}
-                hint={samples !== null && Number.isFinite(samples) ? `${samples} samples per simulation (at most ${MAX_SIMULATION_SAMPLES})` : undefined}
-              >
-                <input id="dt" type="number" step="any" className={`${inputClass} font-mono`} {...register("scenario.dt", { valueAsNumber: true })} />
-              </Field>
-            </div>
-          </Section>
-
-          <Section title="Criteria" aside="every chosen criterion is scored for every stable candidate">
-            <div className="grid grid-cols-1 gap-2 sm:grid-cols-2">
-              {CRITERION_IDS.map((c) => (
-                <label key={c} className="flex items-start gap-2 text-sm">
-                  <input type="checkbox" value={c} className="mt-0.5 accent-moss" {...register("criteria")} />
-                  <span>
-                    <span className="font-medium">{criterionShortLabel(c)}</span>
-                    <span className="block text-xs text-ink-soft">{criterionDescription(c)}</span>
-                  </span>
-                </label>
-              ))}
-            </div>
-            {errors.criteria?.message ? <p role="alert" data-testid="field-error-criteria" className="mt-2 text-xs text-rust">{errors.criteria.message}</p> : null}
-          </Section>
+          <StructureSection
+            register={register}
+            errors={errors}
+            structure={structure}
+            stateNames={stateNames}
+            filterMode={filterMode}
+            sampled={sampled}
+            antiWindup={antiWindup}
+            hasLimits={revisionModel ? hasLimits(revisionModel) : null}
+          />
+          <ScenarioSection register={register} errors={errors} kind={scenario.kind} noiseOn={scenario.noiseOn} samples={samples} />
+          <CriteriaSection register={register} errors={errors} chosen={Array.isArray(criteria) ? criteria : []} scenarioKind={scenario.kind} />
         </div>
 
         <aside>
@@ -213,8 +201,8 @@ export function SweepNewPage() {
               <div className={`font-mono text-3xl tabular ${overCap ? "text-rust" : "text-ink"}`} data-testid="candidate-count">
                 {count ?? "—"}
               </div>
-              <div className="font-mono text-xs text-ink-soft">
-                {ranges.kp.count || "?"} × {ranges.ki.count || "?"} × {ranges.kd.count || "?"}
+              <div className="font-mono text-xs text-ink-soft" data-testid="candidate-product">
+                {rows.map((row, i) => `${row.name} ${Number.isFinite(counts[i]) ? counts[i] : "?"}`).join(" × ")}
               </div>
             </div>
             <p className={`text-xs ${overCap ? "text-rust" : "text-ink-soft"}`} data-testid="candidate-cap">
@@ -222,9 +210,9 @@ export function SweepNewPage() {
                 ? `${count} is more than the ${MAX_SWEEP_CANDIDATES} candidates one sweep may hold; lower a count.`
                 : `One sweep holds at most ${MAX_SWEEP_CANDIDATES} candidates, so that it runs in about a minute on the shared server without holding up others.`}
             </p>
-            {!overCap && (errors.ranges?.message || errors.ranges?.root?.message) ? (
+            {!overCap && rangesMessage ? (
               <p role="alert" data-testid="field-error-ranges" className="text-xs text-rust">
-                {errors.ranges?.message ?? errors.ranges?.root?.message}
+                {rangesMessage}
               </p>
             ) : null}
             <Button type="submit" tone="primary" className="w-full" disabled={formState.isSubmitting || Boolean(refusal) || !plant.data} data-testid="sweep-submit">
@@ -234,51 +222,5 @@ export function SweepNewPage() {
         </aside>
       </form>
     </div>
-  );
-}
-
-function GainRow({
-  gain,
-  register,
-  errors,
-}: {
-  gain: (typeof GAINS)[number];
-  register: ReturnType<typeof useForm<SweepFormValues, unknown, SweepInput>>["register"];
-  errors: { min?: { message?: string }; max?: { message?: string }; count?: { message?: string }; message?: string; root?: { message?: string } } | undefined;
-}) {
-  const key = gain.key;
-  const cell = (part: "min" | "max" | "count") => {
-    const message = errors?.[part]?.message;
-    return (
-      <div>
-        <input
-          id={`${key}-${part}`}
-          aria-label={`${gain.label} ${part}`}
-          type="number"
-          step={part === "count" ? 1 : "any"}
-          min={part === "count" ? 1 : 0}
-          className={`${inputClass} font-mono`}
-          aria-invalid={Boolean(message)}
-          data-testid={`${key}-${part}`}
-          {...register(`ranges.${key}.${part}`, { valueAsNumber: true })}
-        />
-        {message ? (
-          <p role="alert" data-testid={`field-error-ranges.${key}.${part}`} className="mt-1 text-xs text-rust">
-            {message}
-          </p>
-        ) : null}
-      </div>
-    );
-  };
-  return (
-    <>
-      <div className="pt-1.5">
-        <div className="font-mono text-sm">{gain.label}</div>
-        <div className="text-[11px] leading-tight text-ink-faint">{gain.unit}</div>
-      </div>
-      {cell("min")}
-      {cell("max")}
-      {cell("count")}
-    </>
   );
 }

@@ -4,15 +4,15 @@ import { candidateCount, isWithinCandidateCap } from "../../../src/features/swee
 
 describe("candidateCount", () => {
   // A full grid holds every combination: |kp| · |ki| · |kd| (closed form: product of the counts).
-  it("candidateCount multiplies the three counts: 5 × 5 × 1 = 25", () => {
-    expect(candidateCount({ kp: { count: 5 }, ki: { count: 5 }, kd: { count: 1 } })).toBe(25);
-    expect(candidateCount({ kp: { count: 6 }, ki: { count: 6 }, kd: { count: 4 } })).toBe(144);
+  it("candidateCount multiplies the counts of every swept parameter: 5 × 5 × 1 = 25", () => {
+    expect(candidateCount([5, 5, 1])).toBe(25);
+    expect(candidateCount([6, 6, 4])).toBe(144);
   });
 
   it("candidateCount is null while a count is missing, fractional or below 1", () => {
-    expect(candidateCount({ kp: { count: Number.NaN }, ki: { count: 5 }, kd: { count: 1 } })).toBeNull();
-    expect(candidateCount({ kp: { count: 2.5 }, ki: { count: 5 }, kd: { count: 1 } })).toBeNull();
-    expect(candidateCount({ kp: { count: 0 }, ki: { count: 5 }, kd: { count: 1 } })).toBeNull();
+    expect(candidateCount([Number.NaN, 5, 1])).toBeNull();
+    expect(candidateCount([2.5, 5, 1])).toBeNull();
+    expect(candidateCount([0, 5, 1])).toBeNull();
   });
 
   it("isWithinCandidateCap allows exactly the cap and refuses one more", () => {
