@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createApp, DEMO_PASSWORD, DEMO_SWEEP_NAME, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "../../packages/server/src/index.js";
+import { createApp, DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_SWEEP_NAME, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "../../packages/server/src/index.js";
 import type { LoopyardApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient } from "./api-client.js";
@@ -25,7 +25,7 @@ afterAll(async () => {
 describe("demo seed", () => {
   it("when the seed runs on a seeded database, then it changes nothing", async () => {
     const report = await seedDemo(loopyard.db, loopyard.auth, loopyard.runner);
-    expect(report).toEqual({ usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepCreated: false });
+    expect(report).toEqual({ usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepsCreated: 0 });
   });
 
   it("when each demo user signs in with the demo password, then they hold their documented role", async () => {
@@ -55,5 +55,30 @@ describe("demo seed", () => {
     const front = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps/${demo.id}/front?x=iae&y=effort`);
     expect(front.status).toBe(200);
     expect(front.body.indices.length).toBeGreaterThan(1);
+  });
+
+  it("when the demo library is read, then it also holds a state-space and a nonlinear Ember plate with a finished PI load-step sweep", async () => {
+    const jon = new ApiClient(server.url);
+    await jon.signIn("jon@halvard.example", DEMO_PASSWORD);
+    const plants = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/plants`);
+    const kinds = Object.fromEntries(plants.body.map((p: { name: string; kind: string }) => [p.name, p.kind]));
+    expect(kinds).toMatchObject({ "Ember 600 plate (state-space)": "state-space", "Ember 800 plate (radiative)": "nonlinear" });
+
+    const radiative = plants.body.find((p: { name: string }) => p.name === "Ember 800 plate (radiative)");
+    const detail = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/plants/${radiative.id}`);
+    expect(detail.status).toBe(200);
+    expect(detail.body.polesNote).not.toBeNull();
+    // Linearisation at T = 0: d(dT/dt)/dT = −(h + 4·e·Ta³)/c = −(2 + 4·2e-9·293³)/400 (closed form).
+    expect(detail.body.poles[0].re).toBeCloseTo(-(2 + 4 * 2e-9 * 293 ** 3) / 400, 6);
+    // Full power heats the plate: the open-loop step rises and stays finite.
+    const y = detail.body.step.y as number[];
+    expect(y[y.length - 1]).toBeGreaterThan(100);
+
+    const sweeps = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps`);
+    const load = sweeps.body.find((s: { name: string }) => s.name === DEMO_LOAD_SWEEP_NAME);
+    expect(load).toMatchObject({ status: "finished", total: 64, done: 64, plant: { name: "Ember 600 plate (state-space)", kind: "state-space" } });
+    const sweep = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps/${load.id}`);
+    expect(sweep.body.definition).toMatchObject({ structure: "pi", scenario: { kind: "load-step" } });
+    expect(sweep.body.parameters).toEqual(["kp", "ki"]);
   });
 });

@@ -34,3 +34,15 @@ export async function workspaceWithTeam(baseUrl: string, label: string) {
     anonymous: new ApiClient(baseUrl),
   };
 }
+
+/** Polls a sweep until it is finished or failed (or the timeout passes); returns its SweepDetailDto. */
+export async function waitForSweep(client: ApiClient, slug: string, sweepId: string, timeoutMs = 45_000) {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const response = await client.get(`/api/workspaces/${slug}/sweeps/${sweepId}`);
+    if (response.status !== 200) throw new Error(`reading sweep ${sweepId} answered ${response.status}`);
+    if (response.body.status === "finished" || response.body.status === "failed") return response.body;
+    if (Date.now() > deadline) throw new Error(`sweep ${sweepId} still ${response.body.status} (${response.body.done}/${response.body.total})`);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+}

@@ -26,14 +26,15 @@ describe("sweep resume", () => {
   it("when the server stops mid-sweep and a new one starts, then the sweep resumes and stores every candidate exactly once", async () => {
     const team = await workspaceWithTeam(first.url, "Resume");
     const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Resume bench"));
-    // 10 × 10 × 10 candidates at 24 001 samples each: long enough (seconds) to stop it part-way.
+    // 10 × 10 × 10 candidates at 60 001 samples each, with criteria that need the whole trace (tv, settling
+    // time; core's scores-only path covers only IAE, ISE, ITAE and effort): long enough (seconds) to stop it part-way.
     const created = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, {
       name: "Long grid",
       plantRevisionId: plant.body.revision.id,
       ranges: { kp: { min: 0.5, max: 5, count: 10 }, ki: { min: 0.1, max: 2, count: 10 }, kd: { min: 0, max: 1, count: 10 } },
       filter: { mode: "ratio", n: 10 },
-      scenario: { horizon: 120, dt: 0.005 },
-      criteria: ["iae", "effort"],
+      scenario: { horizon: 120, dt: 0.002 },
+      criteria: ["iae", "effort", "tv", "settlingTime"],
     });
     expect(created.status).toBe(201);
     const path = `/api/workspaces/${team.slug}/sweeps/${created.body.id}`;
