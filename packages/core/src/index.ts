@@ -137,6 +137,15 @@ export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
 export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
 export { isLoopStable } from "./simulation/evaluate-candidate.js";
 
+
+// Optimal control: Lyapunov and Riccati solvers, exact quadratic costs, the LQR bound and its curve.
+export { MAX_LYAPUNOV_ORDER, solveLyapunov } from "./optimal/solve-lyapunov.js";
+export { CARE_RESIDUAL_LIMIT, solveCare } from "./optimal/solve-care.js";
+export { solveRde } from "./optimal/solve-rde.js";
+export { exactQuadraticCosts } from "./optimal/exact-quadratic-costs.js";
+export { lqrBound } from "./optimal/lqr-bound.js";
+export { DEFAULT_BOUND_RATIOS, boundCurve } from "./optimal/bound-curve.js";
+
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
@@ -191,3 +200,9 @@ export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
 export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
 export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
 export type { EvaluateCandidateOptions } from "./simulation/evaluate-candidate.js";
+export type { LyapunovSolution } from "./optimal/solve-lyapunov.js";
+export type { CareResult, CareSolution } from "./optimal/solve-care.js";
+export type { RdeResult } from "./optimal/solve-rde.js";
+export type { ExactCostScenario, ExactQuadraticCosts } from "./optimal/exact-quadratic-costs.js";
+export type { LqrBound, LqrBoundOptions } from "./optimal/lqr-bound.js";
+export type { BoundCurve, BoundCurvePoint } from "./optimal/bound-curve.js";

@@ -2,6 +2,7 @@
 // The `loopyard` command line: evaluate one candidate or run a sweep (see packages/core/README.md, "CLI").
 import { availableParallelism } from "node:os";
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_UNEXPECTED, isCliInputError } from "./cli-error.js";
+import { boundCommand } from "./bound-command.js";
 import { evaluateCommand } from "./evaluate-command.js";
 import { parseArguments, USAGE } from "./parse-arguments.js";
 import { sweepCommand } from "./sweep-command.js";
@@ -21,6 +22,10 @@ async function main(argv: readonly string[]): Promise<number> {
     }
     if (parsed.command === "evaluate") {
       process.stdout.write(`${await evaluateCommand(parsed.source)}\n`);
+      return EXIT_OK;
+    }
+    if (parsed.command === "bound") {
+      process.stdout.write(`${await boundCommand(parsed.source)}\n`);
       return EXIT_OK;
     }
     await sweepCommand(parsed.source, {
