@@ -2,6 +2,7 @@
 // The `loopyard` command line: evaluate one candidate or run a sweep (see packages/core/README.md, "CLI").
 import { availableParallelism } from "node:os";
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_UNEXPECTED, isCliInputError } from "./cli-error.js";
+import { baselinesCommand } from "./baselines-command.js";
 import { boundCommand } from "./bound-command.js";
 import { evaluateCommand } from "./evaluate-command.js";
 import { parseArguments, USAGE } from "./parse-arguments.js";
@@ -22,6 +23,10 @@ async function main(argv: readonly string[]): Promise<number> {
     }
     if (parsed.command === "evaluate") {
       process.stdout.write(`${await evaluateCommand(parsed.source)}\n`);
+      return EXIT_OK;
+    }
+    if (parsed.command === "baselines") {
+      process.stdout.write(`${await baselinesCommand(parsed.source)}\n`);
       return EXIT_OK;
     }
     if (parsed.command === "bound") {

@@ -6,6 +6,7 @@ export type CliCommand =
   | { command: "help" }
   | { command: "evaluate"; source: string }
   | { command: "bound"; source: string }
+  | { command: "baselines"; source: string }
   | { command: "sweep"; source: string; workers: number; format: SweepFormat; out?: string };
 
 /** Usage text printed by `loopyard help`. */
@@ -16,6 +17,7 @@ export const USAGE = `Usage:
     --format csv|jsonl            output format (default: csv, or jsonl when --out ends in .jsonl)
     --out FILE                    write to FILE instead of standard output
   loopyard bound FILE|-           solve the LQR problem { A, B, Q, R, x0 }; prints { K, P, poles, cost } as JSON
+  loopyard baselines FILE|-       published tuning rules for a plant, each scored; prints { baselines } as JSON
   loopyard help                   this text
 Spec formats: packages/core/README.md, section "CLI". Exit codes: 0 done, 2 bad input, 1 unexpected error.`;
 
@@ -26,7 +28,7 @@ Spec formats: packages/core/README.md, section "CLI". Exit codes: 0 done, 2 bad 
 export function parseArguments(argv: readonly string[], defaultWorkers: number): CliCommand {
   const [command, ...rest] = argv;
   if (command === undefined || command === "help" || command === "--help" || command === "-h") return { command: "help" };
-  if (command !== "evaluate" && command !== "sweep" && command !== "bound") {
+  if (command !== "evaluate" && command !== "sweep" && command !== "bound" && command !== "baselines") {
     throw new CliInputError(`${command}: unknown command; use "loopyard evaluate FILE" or "loopyard sweep FILE" (loopyard help lists the options).`);
   }
   const positional: string[] = [];
@@ -46,7 +48,7 @@ export function parseArguments(argv: readonly string[], defaultWorkers: number):
   if (positional.length === 0) throw new CliInputError(`FILE: give the spec file of loopyard ${command}${command === "sweep" ? "" : " (or - for standard input)"}.`);
   if (positional.length > 1) throw new CliInputError(`${positional[1]}: loopyard ${command} takes one spec file.`);
   const source = positional[0];
-  if (command === "evaluate" || command === "bound") return { command, source };
+  if (command === "evaluate" || command === "bound" || command === "baselines") return { command, source };
   if (source === "-") throw new CliInputError("FILE: loopyard sweep reads its spec from a file, not standard input.");
   let workers = defaultWorkers;
   if (flags.workers !== undefined) {
