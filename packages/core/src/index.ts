@@ -76,7 +76,29 @@ export { RISE_HIGH_FRACTION, RISE_LOW_FRACTION, riseTime, riseTimeCriterion } fr
 export { DEFAULT_SETTLING_BAND, settlingTime, settlingTimeCriterion } from "./criteria/settling-time.js";
 export { steadyStateError, steadyStateErrorCriterion } from "./criteria/steady-state-error.js";
 export { stepReference } from "./criteria/step-reference.js";
+export { ms, msCriterion } from "./criteria/ms.js";
+export { mt, mtCriterion } from "./criteria/mt.js";
+export { gainMargin, gainMarginCriterion } from "./criteria/gain-margin.js";
+export { phaseMargin, phaseMarginCriterion } from "./criteria/phase-margin.js";
+export { crossoverFrequency, crossoverFrequencyCriterion } from "./criteria/crossover-frequency.js";
+export { bandwidth, bandwidthCriterion } from "./criteria/bandwidth.js";
+export { wsNorm, wsNormCriterion } from "./criteria/ws-norm.js";
 export { CRITERIA } from "./criteria/registry.js";
+
+// Frequency domain: L, S, T on an adaptive grid; peaks, crossovers, bandwidth, weights.
+export {
+  BANDWIDTH_LEVEL,
+  PHASE_CROSSOVER_MIN_GAIN,
+  POINTS_PER_DECADE,
+  assertValidLoop,
+  frequencyResponse,
+  sensitivityTail,
+} from "./frequency/frequency-response.js";
+export { loopFrequencyResponse } from "./frequency/frequency-response-cache.js";
+export { frequencySpan } from "./frequency/frequency-span.js";
+export { weightedSensitivityPeak } from "./frequency/weighted-sensitivity-peak.js";
+export { assertValidWeight } from "./frequency/sensitivity-weight.js";
+export { performanceWeight } from "./frequency/performance-weight.js";
 
 // Expressions (nonlinear plants typed as text).
 export { compileExpression } from "./expressions/compile-expression.js";
@@ -146,6 +168,26 @@ export { exactQuadraticCosts } from "./optimal/exact-quadratic-costs.js";
 export { lqrBound } from "./optimal/lqr-bound.js";
 export { DEFAULT_BOUND_RATIOS, boundCurve } from "./optimal/bound-curve.js";
 
+// Baselines: published tuning rules from the plant model (tuning/).
+export { CANCELLATION_TOLERANCE, plantFactors } from "./tuning/plant-factors.js";
+export { REAL_ROOT_TOLERANCE, halfRule, halfRuleFopdt, halfRuleSopdt } from "./tuning/fopdt-half-rule.js";
+export { PHASE_SEARCH_POINTS_PER_DECADE, ultimatePoint } from "./tuning/ultimate-point.js";
+export { DEFAULT_FILTER_DIVISOR, tunedFromIdeal } from "./tuning/tuned-pid.js";
+export {
+  ZN_P_GAIN,
+  ZN_PI_GAIN,
+  ZN_PI_INTEGRAL_DIVISOR,
+  ZN_PID_GAIN,
+  ZN_PID_INTEGRAL_DIVISOR,
+  ZN_PID_DERIVATIVE_DIVISOR,
+  zieglerNichols,
+} from "./tuning/ziegler-nichols.js";
+export { SIMC_INTEGRAL_FACTOR, SIMC_DELAY_FREE_TAU_C_FRACTION, seriesToIdeal, simcDefaultTauC, simcPi, simcPid } from "./tuning/simc.js";
+export { amigoPi, amigoPid } from "./tuning/amigo.js";
+export { defaultLambda, imcPid, lambdaPi } from "./tuning/lambda-imc.js";
+export { BASELINE_RULES, baselines } from "./tuning/baselines.js";
+export { scoreBaselines } from "./tuning/score-baselines.js";
+
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
@@ -200,9 +242,23 @@ export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
 export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
 export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
 export type { EvaluateCandidateOptions } from "./simulation/evaluate-candidate.js";
+export type { ComplexSamples, FrequencyResponse, FrequencyResponseOptions } from "./frequency/frequency-response.js";
+export type { FrequencyPeak } from "./frequency/grid-peak.js";
+export type { FrequencySpan } from "./frequency/frequency-span.js";
+export type { SensitivityWeight } from "./frequency/sensitivity-weight.js";
+export type { PerformanceWeightConfig } from "./frequency/performance-weight.js";
 export type { LyapunovSolution } from "./optimal/solve-lyapunov.js";
 export type { CareResult, CareSolution } from "./optimal/solve-care.js";
 export type { RdeResult } from "./optimal/solve-rde.js";
 export type { ExactCostScenario, ExactQuadraticCosts } from "./optimal/exact-quadratic-costs.js";
 export type { LqrBound, LqrBoundOptions } from "./optimal/lqr-bound.js";
 export type { BoundCurve, BoundCurvePoint } from "./optimal/bound-curve.js";
+export type { PlantFactors } from "./tuning/plant-factors.js";
+export type { FopdtModel, SopdtModel, HalfRuleFit } from "./tuning/fopdt-half-rule.js";
+export type { UltimatePoint } from "./tuning/ultimate-point.js";
+export type { IdealGains, TunedPid } from "./tuning/tuned-pid.js";
+export type { ZieglerNicholsVariant } from "./tuning/ziegler-nichols.js";
+export type { SeriesGains, SimcTuning } from "./tuning/simc.js";
+export type { LambdaTuning } from "./tuning/lambda-imc.js";
+export type { Baseline, BaselineModel, BaselineOptions, BaselineRule, BaselineVariant } from "./tuning/baselines.js";
+export type { ScoredBaseline, ScoreBaselinesOptions } from "./tuning/score-baselines.js";
