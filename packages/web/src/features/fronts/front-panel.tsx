@@ -9,20 +9,27 @@ import { Loading } from "../../components/loading.js";
 import { Section } from "../../components/section.js";
 import { criterionDescription, criterionLabel, criterionShortLabel } from "./criterion-label.js";
 import { FrontChart } from "./front-chart.js";
-import { defaultAxes, frontPoints } from "./front-points.js";
+import { defaultAxes, frontPoints, plottableCriteria } from "./front-points.js";
 import { FrontTable } from "./front-table.js";
 import { ResponseChart } from "./response-chart.js";
 
 /** The results of a finished sweep: two criteria chosen, every candidate plotted, the front drawn and listed, one candidate's response. */
 export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDto }) {
-  const initial = defaultAxes(sweep.criteria);
-  const [x, setX] = useState<CriterionId>(initial.x);
-  const [y, setY] = useState<CriterionId>(initial.y);
+  const [chosenX, setX] = useState<CriterionId | null>(null);
+  const [chosenY, setY] = useState<CriterionId | null>(null);
   const [logAxes, setLogAxes] = useState(false);
   const [selected, setSelected] = useState<number | null>(null);
 
   const candidates = useCandidates(slug, sweep.id, true);
-  const front = useFront(slug, sweep.id, x, y, true);
+  // Until the user picks, plot two criteria that have finite scores in this sweep.
+  const auto = useMemo(() => defaultAxes(sweep.criteria, candidates.data?.candidates), [sweep.criteria, candidates.data]);
+  const x = chosenX ?? auto.x;
+  const y = chosenY ?? auto.y;
+  const plottable = useMemo(
+    () => (candidates.data ? plottableCriteria(candidates.data.candidates, candidates.data.criteria) : [...sweep.criteria]),
+    [candidates.data, sweep.criteria],
+  );
+  const front = useFront(slug, sweep.id, x, y, candidates.isSuccess);
   const points = useMemo(
     () => (candidates.data ? frontPoints(candidates.data.candidates, candidates.data.criteria, x, y) : []),
     [candidates.data, x, y],
@@ -37,6 +44,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         {sweep.criteria.map((c) => (
           <option key={c} value={c}>
             {criterionShortLabel(c)}
+            {plottable.includes(c) ? "" : " (no finite values)"}
           </option>
         ))}
       </select>
@@ -81,6 +89,11 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           <Section title={`${criterionShortLabel(y)} against ${criterionShortLabel(x)}`} aside="smaller is better on both axes">
             {front.isError ? (
               <ErrorNote error={front.error} title="Could not compute the front" />
+            ) : points.length === 0 ? (
+              <p className="py-16 text-center text-sm text-ink-soft" data-testid="front-no-points">
+                No stable candidate has a finite {[x, y].filter((c) => !plottable.includes(c)).map(criterionShortLabel).join(" or ") || "score"} here:
+                it does not apply to this scenario or was never reached. Choose another criterion above.
+              </p>
             ) : (
               <FrontChart
                 points={points}

@@ -25,8 +25,19 @@ export function frontPoints(candidates: readonly CandidateDto[], criteria: reado
   return points;
 }
 
-/** The two criteria plotted first: ISE against effort when the sweep scored both, else its first two. */
-export function defaultAxes(criteria: readonly CriterionId[]): { x: CriterionId; y: CriterionId } {
-  if (criteria.includes("ise") && criteria.includes("effort")) return { x: "ise", y: "effort" };
-  return { x: criteria[0], y: criteria[1] ?? criteria[0] };
+/** The criteria for which at least one stable candidate has a finite score (the others cannot be plotted). */
+export function plottableCriteria(candidates: readonly CandidateDto[], criteria: readonly CriterionId[]): CriterionId[] {
+  return criteria.filter((_, i) => candidates.some((c) => c.status === "stable" && c.scores !== null && finiteScore(c.scores[i]) !== null));
+}
+
+/**
+ * The two criteria plotted first: ISE against effort when the sweep scored both, else its first two
+ * that can be plotted (a criterion that does not apply to the scenario, e.g. settling time under a
+ * load step alone, has no finite score and is passed over when `candidates` are given).
+ */
+export function defaultAxes(criteria: readonly CriterionId[], candidates?: readonly CandidateDto[]): { x: CriterionId; y: CriterionId } {
+  const usable = candidates ? plottableCriteria(candidates, criteria) : [...criteria];
+  const pool = usable.length > 0 ? usable : [...criteria];
+  if (pool.includes("ise") && pool.includes("effort")) return { x: "ise", y: "effort" };
+  return { x: pool[0], y: pool[1] ?? pool[0] };
 }

@@ -31,9 +31,10 @@ export function CriteriaSection({ register, errors, chosen, scenarioKind }: Swee
         ))}
       </div>
       <FieldErrorText field="criteria" message={errors.criteria?.message ?? errors.criteria?.root?.message} />
-      {scenarioKind === "load-step" && chosen.some((c) => STEP_RESPONSE_CRITERIA.includes(c) && c !== "settlingTime" && c !== "steadyStateError") ? (
+      {scenarioKind === "load-step" && chosen.some((c) => STEP_RESPONSE_CRITERIA.includes(c) && c !== "steadyStateError") ? (
         <p className="mt-3 text-xs text-ink-soft" data-testid="criteria-scenario-note">
-          With a load step alone there is no setpoint change, so overshoot, undershoot and rise time do not apply; they show as “—”.
+          With a load step alone there is no setpoint change, so overshoot, undershoot, rise time and settling time do not apply: they show as “—” and
+          cannot be drawn on the front. Choose “Both” to score them, or add an integral or effort criterion.
         </p>
       ) : null}
       <div className="mt-4 grid grid-cols-3 gap-4 border-t border-line-soft pt-4 sm:max-w-lg">
