@@ -70,10 +70,10 @@ export function PlantListPage() {
                     </Link>
                     {p.latestRevision.unitsNote ? <div className="max-w-xs truncate text-xs text-ink-soft">{p.latestRevision.unitsNote}</div> : null}
                   </td>
-                  <td className="px-4 py-2.5 text-xs text-ink-soft" data-testid="plant-kind-cell">
+                  <td className="whitespace-nowrap px-4 py-2.5 text-xs text-ink-soft" data-testid="plant-kind-cell">
                     {plantKindShort(p.latestRevision.model.kind)}
                   </td>
-                  <td className="max-w-md truncate px-4 py-2.5 font-mono text-[13px]" title={plantModelSummary(p.latestRevision.model)}>
+                  <td className="max-w-xs truncate px-4 py-2.5 font-mono text-[13px]" title={plantModelSummary(p.latestRevision.model)}>
                     {plantModelSummary(p.latestRevision.model)}
                   </td>
                   <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
@@ -83,7 +83,7 @@ export function PlantListPage() {
                     {p.latestRevision.number}
                     <span className="text-ink-faint"> / {p.revisionCount}</span>
                   </td>
-                  <td className="px-4 py-2.5 text-xs text-ink-soft">
+                  <td className="min-w-40 px-4 py-2.5 text-xs text-ink-soft">
                     {formatDateTime(p.latestRevision.createdAt)} · {p.latestRevision.createdBy.name}
                   </td>
                 </tr>

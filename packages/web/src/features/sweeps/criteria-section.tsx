@@ -2,23 +2,39 @@ import { CRITERIA, type CriterionId, type ScenarioKind } from "@loopyard/core";
 import { Field, inputClass } from "../../components/field.js";
 import { Section } from "../../components/section.js";
 import { criterionDescription, criterionShortLabel } from "../fronts/criterion-label.js";
-import { criterionGroups, STEP_RESPONSE_CRITERIA } from "./criterion-groups.js";
+import { criterionGroups, isFrequencyCriterion, STEP_RESPONSE_CRITERIA } from "./criterion-groups.js";
 import { FieldErrorText } from "./field-error-text.js";
 import type { SweepSectionProps } from "./sweep-form-types.js";
 
 /** Every registered criterion in groups with its unit; options of the quadratic cost and the settling band. */
-export function CriteriaSection({ register, errors, chosen, scenarioKind }: SweepSectionProps & { chosen: readonly CriterionId[]; scenarioKind: ScenarioKind }) {
+export function CriteriaSection({
+  register,
+  errors,
+  chosen,
+  scenarioKind,
+  nonlinearPlant,
+}: SweepSectionProps & { chosen: readonly CriterionId[]; scenarioKind: ScenarioKind; nonlinearPlant: boolean }) {
   const o = errors.criterionOptions;
   return (
     <Section title="Criteria" aside="every chosen criterion is scored for every stable candidate; smaller is better">
       <div className="grid grid-cols-1 gap-5 md:grid-cols-3" data-testid="criteria-groups">
         {criterionGroups().map((group) => (
-          <fieldset key={group.title}>
+          <fieldset key={group.title} className={group.wide ? "md:col-span-3" : ""}>
             <legend className="mb-2 text-xs font-medium uppercase tracking-wide text-ink-soft">{group.title}</legend>
-            <div className="space-y-2">
+            {group.wide && nonlinearPlant && group.ids.some(isFrequencyCriterion) ? (
+              <p className="mb-2 text-xs text-ink-soft">This plant is nonlinear: it has no frequency response, so these do not apply.</p>
+            ) : null}
+            <div className={group.wide ? "grid grid-cols-1 gap-2 md:grid-cols-3" : "space-y-2"}>
               {group.ids.map((c) => (
-                <label key={c} className="flex items-start gap-2 text-sm">
-                  <input type="checkbox" value={c} className="mt-0.5 accent-moss" data-testid={`criterion-${c}`} {...register("criteria")} />
+                <label key={c} className={`flex items-start gap-2 text-sm ${nonlinearPlant && isFrequencyCriterion(c) ? "opacity-50" : ""}`}>
+                  <input
+                    type="checkbox"
+                    value={c}
+                    disabled={nonlinearPlant && isFrequencyCriterion(c)}
+                    className="mt-0.5 accent-moss"
+                    data-testid={`criterion-${c}`}
+                    {...register("criteria")}
+                  />
                   <span>
                     <span className="font-medium">{criterionShortLabel(c)}</span>
                     {CRITERIA[c]?.unit ? <span className="ml-1.5 font-mono text-[11px] text-ink-faint">[{CRITERIA[c].unit}]</span> : null}

@@ -7,8 +7,8 @@ import type { SweepSectionProps } from "./sweep-form-types.js";
 import { STRUCTURES, STRUCTURE_ORDER, parameterRows, type ParameterRow } from "./structure-choices.js";
 
 const ANTI_WINDUP: readonly { value: AntiWindupChoice; label: string }[] = [
-  { value: "default", label: "Back-calculation, tracking time from Ti and Td (default)" },
-  { value: "back-calculation", label: "Back-calculation with a tracking time I give" },
+  { value: "default", label: "Back-calculation (default tracking time)" },
+  { value: "back-calculation", label: "Back-calculation, tracking time given" },
   { value: "conditional", label: "Conditional integration" },
   { value: "none", label: "None" },
 ];
@@ -122,7 +122,7 @@ export function StructureSection({
               hint={
                 hasLimits === false
                   ? "This revision has no actuator limits, so anti-windup changes nothing here. Add limits in a new plant revision to use it."
-                  : "Acts only while the actuator saturates (the plant's actuator limits)."
+                  : "Acts only while the actuator saturates (the plant's actuator limits). Default tracking time √(Ti·Td), or Ti without derivative."
               }
             >
               <select id="anti-windup" className={inputClass} data-testid="anti-windup" {...register("antiWindup.kind")}>

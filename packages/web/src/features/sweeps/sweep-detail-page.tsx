@@ -83,7 +83,9 @@ function Definition({ sweep }: { sweep: SweepDetailDto }) {
   const d = sweep.definition;
   const fixed: Record<string, number> = { ...(d.fixed ?? {}) };
   if (d.sampleTime !== undefined) fixed.sampleTime = d.sampleTime;
-  const names = [...Object.keys(d.ranges), ...Object.keys(fixed).filter((n) => !(n in d.ranges))];
+  // In the structure's order (SweepDetailDto.parameters); a tf derived from the filter is shown with the filter.
+  const given = [...Object.keys(d.ranges), ...Object.keys(fixed).filter((n) => !(n in d.ranges))];
+  const names = [...sweep.parameters.filter((n) => given.includes(n)), ...given.filter((n) => !sweep.parameters.includes(n))];
   const value = (name: string) => {
     const r = d.ranges[name];
     if (!r) return formatNumber(fixed[name]);
@@ -102,8 +104,8 @@ function Definition({ sweep }: { sweep: SweepDetailDto }) {
     options?.r !== undefined ? `r = ${formatNumber(options.r)}` : null,
     options?.settlingBand !== undefined ? `band ±${formatNumber(options.settlingBand * 100)} %` : null,
   ].filter((t) => t !== null);
-  const item = (label: ReactNode, body: ReactNode, mono = true, key?: string) => (
-    <div key={key}>
+  const item = (label: ReactNode, body: ReactNode, mono = true, key?: string, wide = false) => (
+    <div key={key} className={wide ? "col-span-2" : ""}>
       <dt className={`text-xs text-ink-soft ${mono && typeof label === "string" && key ? "font-mono" : ""}`}>{label}</dt>
       <dd className={mono ? "font-mono text-[13px]" : "text-[13px]"}>{body}</dd>
     </div>
@@ -114,7 +116,7 @@ function Definition({ sweep }: { sweep: SweepDetailDto }) {
       {names.map((name) => item(name, value(name), true, name))}
       {d.filter ? item("Derivative filter", d.filter.mode === "ratio" ? `tf = Td/${formatNumber(d.filter.n)}` : `tf = ${formatNumber(d.filter.tf)} s`) : null}
       {antiWindup ? item("Anti-windup", antiWindup, false) : null}
-      {item("Scenario", scenarioSummary(d.scenario), false)}
+      {item("Scenario", scenarioSummary(d.scenario), false, "scenario", true)}
       {item("Horizon · step", `${formatNumber(d.scenario.horizon)} s · ${formatNumber(d.scenario.dt)} s`)}
       {item("Candidates", sweep.total)}
       {item(
@@ -124,6 +126,8 @@ function Definition({ sweep }: { sweep: SweepDetailDto }) {
           {optionText.length > 0 ? <span className="text-ink-soft"> ({optionText.join(", ")})</span> : null}
         </>,
         false,
+        "criteria",
+        true,
       )}
     </dl>
   );

@@ -191,7 +191,7 @@ export function SweepNewPage() {
             hasLimits={revisionModel ? hasLimits(revisionModel) : null}
           />
           <ScenarioSection register={register} errors={errors} kind={scenario.kind} noiseOn={scenario.noiseOn} samples={samples} />
-          <CriteriaSection register={register} errors={errors} chosen={Array.isArray(criteria) ? criteria : []} scenarioKind={scenario.kind} />
+          <CriteriaSection register={register} errors={errors} chosen={Array.isArray(criteria) ? criteria : []} scenarioKind={scenario.kind} nonlinearPlant={revisionModel?.kind === "nonlinear"} />
         </div>
 
         <aside>
