@@ -1,11 +1,14 @@
+import type { SensitivityWeight } from "../frequency/sensitivity-weight.js";
 import type { LoopTrace } from "../simulation/loop-trace.js";
+import type { LoopTransferFunction } from "../stability/evaluate-loop.js";
 import type { CriterionId } from "./criterion-id.js";
 
 /**
- * Where a criterion is computed: "time" criteria read a simulated LoopTrace. Frequency-domain
- * criteria (Ms, margins, …) will add their own kind.
+ * Where a criterion is computed: "time" criteria read a simulated LoopTrace; "frequency" criteria
+ * (Ms, Mt, margins, crossover, bandwidth, ‖W·S‖∞) read the loop transfer function L(s) through
+ * `computeLoop` and apply to linear plants only.
  */
-export type CriterionKind = "time";
+export type CriterionKind = "time" | "frequency";
 
 /**
  * Options some criteria take; the others ignore them.
@@ -17,9 +20,11 @@ export interface CriterionOptions {
   q?: number;
   r?: number;
   settlingBand?: number;
+  /** Sensitivity weight W(s) = num/den of `wsNorm` (proper; see performanceWeight for the common preset). */
+  weight?: SensitivityWeight;
 }
 
-/** One scalar figure of a simulated loop, as listed in the CRITERIA registry. */
+/** One scalar figure of a loop, as listed in the CRITERIA registry. */
 export interface CriterionDefinition {
   id: CriterionId;
   kind: CriterionKind;
@@ -30,10 +35,21 @@ export interface CriterionDefinition {
   /** One sentence: the formula in words. */
   description: string;
   /**
-   * The criterion's value for a trace; smaller is better for every criterion here. NaN when the
+   * Which way is better: "smaller" (the default when absent; every time criterion) or "larger"
+   * (gain and phase margin, crossover frequency, bandwidth). A front that minimises should negate
+   * "larger" criteria.
+   */
+  better?: "smaller" | "larger";
+  /**
+   * The criterion's value for a trace; smaller is better for every time criterion. NaN when the
    * criterion does not apply (a step-response figure without a setpoint change, a diverged trace,
    * a loop without steady state where u∞ or y∞ is needed); Infinity for a rise or settling time
    * not reached within the horizon. Throws a RangeError for a bad option.
    */
   compute(trace: LoopTrace, options?: CriterionOptions): number;
+  /**
+   * Frequency criteria only: the value for the loop transfer function L(s) of a stable linear loop
+   * (loopTransferFunction). Their `compute(trace)` returns NaN, since a trace does not determine L.
+   */
+  computeLoop?(loop: LoopTransferFunction, options?: CriterionOptions): number;
 }

@@ -1,6 +1,7 @@
 /**
- * Identifiers of the time-domain criteria, in display order. All but "quadratic", "undershoot" and
- * "steadyStateError" are also the criterion names of the `loopyard evaluate` spec.
+ * Identifiers of the criteria, in display order: the time-domain ones, then the frequency-domain
+ * ones (ms … wsNorm, kind "frequency", linear plants only). All are accepted by the
+ * `loopyard evaluate` spec.
  */
 export const CRITERION_IDS = [
   "iae",
@@ -17,6 +18,13 @@ export const CRITERION_IDS = [
   "riseTime",
   "settlingTime",
   "steadyStateError",
+  "ms",
+  "mt",
+  "gainMargin",
+  "phaseMargin",
+  "crossoverFrequency",
+  "bandwidth",
+  "wsNorm",
 ] as const;
 
 export type CriterionId = (typeof CRITERION_IDS)[number];

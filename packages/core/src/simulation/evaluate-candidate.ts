@@ -17,6 +17,7 @@ import { isWellPosedLoop } from "./ill-posed-loop-error.js";
 import { divergenceBound } from "./loop-bound.js";
 import { loopTransferFunction } from "./loop-transfer-function.js";
 import type { Scenario } from "./scenario.js";
+import type { LoopTransferFunction } from "../stability/evaluate-loop.js";
 import { simulateLoop } from "./simulate-loop.js";
 
 /** The verdict and scores of one candidate controller on one plant and scenario. */
@@ -53,10 +54,13 @@ const scoreBuffer = new Float64Array(FAST_CRITERIA.length);
  * 2. the simulation (simulateLoop); a trace that left the divergence bound gives "diverged" with
  *    null scores (nonlinear and saturated loops, or a sampled loop the continuous verdict missed);
  * 3. each requested criterion from CRITERIA with options.criterion. A criterion that does not apply
- *    returns NaN and stays NaN in the scores.
+ *    returns NaN and stays NaN in the scores. Frequency criteria (ms, mt, margins, crossover,
+ *    bandwidth, wsNorm) are computed from loopTransferFunction(plant, controller) — the continuous
+ *    loop, dead time exact, actuator limits ignored, a sampled controller by its continuous
+ *    counterpart — and are NaN for nonlinear plants (they do not apply).
  * Fast path: a delay-free linear loop with a continuous controller, no limits, a setpoint step only
- * and criteria among iae, ise, itae, effort is scored inside the recurrence without a trace
- * (scoreExactSetpointLoop; same values to rounding).
+ * and time criteria among iae, ise, itae, effort (plus any frequency criteria) is scored inside the
+ * recurrence without a trace (scoreExactSetpointLoop; same values to rounding).
  * Throws a RangeError for a bad plant, controller, scenario or an unknown criterion id.
  */
 export function evaluateCandidate<C extends CriterionId>(
@@ -78,13 +82,39 @@ export function evaluateCandidate<C extends CriterionId>(
     if (!isLoopStable(plant, controller)) return { status: "unstable", poles, scores: null };
     const fast = fastScores(plant, controller, scenario, criteria, options);
     if (fast === "diverged") return { status: "diverged", poles, scores: null };
-    if (fast) return { status: "stable", poles, scores: fast };
+    if (fast) return { status: "stable", poles, scores: addFrequencyScores(fast, plant, controller, criteria, options) };
   }
   const trace = simulateLoop(plant, controller, scenario);
   if (trace.status === "diverged") return { status: "diverged", poles, scores: null };
   const scores = {} as Record<C, number>;
   for (const id of criteria) scores[id] = CRITERIA[id].compute(trace, options.criterion);
-  return { status: "stable", poles, scores };
+  return { status: "stable", poles, scores: addFrequencyScores(scores, plant, controller, criteria, options) };
+}
+
+/**
+ * Fills the frequency criteria (kind "frequency") from the loop transfer function of a linear
+ * loop — one L(s) object for all of them, so they share one frequency grid — and NaN ("does not
+ * apply") for a nonlinear plant. Called only for loops judged stable.
+ */
+function addFrequencyScores<C extends CriterionId>(
+  scores: Record<C, number>,
+  plant: Plant,
+  controller: Controller,
+  criteria: readonly C[],
+  options: EvaluateCandidateOptions,
+): Record<C, number> {
+  let loop: LoopTransferFunction | null = null;
+  for (const id of criteria) {
+    const definition = CRITERIA[id];
+    if (definition.kind !== "frequency" || definition.computeLoop === undefined) continue;
+    if (plant.kind === "nonlinear") {
+      scores[id] = NaN;
+      continue;
+    }
+    loop ??= loopTransferFunction(plant, controller);
+    scores[id] = definition.computeLoop(loop, options.criterion);
+  }
+  return scores;
 }
 
 /**
@@ -111,7 +141,7 @@ function fastScores<C extends CriterionId>(
 ): Record<C, number> | "diverged" | null {
   if (scenario.kind !== "setpoint-step" || scenario.load !== undefined || (scenario.noise !== undefined && scenario.noise.sd !== 0)) return null;
   if (controller.sampleTime !== undefined || hasActuatorLimits(plant.actuator) || options.criterion !== undefined) return null;
-  for (const id of criteria) if (!(FAST_CRITERIA as readonly string[]).includes(id)) return null;
+  for (const id of criteria) if (!(FAST_CRITERIA as readonly string[]).includes(id) && CRITERIA[id].kind !== "frequency") return null;
   const model = linearPlantModel(plant);
   if (model.delay !== 0) return null;
   const { horizon, dt } = scenario;
@@ -126,6 +156,7 @@ function fastScores<C extends CriterionId>(
   const scores = {} as Record<C, number>;
   for (const id of criteria) {
     const index = FAST_CRITERIA.indexOf(id as FastCriterionId);
+    if (index < 0) continue; // a frequency criterion, filled by addFrequencyScores
     scores[id] = id === "effort" && !Number.isFinite(steady.u) ? NaN : scoreBuffer[index];
   }
   return scores;

@@ -9,13 +9,17 @@ import { sweepInputSchema } from "../../src/sweeps/sweep-input.js";
 import { expectClose } from "../support/expect-close.js";
 import { grid, traceFromSamples } from "./trace-from-samples.js";
 
+/** The frequency-domain criteria (kind "frequency"): they read the loop, not a trace. */
+const FREQUENCY_IDS = ["ms", "mt", "gainMargin", "phaseMargin", "crossoverFrequency", "bandwidth", "wsNorm"] as const;
+const TIME_IDS = CRITERION_IDS.filter((id) => CRITERIA[id].kind === "time");
+
 describe("criteria on given samples", () => {
   it("every criterion is 0 under perfect tracking with u∞ = 0", () => {
     // Invariant (common practice): y jumps to r at 0⁺ and stays, u ≡ u∞ = 0 (e.g. an integrating
     // plant) ⇒ no error, no input, no overshoot or undershoot; rise and settling happen at t[0] = 0.
     const t = grid(100, 0.1);
     const trace = traceFromSamples(t, new Float64Array(t.length).fill(1));
-    for (const id of CRITERION_IDS) expect(CRITERIA[id].compute(trace), id).toBe(0);
+    for (const id of TIME_IDS) expect(CRITERIA[id].compute(trace), id).toBe(0);
   });
 
   it("under perfect tracking with u∞ = 0.5, only the figures measured from u = 0 are non-zero", () => {
@@ -23,7 +27,7 @@ describe("criteria on given samples", () => {
     const t = grid(100, 0.1);
     const u = new Float64Array(t.length).fill(0.5);
     const trace = traceFromSamples(t, new Float64Array(t.length).fill(1), { u, uInfinity: 0.5 });
-    for (const id of CRITERION_IDS) {
+    for (const id of TIME_IDS) {
       if (id === "upeak") expect(CRITERIA[id].compute(trace)).toBe(0.5);
       else if (id === "rawEffort") expectClose(CRITERIA[id].compute(trace), 2.5, 1e-13);
       else expect(CRITERIA[id].compute(trace), id).toBe(0);
@@ -61,19 +65,20 @@ describe("criteria on given samples", () => {
     expect(() => effort(grid(3, 1), new Float64Array(4), NaN)).toThrow(/uInfinity/);
   });
 
-  it("CRITERIA lists every criterion id, each a time criterion, keeping the first version's labels", () => {
+  it("CRITERIA lists every criterion id, time criteria then the frequency ones, keeping the first version's labels", () => {
     expect(Object.keys(CRITERIA).sort()).toEqual([...CRITERION_IDS].sort());
     for (const id of CRITERION_IDS) {
       expect(CRITERIA[id].id).toBe(id);
-      expect(CRITERIA[id].kind).toBe("time");
+      expect(CRITERIA[id].kind).toBe((FREQUENCY_IDS as readonly string[]).includes(id) ? "frequency" : "time");
+      expect(typeof CRITERIA[id].computeLoop).toBe(CRITERIA[id].kind === "frequency" ? "function" : "undefined");
     }
     expect(["iae", "ise", "itae", "effort"].map((id) => CRITERIA[id as CriterionId].label)).toEqual(["IAE", "ISE", "ITAE", "Effort ∫(u−u∞)²dt"]);
   });
 
-  it("CRITERION_IDS holds the evaluate spec's ids plus quadratic, undershoot and steadyStateError", () => {
-    // The `loopyard evaluate` criterion names of the Engine I issue, exactly.
+  it("CRITERION_IDS holds the evaluate spec's ids plus quadratic, undershoot, steadyStateError and the frequency criteria", () => {
+    // The `loopyard evaluate` criterion names of the Engine I issue, exactly, and Engine II's frequency ids.
     const specIds = ["iae", "ise", "itae", "itse", "effort", "rawEffort", "tv", "upeak", "overshoot", "riseTime", "settlingTime"];
-    expect([...CRITERION_IDS].sort()).toEqual([...specIds, "quadratic", "undershoot", "steadyStateError"].sort());
+    expect([...CRITERION_IDS].sort()).toEqual([...specIds, "quadratic", "undershoot", "steadyStateError", ...FREQUENCY_IDS].sort());
   });
 
   it("the sweep schema accepts every id and defaults to the first version's four", () => {

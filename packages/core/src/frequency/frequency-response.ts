@@ -1,0 +1,330 @@
+import { assertFiniteCoefficients, trimLeadingZeros } from "../linear-algebra/polynomial-trim.js";
+import { loopValueAt, type LoopTransferFunction } from "../stability/evaluate-loop.js";
+import { bisectSignChange } from "./bisect-sign-change.js";
+import { frequencySpan } from "./frequency-span.js";
+import { gridPeak, type FrequencyPeak } from "./grid-peak.js";
+import type { SensitivityWeight } from "./sensitivity-weight.js";
+import { weightedSensitivityPeak } from "./weighted-sensitivity-peak.js";
+
+/** Base grid density: log-spaced points per decade before refinement. */
+export const POINTS_PER_DECADE = 40;
+/** Largest change of arg(1 + L) (and of arg L where |L| ≥ SMALL_GAIN) between neighbours [rad]. */
+export const MAX_PHASE_STEP = 0.2;
+/** Largest change of ln|1 + L| (and of ln|L| where |L| ≥ SMALL_GAIN) between neighbours. */
+export const MAX_LOG_STEP = 0.2;
+/**
+ * Where |L(jω) − D·e^(−jωθ)| < SMALL_GAIN (for a strictly proper loop: |L| < SMALL_GAIN) the loop's
+ * own phase and gain no longer drive refinement (S ≈ 1, T ≈ L there, or L ≈ its high-frequency form).
+ */
+export const SMALL_GAIN = 1e-3;
+/** Phase crossovers with |L| below this are not reported (a gain margin above 1/SMALL_GAIN = 60 dB). */
+export const PHASE_CROSSOVER_MIN_GAIN = SMALL_GAIN;
+/** The grid extends upward by decades until |L(jω) − D·e^(−jωθ)| ≤ TAIL_GAIN·max(1, |D|). */
+export const TAIL_GAIN = 1e-6;
+/** At most this many decades are added by the tail extension. */
+export const MAX_TAIL_DECADES = 30;
+/** Refinement never splits an interval narrower than this in ln ω. */
+export const MIN_LOG_STEP = 1e-9;
+/** Cap on the grid size (the refinement stops adding points beyond it). */
+export const MAX_POINTS = 200_000;
+/** Crossing frequencies are bisected to this width in ln ω (relative frequency 1e-13). */
+export const CROSSING_TOLERANCE = 1e-13;
+/** The bandwidth level of |S|: 1/√2 (−3 dB). */
+export const BANDWIDTH_LEVEL = Math.SQRT1_2;
+
+/** Complex samples on a frequency grid, real and imaginary parts apart. */
+export interface ComplexSamples {
+  re: Float64Array;
+  im: Float64Array;
+}
+
+/** Options of frequencyResponse. */
+export interface FrequencyResponseOptions {
+  /** A sensitivity weight W(s): adds `weightedPeak` = ‖W·S‖∞ and `weightMagnitude` = |W(jω)|. */
+  weight?: SensitivityWeight;
+}
+
+/**
+ * The frequency response of a loop under negative unity feedback on an adaptive grid, and the
+ * figures read from it. See frequencyResponse.
+ */
+export interface FrequencyResponse {
+  /** ω [rad/s], ascending, > 0: the refined grid, including every peak and crossing below. */
+  omega: Float64Array;
+  /** L(jω) = num(jω)/den(jω)·e^(−jωθ). */
+  L: ComplexSamples;
+  /** S(jω) = 1/(1 + L(jω)), the sensitivity. */
+  S: ComplexSamples;
+  /** T(jω) = L(jω)/(1 + L(jω)) = 1 − S(jω), the complementary sensitivity. */
+  T: ComplexSamples;
+  /** |W(jω)| on the grid when options.weight is given. */
+  weightMagnitude?: Float64Array;
+  /** Ms = sup_ω |S(jω)| and where (ω = Infinity when the supremum is the high-frequency limit). */
+  sensitivityPeak: FrequencyPeak;
+  /** Mt = sup_ω |T(jω)| and where. */
+  complementaryPeak: FrequencyPeak;
+  /** ‖W·S‖∞ and where, when options.weight is given; else null. */
+  weightedPeak: FrequencyPeak | null;
+  /** Gain crossover frequencies ω (|L(jω)| = 1), ascending. */
+  gainCrossovers: number[];
+  /** For each gain crossover: true when |L| falls through 1 there (from above), false when it rises. */
+  gainCrossoverFalling: boolean[];
+  /** Phase crossover frequencies ω (L(jω) real and negative, |L| ≥ PHASE_CROSSOVER_MIN_GAIN), ascending. */
+  phaseCrossovers: number[];
+  /** ωB: the first frequency where |S| crosses 1/√2 from below; 0 when |S| ≥ 1/√2 already at the grid's low end, Infinity when never. */
+  bandwidth: number;
+  /** D = lim_{ω→∞} L(jω)·e^(jωθ): num₀/den₀ for a biproper loop, 0 for a strictly proper one. */
+  highFrequencyGain: number;
+}
+
+/**
+ * Frequency response of L(s) = num(s)/den(s)·e^(−θs) under negative unity feedback: L, S = 1/(1 + L)
+ * and T = L/(1 + L) at s = jω, the dead time exactly as e^(−jωθ) (evaluateLoop), on an adaptive
+ * logarithmic grid, with the peaks and crossings located to near machine precision.
+ *
+ * Grid:
+ * 1. Span (frequencySpan): two decades below the slowest and above the fastest of the open-loop
+ *    poles and zeros, the closed-loop poles (dead time as its [6/6] Padé approximant, only to place
+ *    the grid) and 1/θ; then extended upward by decades until the rational part has settled,
+ *    |L(jω) − D·e^(−jωθ)| ≤ TAIL_GAIN·max(1, |D|), D = lim L·e^(θs) (0 when strictly proper).
+ * 2. POINTS_PER_DECADE log-spaced points, plus the hint frequencies of lightly damped roots
+ *    (|Im p| + k·|Re p|, k = −3…3), so a narrow resonance cannot fall between points.
+ * 3. Refinement: where |L − D·e^(−jωθ)| ≥ SMALL_GAIN at either end (the loop is not yet within
+ *    SMALL_GAIN of its high-frequency form; for a strictly proper loop: |L| ≥ SMALL_GAIN), an
+ *    interval [ω_a, ω_b] is halved at √(ω_a·ω_b) while, between its ends, arg(1 + L), ln|1 + L|,
+ *    arg L or ln|L| changes by more than MAX_PHASE_STEP [rad] / MAX_LOG_STEP. The dead time's
+ *    phase lag makes this dense (steps ≤ MAX_PHASE_STEP/θ) up to where the loop reaches its
+ *    high-frequency form; beyond, |S| and |T| are within about SMALL_GAIN of their limits, which
+ *    are handled in closed form below. Stops at MIN_LOG_STEP or MAX_POINTS.
+ * Figures (stopping tolerances as named constants):
+ * - peaks of |S|, |T| (and |W·S|): the local maxima of the samples refined by golden-section
+ *   search on ln ω to PEAK_TOLERANCE (gridPeak), compared with the high-frequency limits
+ *   1/|1 + D| and |D|/|1 + D| (no dead time) or 1/(1 − |D|) and |D|/(1 − |D|) (dead time and
+ *   D ≠ 0: e^(−jωθ) turns D through every phase; |D| < 1 for a stable loop);
+ * - gain crossovers: sign changes of ln|L| between neighbours, bisected on ln ω to CROSSING_TOLERANCE;
+ * - phase crossovers: sign changes of Im L with Re L < 0 (L on the negative real axis, phase
+ *   −180° modulo 360°, no unwrapping needed), bisected likewise; those with |L| <
+ *   PHASE_CROSSOVER_MIN_GAIN are dropped, as are jumps across an imaginary-axis pole of L;
+ * - bandwidth ωB: the first frequency where |S| crosses 1/√2 from below (Skogestad & Postlethwaite
+ *   2005, §2.4.5, who prefer it to the |T| definition ωBT because it measures where feedback
+ *   starts to help), bisected likewise.
+ * The located points are merged into the returned grid.
+ *
+ * loop: finite num and den, den not all zero, deg num ≤ deg den (proper), delay finite ≥ 0; a
+ * RangeError names the bad field. Stability is not checked: the figures of an unstable loop are
+ * computed but mean nothing (callers report them only for stable loops).
+ *
+ * References: S. Skogestad and I. Postlethwaite, Multivariable Feedback Control, 2nd ed., 2005,
+ * §2.4 (L, S, T, peaks, crossover and bandwidth); K. J. Åström and T. Hägglund, Advanced PID
+ * Control, ISA, 2006, ch. 4 (Ms, Mt and the margins as robustness measures).
+ */
+export function frequencyResponse(loop: LoopTransferFunction, options: FrequencyResponseOptions = {}): FrequencyResponse {
+  const { num, den, delay } = assertValidLoop(loop);
+  const d = num.length === den.length ? num[0] / den[0] : 0;
+  const span = frequencySpan(num, den, delay);
+  const value = (omega: number) => loopValueAt(num, den, delay, 0, omega);
+  // |L(jω) − D·e^(−jωθ)|: how far the loop still is from its high-frequency form.
+  const deviation = (omega: number, l: { re: number; im: number }) =>
+    d === 0 ? Math.hypot(l.re, l.im) : Math.hypot(l.re - d * Math.cos(omega * delay), l.im + d * Math.sin(omega * delay));
+
+  // 1. Span with the tail extension.
+  const lo = span.omegaMin;
+  let hi = span.omegaMax;
+  const tailLevel = TAIL_GAIN * Math.max(1, Math.abs(d));
+  for (let k = 0; k < MAX_TAIL_DECADES; k++) {
+    const rational = loopValueAt(num, den, 0, 0, hi);
+    if (Math.hypot(rational.re - d, rational.im) <= tailLevel) break;
+    hi *= 10;
+  }
+
+  // 2. Base grid and hints.
+  const steps = Math.max(2, Math.ceil(Math.log10(hi / lo) * POINTS_PER_DECADE));
+  const seeds: number[] = [];
+  for (let k = 0; k <= steps; k++) seeds.push(lo * (hi / lo) ** (k / steps));
+  for (const h of span.hints) if (h > lo && h < hi) seeds.push(h);
+  seeds.sort((a, b) => a - b);
+
+  // 3. Refinement, depth first so the output stays ordered.
+  const omega: number[] = [];
+  const re: number[] = [];
+  const im: number[] = [];
+  const push = (w: number, l: { re: number; im: number }) => {
+    if (!Number.isFinite(l.re) || !Number.isFinite(l.im)) return; // exactly on an imaginary-axis pole
+    omega.push(w);
+    re.push(l.re);
+    im.push(l.im);
+  };
+  const refine = (a: number, la: { re: number; im: number }, b: number, lb: { re: number; im: number }) => {
+    if (omega.length >= MAX_POINTS || Math.log(b / a) <= MIN_LOG_STEP || !needsSplit(la, lb, deviation(a, la) >= SMALL_GAIN || deviation(b, lb) >= SMALL_GAIN)) return;
+    const m = Math.sqrt(a * b);
+    const lm = value(m);
+    refine(a, la, m, lm);
+    push(m, lm);
+    refine(m, lm, b, lb);
+  };
+  let previous = seeds[0];
+  let lPrevious = value(previous);
+  push(previous, lPrevious);
+  for (let k = 1; k < seeds.length; k++) {
+    const w = seeds[k];
+    if (Math.log(w / previous) <= MIN_LOG_STEP) continue;
+    const l = value(w);
+    if (Number.isFinite(lPrevious.re) && Number.isFinite(l.re)) refine(previous, lPrevious, w, l);
+    push(w, l);
+    previous = w;
+    lPrevious = l;
+  }
+
+  // 4. Figures.
+  const n = omega.length;
+  const sMag = new Float64Array(n);
+  const tMag = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const f = Math.hypot(1 + re[i], im[i]);
+    sMag[i] = 1 / f;
+    tMag[i] = Math.hypot(re[i], im[i]) / f;
+  }
+  const sensitivity = (w: number) => {
+    const l = value(w);
+    return 1 / Math.hypot(1 + l.re, l.im);
+  };
+  const complementary = (w: number) => {
+    const l = value(w);
+    return Math.hypot(l.re, l.im) / Math.hypot(1 + l.re, l.im);
+  };
+  const sTail = sensitivityTail(d, delay);
+  const tTail = Math.abs(d) * sTail;
+  const sensitivityPeak = withTail(gridPeak(omega, sMag, sensitivity), sTail);
+  const complementaryPeak = withTail(gridPeak(omega, tMag, complementary), tTail);
+
+  const gainCrossovers: number[] = [];
+  const gainCrossoverFalling: boolean[] = [];
+  const phaseCrossovers: number[] = [];
+  const logOmega = (x: number) => Math.exp(x);
+  for (let i = 0; i + 1 < n; i++) {
+    const a = Math.log(omega[i]);
+    const b = Math.log(omega[i + 1]);
+    const aboveA = Math.hypot(re[i], im[i]) > 1;
+    if (aboveA !== Math.hypot(re[i + 1], im[i + 1]) > 1) {
+      const x = bisectSignChange((x) => {
+        const l = value(logOmega(x));
+        return Math.hypot(l.re, l.im) > 1;
+      }, a, b, aboveA, CROSSING_TOLERANCE);
+      gainCrossovers.push(Math.exp(x));
+      gainCrossoverFalling.push(aboveA);
+    }
+    const upperA = im[i] > 0;
+    if (upperA !== im[i + 1] > 0 && (re[i] < 0 || re[i + 1] < 0)) {
+      const x = bisectSignChange((x) => value(logOmega(x)).im > 0, a, b, upperA, CROSSING_TOLERANCE);
+      const w = Math.exp(x);
+      const l = value(w);
+      const gain = Math.hypot(l.re, l.im);
+      // On the negative real axis (not a jump across an imaginary-axis pole of L).
+      if (Number.isFinite(gain) && l.re < 0 && Math.abs(l.im) <= 1e-6 * gain && gain >= PHASE_CROSSOVER_MIN_GAIN) phaseCrossovers.push(w);
+    }
+  }
+
+  let bandwidth = Infinity;
+  if (n > 0 && sMag[0] >= BANDWIDTH_LEVEL) bandwidth = 0;
+  else {
+    for (let i = 0; i + 1 < n; i++) {
+      if (sMag[i + 1] >= BANDWIDTH_LEVEL) {
+        const x = bisectSignChange((x) => sensitivity(Math.exp(x)) >= BANDWIDTH_LEVEL, Math.log(omega[i]), Math.log(omega[i + 1]), false, CROSSING_TOLERANCE);
+        bandwidth = Math.exp(x);
+        break;
+      }
+    }
+  }
+
+  let weightedPeak: FrequencyPeak | null = null;
+  if (options.weight !== undefined) weightedPeak = weightedSensitivityPeak({ num, den, delay }, omega, options.weight, sTail);
+
+  // 5. Merge the located points into the grid and fill L, S, T.
+  const extra = [sensitivityPeak.omega, complementaryPeak.omega, weightedPeak?.omega ?? NaN, ...gainCrossovers, ...phaseCrossovers, bandwidth];
+  const all = omega.slice();
+  for (const w of extra) if (Number.isFinite(w) && w > 0) all.push(w);
+  all.sort((a, b) => a - b);
+  const grid: number[] = [];
+  for (const w of all) if (grid.length === 0 || w > grid[grid.length - 1]) grid.push(w);
+  const size = grid.length;
+  const result: FrequencyResponse = {
+    omega: Float64Array.from(grid),
+    L: { re: new Float64Array(size), im: new Float64Array(size) },
+    S: { re: new Float64Array(size), im: new Float64Array(size) },
+    T: { re: new Float64Array(size), im: new Float64Array(size) },
+    sensitivityPeak,
+    complementaryPeak,
+    weightedPeak,
+    gainCrossovers,
+    gainCrossoverFalling,
+    phaseCrossovers,
+    bandwidth,
+    highFrequencyGain: d,
+  };
+  for (let i = 0; i < size; i++) {
+    const l = value(grid[i]);
+    const fr = 1 + l.re;
+    const fi = l.im;
+    const f2 = fr * fr + fi * fi;
+    result.L.re[i] = l.re;
+    result.L.im[i] = l.im;
+    result.S.re[i] = fr / f2;
+    result.S.im[i] = -fi / f2;
+    result.T.re[i] = 1 - fr / f2; // T = 1 − S
+    result.T.im[i] = fi / f2;
+  }
+  if (options.weight !== undefined) {
+    const { num: wn, den: wd } = options.weight;
+    result.weightMagnitude = Float64Array.from(grid, (w) => {
+      const a = loopValueAt(wn, wd, 0, 0, w);
+      return Math.hypot(a.re, a.im);
+    });
+  }
+  return result;
+}
+
+/**
+ * lim sup_{ω→∞} |S(jω)| for L → D·e^(−jωθ): 1/|1 + D| without dead time; with dead time and
+ * D ≠ 0, e^(−jωθ) turns D through every phase, so 1/(1 − |D|) (|D| < 1 for a stable loop;
+ * Infinity otherwise). The limit of |T| is |D| times this.
+ */
+export function sensitivityTail(d: number, delay: number): number {
+  if (delay > 0 && d !== 0) return Math.abs(d) < 1 ? 1 / (1 - Math.abs(d)) : Infinity;
+  return 1 / Math.abs(1 + d);
+}
+
+/** The peak, or the high-frequency limit when that is larger. */
+function withTail(peak: FrequencyPeak, tail: number): FrequencyPeak {
+  return tail > peak.value ? { omega: Infinity, value: tail } : peak;
+}
+
+/** See frequencyResponse, step 3; `active`: the loop is still SMALL_GAIN or more from its high-frequency form at an end. */
+function needsSplit(la: { re: number; im: number }, lb: { re: number; im: number }, active: boolean): boolean {
+  return active && (changesTooMuch(1 + la.re, la.im, 1 + lb.re, lb.im) || changesTooMuch(la.re, la.im, lb.re, lb.im));
+}
+
+/** True when arg or ln|·| of a complex number changes by more than the allowed step from a to b. */
+function changesTooMuch(ar: number, ai: number, br: number, bi: number): boolean {
+  const phase = Math.atan2(ar * bi - ai * br, ar * br + ai * bi);
+  if (Math.abs(phase) > MAX_PHASE_STEP) return true;
+  const ratio = Math.hypot(br, bi) / Math.hypot(ar, ai);
+  return !(Math.abs(Math.log(ratio)) <= MAX_LOG_STEP);
+}
+
+/** Checks the loop as nyquistStability does and returns it trimmed. */
+export function assertValidLoop(loop: LoopTransferFunction): { num: number[]; den: number[]; delay: number } {
+  if (loop === null || typeof loop !== "object") throw new TypeError("loop must be { num, den, delay }");
+  assertFiniteCoefficients(loop.num, "loop.num");
+  assertFiniteCoefficients(loop.den, "loop.den");
+  const delay = loop.delay ?? 0;
+  if (typeof delay !== "number" || !Number.isFinite(delay) || delay < 0) {
+    throw new RangeError(`loop.delay: the dead time must be a finite number ≥ 0 s, got ${String(loop.delay)}`);
+  }
+  const num = trimLeadingZeros(loop.num);
+  const den = trimLeadingZeros(loop.den);
+  if (den.length === 0) throw new RangeError("loop.den: the denominator must not be all zeros");
+  if (num.length > den.length) {
+    throw new RangeError(`loop.num: the loop must be proper, numerator degree ${num.length - 1} exceeds denominator degree ${den.length - 1}`);
+  }
+  return { num, den, delay };
+}
