@@ -170,7 +170,7 @@ export { DEFAULT_BOUND_RATIOS, boundCurve } from "./optimal/bound-curve.js";
 
 // Baselines: published tuning rules from the plant model (tuning/).
 export { CANCELLATION_TOLERANCE, plantFactors } from "./tuning/plant-factors.js";
-export { REAL_ROOT_TOLERANCE, halfRule, halfRuleFopdt, halfRuleSopdt } from "./tuning/fopdt-half-rule.js";
+export { REAL_ROOT_TOLERANCE, ROOT_CLUSTER_TOLERANCE, halfRule, halfRuleFopdt, halfRuleSopdt } from "./tuning/fopdt-half-rule.js";
 export { PHASE_SEARCH_POINTS_PER_DECADE, ultimatePoint } from "./tuning/ultimate-point.js";
 export { DEFAULT_FILTER_DIVISOR, tunedFromIdeal } from "./tuning/tuned-pid.js";
 export {

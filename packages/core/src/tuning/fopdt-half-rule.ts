@@ -1,4 +1,5 @@
 import type { Plant } from "../plants/plant.js";
+import type { Complex } from "../linear-algebra/complex.js";
 import { plantFactors } from "./plant-factors.js";
 
 /** First-order plus dead time model k·e^(−θs)/(τs + 1): gain k, time constant τ [s], dead time θ [s]. */
@@ -20,10 +21,15 @@ export interface SopdtModel {
 export type HalfRuleFit = { ok: true; fopdt: FopdtModel; sopdt: SopdtModel } | { ok: false; reason: string };
 
 /**
- * Largest |Im p|/|p| of a pole or zero still taken as real: companion-matrix roots of an m-fold
- * real root come out as a tight complex cluster of size ≈ eps^(1/m)·|p| (our choice of margin).
+ * Relative radius of a root cluster, |pᵢ − pⱼ| ≤ ROOT_CLUSTER_TOLERANCE·max(|pᵢ|, |pⱼ|). Companion-matrix
+ * roots of an m-fold real root come out as a ring of radius ≈ eps^(1/m)·|p| (0.03·|p| for m = 10)
+ * around it, while the ring's mean is accurate to about eps·|p|. A conjugate-symmetric cluster is
+ * therefore replaced by m real roots at its mean (our choice; a genuinely complex pair that close to
+ * the real axis, damping ζ > 0.9997, is then treated as a double real root).
  */
-export const REAL_ROOT_TOLERANCE = 1e-3;
+export const ROOT_CLUSTER_TOLERANCE = 0.05;
+/** |Im p|/|p| at or below which a (cluster-merged) root counts as real. */
+export const REAL_ROOT_TOLERANCE = 1e-9;
 
 /** The factor 5 of Skogestad's rules T2 and T3 (τ̃0 = min(τ0, 5τc)). */
 const ZERO_RULE_FACTOR = 5;
@@ -58,7 +64,8 @@ const ZERO_RULE_FACTOR = 5;
  * the rule labels and the factor 5 from memory).
  */
 export function halfRule(plant: Plant): HalfRuleFit {
-  const f = plantFactors(plant);
+  const factors = plantFactors(plant);
+  const f = { ...factors, poles: mergeRootClusters(factors.poles), zeros: mergeRootClusters(factors.zeros) };
   const realTol = (re: number, im: number) => Math.abs(im) <= REAL_ROOT_TOLERANCE * Math.hypot(re, im);
   if (f.poles.some((p) => p.re > 0 && realTol(p.re, p.im))) return { ok: false, reason: "the plant is unstable (a real pole in the right half plane); the half rule needs a stable plant" };
   if (f.poles.some((p) => !realTol(p.re, p.im))) return { ok: false, reason: "the plant has complex poles; the half rule needs real poles" };
@@ -132,4 +139,37 @@ function fopdtFromLags(lags: readonly number[], theta0: number): { tau: number; 
   let rest = 0;
   for (let i = 2; i < sorted.length; i++) rest += sorted[i];
   return { tau: (sorted[0] ?? 0) + tau2 / 2, theta: theta0 + tau2 / 2 + rest };
+}
+
+/**
+ * Roots with every conjugate-symmetric cluster (single linkage, ROOT_CLUSTER_TOLERANCE) replaced by
+ * as many real roots at the cluster's mean; other roots unchanged.
+ */
+function mergeRootClusters(roots: readonly Complex[]): Complex[] {
+  const n = roots.length;
+  const group = Array.from({ length: n }, (_, i) => i);
+  const find = (i: number): number => (group[i] === i ? i : (group[i] = find(group[i])));
+  for (let i = 0; i < n; i++) {
+    for (let j = i + 1; j < n; j++) {
+      const scale = Math.max(Math.hypot(roots[i].re, roots[i].im), Math.hypot(roots[j].re, roots[j].im));
+      if (Math.hypot(roots[i].re - roots[j].re, roots[i].im - roots[j].im) <= ROOT_CLUSTER_TOLERANCE * scale) group[find(i)] = find(j);
+    }
+  }
+  const members = new Map<number, number[]>();
+  for (let i = 0; i < n; i++) members.set(find(i), [...(members.get(find(i)) ?? []), i]);
+  const out = roots.map((r) => ({ re: r.re, im: r.im }));
+  for (const list of members.values()) {
+    if (list.length < 2) continue;
+    let re = 0;
+    let im = 0;
+    for (const i of list) {
+      re += roots[i].re;
+      im += roots[i].im;
+    }
+    re /= list.length;
+    im /= list.length;
+    if (Math.abs(im) > REAL_ROOT_TOLERANCE * Math.hypot(re, im)) continue;
+    for (const i of list) out[i] = { re, im: 0 };
+  }
+  return out;
 }

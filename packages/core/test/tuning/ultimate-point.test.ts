@@ -27,6 +27,20 @@ describe("ultimatePoint", () => {
     expectClose(p.pu, (2 * Math.PI) / Math.sqrt(3), 1e-9);
   });
 
+  it("ultimatePoint of 1/(s+1)ⁿ, n = 3…8, is ω180 = tan(π/n), Ku = cos(π/n)^(−n)", () => {
+    // Closed form: −n·atan ω = −π ⇒ ω180 = tan(π/n); |G| = (1 + tan²(π/n))^(−n/2) = cosⁿ(π/n) ⇒ Ku = cos(π/n)^(−n).
+    const poly = (n: number): number[] => {
+      let p = [1];
+      for (let i = 0; i < n; i++) p = [...p, 0].map((c, j) => c + (j > 0 ? p[j - 1] : 0));
+      return p;
+    };
+    for (let n = 3; n <= 8; n++) {
+      const p = point(tf([1], poly(n)));
+      expectClose(p.omega180, Math.tan(Math.PI / n), 1e-9, 1e-9);
+      expectClose(p.ku, Math.cos(Math.PI / n) ** -n, 1e-9, 1e-9);
+    }
+  });
+
   it("ultimatePoint of e^(−s)/(s+1) solves ω + atan ω = π: ω180 ≈ 2.0288, Ku = √(1 + ω²) ≈ 2.2618", () => {
     // Closed form: arg G = −atan ω − ω = −π ⇔ ω = π − atan ω (equivalently ω = −tan ω … = tan(π − ω));
     // |G| = 1/√(1 + ω²) ⇒ Ku = √(1 + ω180²).
