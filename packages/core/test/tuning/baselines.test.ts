@@ -77,6 +77,33 @@ describe("baselines", () => {
     expect(() => baselines(EMBER["Ember 800"], { filterDivisor: 0 })).toThrow(/filterDivisor/);
   });
 
+  it("baselines on −G negates every gain and keeps every time (invariant of the rules: K ∝ 1/k, Ku → −Ku)", () => {
+    const plus = baselines(EMBER["Ember 400"]);
+    const minus = baselines(tf([-1.2], poly([12, 1], [3, 1], [0.5, 1])));
+    plus.forEach((b, i) => {
+      const m = minus[i];
+      if (!b.ok || !m.ok) throw new Error(`${b.label} refused`);
+      expectClose(m.ideal.K, -b.ideal.K, 1e-9, 1e-9);
+      expectClose(m.controller.ki, -b.controller.ki, 1e-9, 1e-9);
+      expectClose(m.controller.tf, b.controller.tf, 1e-9, 1e-9);
+    });
+  });
+
+  it("baselines on a nonlinear plant uses its linearisation: x' = −x + u is 1/(s + 1)", () => {
+    // Linearisation at x = 0: 1/(s + 1), θ = 0. SIMC PI: τc = τ1/10 = 0.1 (no dead time) ⇒ Kc = 1/0.1 = 10,
+    // τI = min(1, 4·0.1) = 0.4. AMIGO needs θ > 0 and Ziegler–Nichols an ultimate point: both skipped.
+    const plant: Plant = { kind: "nonlinear", states: ["x"], parameters: {}, derivatives: ["-x + u"], output: "x", initial: [0] };
+    const list = baselines(plant);
+    const simc = list.find((b) => b.rule === "simc" && b.variant === "pi");
+    if (!simc?.ok) throw new Error("SIMC PI refused");
+    expectClose(simc.ideal.K, 10, 1e-9);
+    expectClose(simc.ideal.Ti, 0.4, 1e-9);
+    expect(list.filter((b) => b.rule === "amigo" || b.rule === "ziegler-nichols").every((b) => !b.ok)).toBe(true);
+    // SIMC PID: the SOPDT fit has one lag (τ2 = 0), so the rule reduces to the PI and is skipped.
+    const pid = list.find((b) => b.rule === "simc" && b.variant === "pid");
+    expect(pid?.ok).toBe(false);
+  });
+
   it("baselines on an unstable plant refuses every rule with a reason instead of throwing", () => {
     const list = baselines(tf([1], [1, -0.5]));
     expect(list.every((b) => !b.ok && b.reason.length > 0)).toBe(true);
