@@ -168,3 +168,54 @@ export interface ResponseDto {
   y: number[];
   u: number[];
 }
+
+/** One point of the bound curve: the LQR design for the weight ratio r/q and its ISE and effort. */
+export interface BoundPointDto {
+  ratio: number;
+  ise: number;
+  effort: number;
+}
+
+/** One published tuning rule computed from the sweep's plant and scored like any candidate. */
+export interface BaselineDto {
+  /** Rule id, e.g. "simc", "ziegler-nichols". */
+  rule: string;
+  /** "p", "pi" or "pid". */
+  variant: string;
+  /** Display name, e.g. "SIMC PI". */
+  label: string;
+  /** Source and model fit, e.g. "Skogestad 2003, SIMC PI on the half-rule FOPDT fit". */
+  note?: string;
+  /** Parallel gains of the rule's controller: kp, ki, kd, tf. */
+  params: Record<string, number>;
+  status: CandidateStatus;
+  /** In the order of SweepDetailDto.criteria; every entry null unless the baseline is stable. */
+  scores: ScoreValue[];
+}
+
+/** GET /api/workspaces/:slug/sweeps/:sweepId/references — the bound and the baselines drawn beside a front. */
+export interface ReferencesDto {
+  /**
+   * The bound curve on the (ISE, effort) plane (infinite horizon, the sweep's setpoint step):
+   * every controller lies on or above-right of it. ok: false with a reason when there is none
+   * (nonlinear plant, zero at s = 0, a scenario it does not cover).
+   */
+  bound: { ok: boolean; reason?: string; points: BoundPointDto[] };
+  baselines: BaselineDto[];
+  /** Rules that do not apply to this plant, with the reason. */
+  skipped: { rule: string; variant: string; label: string; reason: string }[];
+}
+
+/** GET /api/workspaces/:slug/sweeps/:sweepId/candidates/:index/frequency — |S|, |T| (and 1/|W|) of a linear loop. */
+export interface FrequencyDto {
+  index: number;
+  status: CandidateStatus;
+  /** ω [rad/s], ascending. */
+  omega: number[];
+  /** |S(jω)|, the sensitivity's magnitude. */
+  S: number[];
+  /** |T(jω)|, the complementary sensitivity's magnitude. */
+  T: number[];
+  /** 1/|W(jω)| when the sweep's criterion options hold a sensitivity weight. */
+  invW?: number[];
+}

@@ -15,6 +15,7 @@ import {
   listSweeps,
   SWEEP_NOT_FOUND,
 } from "./sweep-service.js";
+import { getCandidateFrequency, getReferences } from "./sweep-reference-service.js";
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
@@ -61,6 +62,15 @@ export function sweepRoutes(db: Database, runner: SweepRunner): Router {
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
     res.json(await getCandidateResponse(db, accessOf(req), sweepIdOf(req.params.sweepId), index));
+  });
+
+  router.get("/:sweepId/references", canRead, async (req, res) => {
+    res.json(await getReferences(db, accessOf(req), sweepIdOf(req.params.sweepId)));
+  });
+
+  router.get("/:sweepId/candidates/:index/frequency", canRead, async (req, res) => {
+    const index = candidateIndex(req.params.index);
+    res.json(await getCandidateFrequency(db, accessOf(req), sweepIdOf(req.params.sweepId), index));
   });
 
   return router;
