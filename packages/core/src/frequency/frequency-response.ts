@@ -6,6 +6,10 @@ import { gridPeak, type FrequencyPeak } from "./grid-peak.js";
 import type { SensitivityWeight } from "./sensitivity-weight.js";
 import { weightedSensitivityPeak } from "./weighted-sensitivity-peak.js";
 
+/** Where |L| < TRACK_GAIN (and the loop is still SMALL_GAIN from its high-frequency form) arg L may change by up to COARSE_PHASE_STEP between neighbours. */
+export const TRACK_GAIN = 0.1;
+/** π/2: enough to see every crossing of the negative real axis (each quadrant is sampled). */
+export const COARSE_PHASE_STEP = Math.PI / 2;
 /** Base grid density: log-spaced points per decade before refinement. */
 export const POINTS_PER_DECADE = 40;
 /** Largest change of arg(1 + L) (and of arg L where |L| ≥ SMALL_GAIN) between neighbours [rad]. */
@@ -17,6 +21,11 @@ export const MAX_LOG_STEP = 0.2;
  * own phase and gain no longer drive refinement (S ≈ 1, T ≈ L there, or L ≈ its high-frequency form).
  */
 export const SMALL_GAIN = 1e-3;
+/**
+ * Phase crossovers are located only where |L| is at least this fraction of the largest |L| next to
+ * any crossing: the others cannot set the gain margin (a dead-time loop has thousands of them).
+ */
+export const PHASE_CROSSOVER_RELATIVE_GAIN = 0.1;
 /** Phase crossovers with |L| below this are not reported (a gain margin above 1/SMALL_GAIN = 60 dB). */
 export const PHASE_CROSSOVER_MIN_GAIN = SMALL_GAIN;
 /** The grid extends upward by decades until |L(jω) − D·e^(−jωθ)| ≤ TAIL_GAIN·max(1, |D|). */
@@ -59,7 +68,7 @@ export interface FrequencyResponse {
   T: ComplexSamples;
   /** |W(jω)| on the grid when options.weight is given. */
   weightMagnitude?: Float64Array;
-  /** Ms = sup_ω |S(jω)| and where (ω = Infinity when the supremum is the high-frequency limit). */
+  /** Ms = sup_ω |S(jω)| and where (ω = 0 or Infinity when the supremum is the low- or high-frequency limit). */
   sensitivityPeak: FrequencyPeak;
   /** Mt = sup_ω |T(jω)| and where. */
   complementaryPeak: FrequencyPeak;
@@ -69,7 +78,10 @@ export interface FrequencyResponse {
   gainCrossovers: number[];
   /** For each gain crossover: true when |L| falls through 1 there (from above), false when it rises. */
   gainCrossoverFalling: boolean[];
-  /** Phase crossover frequencies ω (L(jω) real and negative, |L| ≥ PHASE_CROSSOVER_MIN_GAIN), ascending. */
+  /**
+   * Phase crossover frequencies ω (L(jω) real and negative), ascending: those with |L| ≥
+   * PHASE_CROSSOVER_MIN_GAIN and ≥ PHASE_CROSSOVER_RELATIVE_GAIN × the largest |L| at a crossing.
+   */
   phaseCrossovers: number[];
   /** ωB: the first frequency where |S| crosses 1/√2 from below; 0 when |S| ≥ 1/√2 already at the grid's low end, Infinity when never. */
   bandwidth: number;
@@ -92,19 +104,27 @@ export interface FrequencyResponse {
  * 3. Refinement: where |L − D·e^(−jωθ)| ≥ SMALL_GAIN at either end (the loop is not yet within
  *    SMALL_GAIN of its high-frequency form; for a strictly proper loop: |L| ≥ SMALL_GAIN), an
  *    interval [ω_a, ω_b] is halved at √(ω_a·ω_b) while, between its ends, arg(1 + L), ln|1 + L|,
- *    arg L or ln|L| changes by more than MAX_PHASE_STEP [rad] / MAX_LOG_STEP. The dead time's
- *    phase lag makes this dense (steps ≤ MAX_PHASE_STEP/θ) up to where the loop reaches its
- *    high-frequency form; beyond, |S| and |T| are within about SMALL_GAIN of their limits, which
- *    are handled in closed form below. Stops at MIN_LOG_STEP or MAX_POINTS.
+ *    arg L or ln|L| changes by more than MAX_PHASE_STEP [rad] / MAX_LOG_STEP (the dead time's own
+ *    turn θ·(ω_b − ω_a) is tested apart, since a principal-value difference would alias it) — by more than
+ *    COARSE_PHASE_STEP = π/2 where |L| < TRACK_GAIN at both ends (S, T ≈ 1, L there; π/2 still
+ *    samples every quadrant, so no crossing of the negative real axis is skipped and each peak of
+ *    |S| stays unimodal between neighbours). The dead time's phase lag makes this dense (steps
+ *    ≤ MAX_PHASE_STEP/θ, then ≤ (π/2)/θ) up to where the loop reaches its high-frequency form;
+ *    beyond, |S| and |T| are within about SMALL_GAIN of their limits, which are handled in closed
+ *    form below. Stops at MIN_LOG_STEP or MAX_POINTS. Cost: a few hundred points for a rational
+ *    loop; for a dead-time loop of relative degree 1 about ω₁θ/(π/2) points, ω₁ where |L| = SMALL_GAIN.
  * Figures (stopping tolerances as named constants):
  * - peaks of |S|, |T| (and |W·S|): the local maxima of the samples refined by golden-section
- *   search on ln ω to PEAK_TOLERANCE (gridPeak), compared with the high-frequency limits
+ *   search on ln ω to PEAK_TOLERANCE (gridPeak), compared with the limits at ω = 0 (from L(0);
+ *   S(0) = 0 and T(0) = 1 with an integrator) and the high-frequency limits
  *   1/|1 + D| and |D|/|1 + D| (no dead time) or 1/(1 − |D|) and |D|/(1 − |D|) (dead time and
  *   D ≠ 0: e^(−jωθ) turns D through every phase; |D| < 1 for a stable loop);
  * - gain crossovers: sign changes of ln|L| between neighbours, bisected on ln ω to CROSSING_TOLERANCE;
  * - phase crossovers: sign changes of Im L with Re L < 0 (L on the negative real axis, phase
  *   −180° modulo 360°, no unwrapping needed), bisected likewise; those with |L| <
- *   PHASE_CROSSOVER_MIN_GAIN are dropped, as are jumps across an imaginary-axis pole of L;
+ *   PHASE_CROSSOVER_MIN_GAIN, or below PHASE_CROSSOVER_RELATIVE_GAIN times the largest |L| at a
+ *   crossing (they cannot set the gain margin), are skipped, as are jumps across an
+ *   imaginary-axis pole of L;
  * - bandwidth ωB: the first frequency where |S| crosses 1/√2 from below (Skogestad & Postlethwaite
  *   2005, §2.4.5, who prefer it to the |T| definition ωBT because it measures where feedback
  *   starts to help), bisected likewise.
@@ -125,7 +145,7 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
   const value = (omega: number) => loopValueAt(num, den, delay, 0, omega);
   // |L(jω) − D·e^(−jωθ)|: how far the loop still is from its high-frequency form.
   const deviation = (omega: number, l: { re: number; im: number }) =>
-    d === 0 ? Math.hypot(l.re, l.im) : Math.hypot(l.re - d * Math.cos(omega * delay), l.im + d * Math.sin(omega * delay));
+    d === 0 ? abs2(l.re, l.im) : abs2(l.re - d * Math.cos(omega * delay), l.im + d * Math.sin(omega * delay));
 
   // 1. Span with the tail extension.
   const lo = span.omegaMin;
@@ -133,7 +153,7 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
   const tailLevel = TAIL_GAIN * Math.max(1, Math.abs(d));
   for (let k = 0; k < MAX_TAIL_DECADES; k++) {
     const rational = loopValueAt(num, den, 0, 0, hi);
-    if (Math.hypot(rational.re - d, rational.im) <= tailLevel) break;
+    if (abs2(rational.re - d, rational.im) <= tailLevel) break;
     hi *= 10;
   }
 
@@ -155,7 +175,8 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
     im.push(l.im);
   };
   const refine = (a: number, la: { re: number; im: number }, b: number, lb: { re: number; im: number }) => {
-    if (omega.length >= MAX_POINTS || Math.log(b / a) <= MIN_LOG_STEP || !needsSplit(la, lb, deviation(a, la) >= SMALL_GAIN || deviation(b, lb) >= SMALL_GAIN)) return;
+    if (omega.length >= MAX_POINTS || Math.log(b / a) <= MIN_LOG_STEP) return;
+    if (!needsSplit(la, lb, delay * (b - a), deviation(a, la) >= SMALL_GAIN || deviation(b, lb) >= SMALL_GAIN)) return;
     const m = Math.sqrt(a * b);
     const lm = value(m);
     refine(a, la, m, lm);
@@ -180,48 +201,63 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
   const sMag = new Float64Array(n);
   const tMag = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const f = Math.hypot(1 + re[i], im[i]);
+    const f = abs2(1 + re[i], im[i]);
     sMag[i] = 1 / f;
-    tMag[i] = Math.hypot(re[i], im[i]) / f;
+    tMag[i] = abs2(re[i], im[i]) / f;
   }
   const sensitivity = (w: number) => {
     const l = value(w);
-    return 1 / Math.hypot(1 + l.re, l.im);
+    return 1 / abs2(1 + l.re, l.im);
   };
   const complementary = (w: number) => {
     const l = value(w);
-    return Math.hypot(l.re, l.im) / Math.hypot(1 + l.re, l.im);
+    return abs2(l.re, l.im) / abs2(1 + l.re, l.im);
   };
   const sTail = sensitivityTail(d, delay);
   const tTail = Math.abs(d) * sTail;
-  const sensitivityPeak = withTail(gridPeak(omega, sMag, sensitivity), sTail);
-  const complementaryPeak = withTail(gridPeak(omega, tMag, complementary), tTail);
+  // ω → 0: L(0) (infinite with an integrator, so S(0) = 0 and T(0) = 1).
+  const l0 = loopValueAt(num, den, 0, 0, 0);
+  const g0 = abs2(l0.re, l0.im);
+  const sLow = Number.isFinite(g0) ? 1 / abs2(1 + l0.re, l0.im) : 0;
+  const tLow = Number.isFinite(g0) ? g0 * sLow : 1;
+  const sensitivityPeak = withLimits(gridPeak(omega, sMag, sensitivity), sLow, sTail);
+  const complementaryPeak = withLimits(gridPeak(omega, tMag, complementary), tLow, tTail);
 
   const gainCrossovers: number[] = [];
   const gainCrossoverFalling: boolean[] = [];
   const phaseCrossovers: number[] = [];
+  const phaseBrackets: number[] = [];
+  let largestBracketGain = 0;
   const logOmega = (x: number) => Math.exp(x);
   for (let i = 0; i + 1 < n; i++) {
     const a = Math.log(omega[i]);
     const b = Math.log(omega[i + 1]);
-    const aboveA = Math.hypot(re[i], im[i]) > 1;
-    if (aboveA !== Math.hypot(re[i + 1], im[i + 1]) > 1) {
+    const aboveA = abs2(re[i], im[i]) > 1;
+    if (aboveA !== abs2(re[i + 1], im[i + 1]) > 1) {
       const x = bisectSignChange((x) => {
         const l = value(logOmega(x));
-        return Math.hypot(l.re, l.im) > 1;
+        return abs2(l.re, l.im) > 1;
       }, a, b, aboveA, CROSSING_TOLERANCE);
       gainCrossovers.push(Math.exp(x));
       gainCrossoverFalling.push(aboveA);
     }
-    const upperA = im[i] > 0;
-    if (upperA !== im[i + 1] > 0 && (re[i] < 0 || re[i + 1] < 0)) {
-      const x = bisectSignChange((x) => value(logOmega(x)).im > 0, a, b, upperA, CROSSING_TOLERANCE);
-      const w = Math.exp(x);
-      const l = value(w);
-      const gain = Math.hypot(l.re, l.im);
-      // On the negative real axis (not a jump across an imaginary-axis pole of L).
-      if (Number.isFinite(gain) && l.re < 0 && Math.abs(l.im) <= 1e-6 * gain && gain >= PHASE_CROSSOVER_MIN_GAIN) phaseCrossovers.push(w);
+    if (im[i] > 0 !== im[i + 1] > 0 && (re[i] < 0 || re[i + 1] < 0)) {
+      const gain = Math.max(abs2(re[i], im[i]), abs2(re[i + 1], im[i + 1]));
+      if (Number.isFinite(gain)) phaseBrackets.push(i);
+      if (Number.isFinite(gain) && gain > largestBracketGain) largestBracketGain = gain;
     }
+  }
+  // Only crossings that can set the gain margin are located (see PHASE_CROSSOVER_RELATIVE_GAIN).
+  const phaseFloor = Math.max(PHASE_CROSSOVER_MIN_GAIN, PHASE_CROSSOVER_RELATIVE_GAIN * largestBracketGain);
+  for (const i of phaseBrackets) {
+    if (Math.max(abs2(re[i], im[i]), abs2(re[i + 1], im[i + 1])) < phaseFloor) continue;
+    const upperA = im[i] > 0;
+    const x = bisectSignChange((x) => value(logOmega(x)).im > 0, Math.log(omega[i]), Math.log(omega[i + 1]), upperA, CROSSING_TOLERANCE);
+    const w = Math.exp(x);
+    const l = value(w);
+    const gain = abs2(l.re, l.im);
+    // On the negative real axis (not a jump across an imaginary-axis pole of L).
+    if (Number.isFinite(gain) && l.re < 0 && Math.abs(l.im) <= 1e-6 * gain && gain >= PHASE_CROSSOVER_MIN_GAIN) phaseCrossovers.push(w);
   }
 
   let bandwidth = Infinity;
@@ -241,11 +277,25 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
 
   // 5. Merge the located points into the grid and fill L, S, T.
   const extra = [sensitivityPeak.omega, complementaryPeak.omega, weightedPeak?.omega ?? NaN, ...gainCrossovers, ...phaseCrossovers, bandwidth];
-  const all = omega.slice();
-  for (const w of extra) if (Number.isFinite(w) && w > 0) all.push(w);
-  all.sort((a, b) => a - b);
+  const extraSorted = extra.filter((w) => Number.isFinite(w) && w > 0).sort((a, b) => a - b);
+  // Merge the (few, sorted) located points into the sorted grid; source[k] = grid index or −1.
   const grid: number[] = [];
-  for (const w of all) if (grid.length === 0 || w > grid[grid.length - 1]) grid.push(w);
+  const source: number[] = [];
+  let e = 0;
+  for (let i = 0; i <= n; i++) {
+    const next = i < n ? omega[i] : Infinity;
+    while (e < extraSorted.length && extraSorted[e] < next) {
+      if (grid.length === 0 || extraSorted[e] > grid[grid.length - 1]) {
+        grid.push(extraSorted[e]);
+        source.push(-1);
+      }
+      e++;
+    }
+    if (i < n && (grid.length === 0 || next > grid[grid.length - 1])) {
+      grid.push(next);
+      source.push(i);
+    }
+  }
   const size = grid.length;
   const result: FrequencyResponse = {
     omega: Float64Array.from(grid),
@@ -262,7 +312,8 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
     highFrequencyGain: d,
   };
   for (let i = 0; i < size; i++) {
-    const l = value(grid[i]);
+    const j = source[i];
+    const l = j < 0 ? value(grid[i]) : { re: re[j], im: im[j] };
     const fr = 1 + l.re;
     const fi = l.im;
     const f2 = fr * fr + fi * fi;
@@ -277,7 +328,7 @@ export function frequencyResponse(loop: LoopTransferFunction, options: Frequency
     const { num: wn, den: wd } = options.weight;
     result.weightMagnitude = Float64Array.from(grid, (w) => {
       const a = loopValueAt(wn, wd, 0, 0, w);
-      return Math.hypot(a.re, a.im);
+      return abs2(a.re, a.im);
     });
   }
   return result;
@@ -293,21 +344,33 @@ export function sensitivityTail(d: number, delay: number): number {
   return 1 / Math.abs(1 + d);
 }
 
-/** The peak, or the high-frequency limit when that is larger. */
-function withTail(peak: FrequencyPeak, tail: number): FrequencyPeak {
-  return tail > peak.value ? { omega: Infinity, value: tail } : peak;
+/** √(x² + y²) without Math.hypot's overflow guard (3–5× faster; |L| stays far from 1e154 here). */
+function abs2(x: number, y: number): number {
+  return Math.sqrt(x * x + y * y);
+}
+
+/** The peak, or the low- or high-frequency limit when that is larger. */
+function withLimits(peak: FrequencyPeak, low: number, high: number): FrequencyPeak {
+  if (low > peak.value && low >= high) return { omega: 0, value: low };
+  return high > peak.value ? { omega: Infinity, value: high } : peak;
 }
 
 /** See frequencyResponse, step 3; `active`: the loop is still SMALL_GAIN or more from its high-frequency form at an end. */
-function needsSplit(la: { re: number; im: number }, lb: { re: number; im: number }, active: boolean): boolean {
-  return active && (changesTooMuch(1 + la.re, la.im, 1 + lb.re, lb.im) || changesTooMuch(la.re, la.im, lb.re, lb.im));
+function needsSplit(la: { re: number; im: number }, lb: { re: number; im: number }, delayPhase: number, active: boolean): boolean {
+  if (!active) return false;
+  const large = abs2(la.re, la.im) >= TRACK_GAIN || abs2(lb.re, lb.im) >= TRACK_GAIN;
+  const step = large ? MAX_PHASE_STEP : COARSE_PHASE_STEP;
+  // The dead time turns L by θ·Δω, which a principal-value difference would alias: test it apart.
+  if (delayPhase > step) return true;
+  if (changesTooMuch(1 + la.re, la.im, 1 + lb.re, lb.im, MAX_PHASE_STEP)) return true;
+  return changesTooMuch(la.re, la.im, lb.re, lb.im, step);
 }
 
 /** True when arg or ln|·| of a complex number changes by more than the allowed step from a to b. */
-function changesTooMuch(ar: number, ai: number, br: number, bi: number): boolean {
+function changesTooMuch(ar: number, ai: number, br: number, bi: number, maxPhaseStep: number): boolean {
   const phase = Math.atan2(ar * bi - ai * br, ar * br + ai * bi);
-  if (Math.abs(phase) > MAX_PHASE_STEP) return true;
-  const ratio = Math.hypot(br, bi) / Math.hypot(ar, ai);
+  if (Math.abs(phase) > maxPhaseStep) return true;
+  const ratio = abs2(br, bi) / abs2(ar, ai);
   return !(Math.abs(Math.log(ratio)) <= MAX_LOG_STEP);
 }
 
