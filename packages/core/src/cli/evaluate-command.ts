@@ -34,7 +34,9 @@ export async function evaluateCommand(source: string): Promise<string> {
   let result: ReturnType<Evaluate>;
   try {
     result = (evaluateCandidate as unknown as Evaluate)(spec.plant as Plant, spec.controller as Controller, spec.scenario, spec.criteria, {
-      ...(spec.criterionOptions === undefined ? {} : { criterion: spec.criterionOptions }),
+      ...(spec.criterionOptions === undefined && spec.weight === undefined
+        ? {}
+        : { criterion: { ...spec.criterionOptions, ...(spec.weight === undefined ? {} : { weight: spec.weight }) } }),
     });
   } catch (error) {
     asInputError(error);

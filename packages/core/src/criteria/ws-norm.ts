@@ -22,7 +22,7 @@ import type { CriterionDefinition } from "./criterion-definition.js";
  * Optimal Control, Prentice Hall, 1996, §4.3 (H∞ norm as the peak gain).
  */
 export function wsNorm(loop: LoopTransferFunction, weight: SensitivityWeight | undefined): number {
-  if (weight === undefined) throw new RangeError("weight: wsNorm needs a sensitivity weight W(s) = { num, den } (e.g. performanceWeight({ M, omegaB, A }))");
+  if (weight === undefined) throw new RangeError('weight: wsNorm needs a sensitivity weight W(s) = { num, den } (the CLI spec also takes { "preset": "performance", "M", "omegaB", "A" })');
   const response = loopFrequencyResponse(loop);
   return weightedSensitivityPeak(loop, response.omega, weight, sensitivityTail(response.highFrequencyGain, loop.delay)).value;
 }

@@ -1,0 +1,34 @@
+import { z } from "zod";
+import { performanceWeight } from "./performance-weight.js";
+import { assertValidWeight, type SensitivityWeight } from "./sensitivity-weight.js";
+
+const finite = (name: string) => z.number({ error: `${name} must be a number` }).refine(Number.isFinite, `${name} must be finite`);
+
+/**
+ * A sensitivity weight as JSON: either the rational function itself,
+ * `{ "num": [...], "den": [...] }` (descending powers of s, proper), or the first-order
+ * performance preset `{ "preset": "performance", "M": 2, "omegaB": 1, "A": 1e-4 }`
+ * (performanceWeight: W = (s/M + ωB)/(s + ωB·A)). Parses to a SensitivityWeight { num, den };
+ * a bad weight gets one issue naming its field.
+ */
+export const sensitivityWeightSchema = z
+  .union([
+    z.strictObject({ num: z.array(finite("num")).min(1, "give at least one coefficient"), den: z.array(finite("den")).min(1, "give at least one coefficient") }),
+    z.strictObject({
+      preset: z.literal("performance", { error: 'preset must be "performance"' }),
+      M: finite("M").gt(0, "M must be > 0"),
+      omegaB: finite("omegaB").gt(0, "omegaB must be > 0 rad/s"),
+      A: finite("A").min(0, "A must be ≥ 0"),
+    }),
+  ])
+  .transform((w, ctx): SensitivityWeight => {
+    const weight = "preset" in w ? performanceWeight(w) : { num: w.num, den: w.den };
+    try {
+      return assertValidWeight(weight);
+    } catch (error) {
+      if (!(error instanceof RangeError)) throw error;
+      const field = /^weight\.(num|den)/.exec(error.message)?.[1];
+      ctx.addIssue({ code: "custom", path: field ? [field] : [], message: error.message.replace(/^weight\.(num|den): /, "") });
+      return z.NEVER;
+    }
+  });
