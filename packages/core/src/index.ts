@@ -99,6 +99,7 @@ export { frequencySpan } from "./frequency/frequency-span.js";
 export { weightedSensitivityPeak } from "./frequency/weighted-sensitivity-peak.js";
 export { assertValidWeight } from "./frequency/sensitivity-weight.js";
 export { performanceWeight } from "./frequency/performance-weight.js";
+export { sensitivityWeightSchema } from "./frequency/sensitivity-weight-schema.js";
 
 // Expressions (nonlinear plants typed as text).
 export { compileExpression } from "./expressions/compile-expression.js";
