@@ -1,6 +1,7 @@
 import { LazyPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
 import type { FrontPoint } from "./front-points.js";
+import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, type BaselinePoint } from "./reference-points.js";
 
 /**
  * Every stable candidate as a dimmed dot, the non-dominated ones in the accent colour joined by a
@@ -15,6 +16,8 @@ export function FrontChart({
   yTitle,
   logAxes,
   onSelect,
+  bound = null,
+  baselines = [],
 }: {
   points: readonly FrontPoint[];
   /** Candidate indices on the front, sorted by x ascending. */
@@ -24,6 +27,10 @@ export function FrontChart({
   yTitle: string;
   logAxes: boolean;
   onSelect: (index: number) => void;
+  /** The bound curve on these axes (dashed), or null when it does not apply. */
+  bound?: { x: number[]; y: number[] } | null;
+  /** Tuning-rule baselines on these axes (hollow diamonds with their names). */
+  baselines?: readonly BaselinePoint[];
 }) {
   const byIndex = new Map(points.map((p) => [p.index, p]));
   const frontPoints = front.map((i) => byIndex.get(i)).filter((p): p is FrontPoint => p !== undefined);
@@ -53,6 +60,40 @@ export function FrontChart({
       hovertemplate: hover,
     },
   ];
+  if (bound) {
+    // After the cloud and the front, so that those keep their trace positions.
+    data.push({
+      type: "scatter",
+      mode: "lines",
+      name: BOUND_LABEL,
+      x: bound.x,
+      y: bound.y,
+      line: { color: CHART_COLORS.inkSoft, width: 1.5, dash: "dash" },
+      // Named in the legend list under the chart (reference-legend.tsx), with its hover text.
+      showlegend: false,
+      hovertemplate: `${BOUND_HOVER.replace(/\. /g, ".<br>")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
+    });
+  }
+  if (baselines.length > 0) {
+    data.push({
+      type: "scatter",
+      mode: "markers+text",
+      name: "tuning-rule baselines",
+      x: baselines.map((b) => b.x),
+      y: baselines.map((b) => b.y),
+      text: baselines.map((b) => b.label),
+      textposition: baselines.map((_, i) => (i % 2 === 0 ? "top right" : "bottom right")),
+      textfont: { size: 10, color: CHART_COLORS.inkSoft },
+      marker: { symbol: "diamond-open", size: 11, color: CHART_COLORS.slate, line: { width: 2 } },
+      showlegend: false,
+      hovertemplate: baselines.map(
+        (b) =>
+          `${baselineHover(b.label)}<br>${Object.entries(b.params)
+            .map(([k, v]) => `${k} = ${v.toPrecision(4)}`)
+            .join(", ")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
+      ),
+    });
+  }
   if (chosen) {
     data.push({
       type: "scatter",
@@ -66,14 +107,18 @@ export function FrontChart({
     });
   }
   const type = logAxes ? "log" : "linear";
+  // With references drawn, the axes fit the candidates, so the bound's tail or a far baseline does not squeeze them.
+  const fit = bound !== null || baselines.length > 0;
+  const xRange = fit ? fittedRange(points.map((p) => p.x), logAxes) : null;
+  const yRange = fit ? fittedRange(points.map((p) => p.y), logAxes) : null;
   return (
-    <div data-testid="front-chart" data-front-size={frontPoints.length}>
+    <div data-testid="front-chart" data-front-size={frontPoints.length} data-bound-points={bound?.x.length ?? 0} data-baselines={baselines.length}>
       <LazyPlot
         height={400}
         data={data}
         layout={baseLayout({
-          xaxis: axis(xTitle, { type }),
-          yaxis: axis(yTitle, { type }),
+          xaxis: axis(xTitle, xRange ? { type, range: xRange } : { type }),
+          yaxis: axis(yTitle, yRange ? { type, range: yRange } : { type }),
           hovermode: "closest",
           clickmode: "event",
         })}

@@ -1,6 +1,7 @@
 import { useMemo, useState } from "react";
 import type { CriterionId, SweepDetailDto } from "@loopyard/core";
 import { useCandidateResponse, useCandidates, useFront } from "../../api/use-fronts.js";
+import { useCandidateFrequency, useReferences } from "../../api/use-references.js";
 import { EmptyState } from "../../components/empty-state.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { inputClass } from "../../components/field.js";
@@ -11,7 +12,10 @@ import { criterionDescription, criterionLabel, criterionShortLabel } from "./cri
 import { FrontChart } from "./front-chart.js";
 import { defaultAxes, frontPoints, plottableCriteria } from "./front-points.js";
 import { FrontTable } from "./front-table.js";
+import { ReferenceLegend } from "./reference-legend.js";
+import { baselinePoints, boundTrace } from "./reference-points.js";
 import { ResponseChart } from "./response-chart.js";
+import { SensitivityChart } from "./sensitivity-chart.js";
 
 /** The results of a finished sweep: two criteria chosen, every candidate plotted, the front drawn and listed, one candidate's response. */
 export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDto }) {
@@ -34,6 +38,9 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
     () => (candidates.data ? frontPoints(candidates.data.candidates, candidates.data.criteria, x, y) : []),
     [candidates.data, x, y],
   );
+  const references = useReferences(slug, sweep.id, candidates.isSuccess);
+  const baselines = useMemo(() => baselinePoints(references.data?.baselines, sweep.criteria, x, y), [references.data, sweep.criteria, x, y]);
+  const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points, baselines]);
   const byIndex = useMemo(() => new Map(candidates.data?.candidates.map((c) => [c.index, c]) ?? []), [candidates.data]);
   const frontRows = (front.data?.indices ?? []).map((i) => byIndex.get(i)).filter((c) => c !== undefined);
 
@@ -103,8 +110,11 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                 yTitle={criterionLabel(y)}
                 logAxes={logAxes}
                 onSelect={setSelected}
+                bound={bound}
+                baselines={baselines}
               />
             )}
+            <ReferenceLegend references={references.data} error={references.error} bound={bound} baselines={baselines} points={points} logAxes={logAxes} x={x} y={y} />
             <p className="mt-2 text-xs text-ink-faint">
               {criterionShortLabel(x)}: {criterionDescription(x)} {x !== y ? `${criterionShortLabel(y)}: ${criterionDescription(y)}` : ""}
             </p>
@@ -112,6 +122,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         </div>
         <div className="xl:col-span-2">
           <CandidateResponse slug={slug} sweep={sweep} index={selected} />
+          {sweep.plant.kind !== "nonlinear" ? <CandidateSensitivity slug={slug} sweep={sweep} index={selected} /> : null}
         </div>
       </div>
 
@@ -171,5 +182,33 @@ function CandidateResponse({ slug, sweep, index }: { slug: string; sweep: SweepD
         </>
       )}
     </Section>
+  );
+}
+
+function CandidateSensitivity({ slug, sweep, index }: { slug: string; sweep: SweepDetailDto; index: number | null }) {
+  const frequency = useCandidateFrequency(slug, sweep.id, index, true);
+  if (index === null) return null;
+  return (
+    <div className="mt-6">
+      <Section title="Sensitivity |S| and complementary sensitivity |T|" aside={`candidate #${index}, log–log`} testId="sensitivity-section">
+        {frequency.isPending ? (
+          <Loading label="Computing the frequency response…" />
+        ) : frequency.isError ? (
+          <ErrorNote error={frequency.error} title="Could not compute the frequency response" />
+        ) : (
+          <>
+            {frequency.data.status !== "stable" ? (
+              <p className="mb-2 text-xs text-rust">This candidate is {frequency.data.status}; its |S| and |T| mean nothing as robustness figures.</p>
+            ) : null}
+            <SensitivityChart omega={frequency.data.omega} S={frequency.data.S} T={frequency.data.T} invW={frequency.data.invW} />
+            <p className="mt-2 text-xs text-ink-faint">
+              |S| = |1/(1 + L)| is how much of a disturbance is left in the output at each frequency; its peak Ms is a robustness figure (smaller is
+              more robust). |T| = |L/(1 + L)| is how the output follows the setpoint and how much sensor noise passes.
+              {frequency.data.invW ? " The dashed 1/|W| is the bound the sweep's weight sets on |S|." : ""}
+            </p>
+          </>
+        )}
+      </Section>
+    </div>
   );
 }

@@ -1,0 +1,27 @@
+import { useQuery } from "@tanstack/react-query";
+import type { FrequencyDto, ReferencesDto } from "@loopyard/core";
+import { apiFetch } from "./client.js";
+import { queryKeys } from "./query-keys.js";
+
+const sweepPath = (slug: string, sweepId: string) =>
+  `/workspaces/${encodeURIComponent(slug)}/sweeps/${encodeURIComponent(sweepId)}`;
+
+/** GET …/sweeps/:sweepId/references — the bound curve and the scored tuning-rule baselines. */
+export function useReferences(slug: string, sweepId: string, enabled: boolean) {
+  return useQuery({
+    queryKey: [...queryKeys.sweep(slug, sweepId), "references"] as const,
+    queryFn: () => apiFetch<ReferencesDto>(`${sweepPath(slug, sweepId)}/references`),
+    enabled,
+    staleTime: Infinity,
+  });
+}
+
+/** GET …/candidates/:index/frequency — |S|, |T| (and 1/|W|) of one candidate's loop; linear plants only. */
+export function useCandidateFrequency(slug: string, sweepId: string, index: number | null, enabled: boolean) {
+  return useQuery({
+    queryKey: [...queryKeys.sweep(slug, sweepId), "frequency", index ?? -1] as const,
+    queryFn: () => apiFetch<FrequencyDto>(`${sweepPath(slug, sweepId)}/candidates/${index}/frequency`),
+    enabled: enabled && index !== null,
+    staleTime: Infinity,
+  });
+}
