@@ -1,6 +1,5 @@
 import type { BaselineDto, CriterionId, ReferencesDto } from "@loopyard/core";
 import { finiteScore } from "../../components/format-score.js";
-import type { FrontPoint } from "./front-points.js";
 
 /** Legend text and hover text of the bound and the baselines, one wording everywhere. */
 export const BOUND_LABEL = "LQR bound (no controller can go below-left)";
@@ -20,7 +19,7 @@ export interface BaselinePoint {
 
 /**
  * The bound curve on the chosen axes: (ISE, effort) or (effort, ISE), else null (the bound is a curve in
- * that plane only). Points outside the box of `within` (the plotted candidates and baselines, widened
+ * that plane only). Points outside the box of `within` (the plotted candidates, widened
  * by a quarter of its span) are dropped, except the nearest one beyond each end, so the dashed line
  * reaches the plot's edges without stretching its axes.
  */
@@ -61,11 +60,6 @@ export function baselinePoints(baselines: readonly BaselineDto[] | undefined, cr
     if (px !== null && py !== null) points.push({ label: b.label, rule: b.rule, x: px, y: py, params: b.params });
   }
   return points;
-}
-
-/** Points of the chart (candidates and baselines) as the box the bound is clipped to. */
-export function plottedBox(points: readonly FrontPoint[], baselines: readonly BaselinePoint[]): { x: number; y: number }[] {
-  return [...points, ...baselines].map(({ x, y }) => ({ x, y }));
 }
 
 /** Fraction of the span added on each side of a fitted axis range. */
