@@ -9,6 +9,7 @@ import {
   type Structure,
 } from "../batch/structure.js";
 import { gridDesign } from "../batch/grid-design.js";
+import { sensitivityWeightSchema } from "../frequency/sensitivity-weight-schema.js";
 
 /** Largest number of candidates one sweep may hold in this version (grid product). */
 export const MAX_SWEEP_CANDIDATES = 5000;
@@ -74,6 +75,8 @@ export const criterionOptionsSchema = z.object({
   q: finite("q").min(0, "q must be ≥ 0").optional(),
   r: finite("r").min(0, "r must be ≥ 0").optional(),
   settlingBand: finite("settlingBand").gt(0, "settlingBand must be > 0").lt(1, "settlingBand must be < 1 (a fraction, 0.02 = 2 %)").optional(),
+  /** Weight W(s) of the weighted-sensitivity norm ‖W·S‖∞ (criterion wsNorm): {num, den} or the performance preset. */
+  weight: sensitivityWeightSchema.optional(),
 });
 
 /** The controller schema's own anti-windup field (none, back-calculation with tt, conditional). */
@@ -137,6 +140,9 @@ export const sweepInputSchema = z
     const fixed = s.fixed ?? {};
     const rangeNames = Object.keys(s.ranges);
     if (rangeNames.length === 0) issue(["ranges"], "sweep at least one parameter (a range with count 1 is fine)");
+    if (s.criteria.includes("wsNorm") && s.criterionOptions?.weight === undefined) {
+      issue(["criterionOptions", "weight"], "the weighted-sensitivity norm needs a weight W(s): give num/den or the performance preset (M, omegaB, A)");
+    }
 
     // Names: known for the structure, none both ranged and fixed, every required one given.
     const kind = s.structure;

@@ -115,3 +115,30 @@ describe("sweepInputSchema v2", () => {
     ).toContain("ranges");
   });
 });
+
+describe("sweepInputSchema criterionOptions.weight", () => {
+  const base = {
+    name: "weighted",
+    plantRevisionId: "6f1c3a52-0d5e-4a43-9b7e-1f2a3b4c5d6e",
+    ranges: { kp: { min: 1, max: 2, count: 2 }, ki: { min: 0, max: 1, count: 2 }, kd: { min: 0, max: 0, count: 1 } },
+    scenario: { horizon: 10, dt: 0.01 },
+    criteria: ["iae", "wsNorm"],
+  };
+
+  it("refuses wsNorm without a weight, naming criterionOptions.weight", () => {
+    const r = sweepInputSchema.safeParse(base);
+    expect(r.success).toBe(false);
+    expect(r.error?.issues.map((i) => i.path.join("."))).toContain("criterionOptions.weight");
+  });
+
+  it("turns the performance preset into W(s) = (s/M + ωB)/(s + ωB·A) (Skogestad & Postlethwaite 2005, eq. 2.105)", () => {
+    const r = sweepInputSchema.safeParse({ ...base, criterionOptions: { weight: { preset: "performance", M: 2, omegaB: 0.5, A: 1e-4 } } });
+    expect(r.success).toBe(true);
+    // (s/2 + 0.5)/(s + 0.5·1e-4): num [1/M, ωB], den [1, ωB·A]
+    const w = r.data?.criterionOptions?.weight;
+    expect(w?.num[0]).toBeCloseTo(0.5, 12);
+    expect(w?.num[1]).toBeCloseTo(0.5, 12);
+    expect(w?.den[0]).toBeCloseTo(1, 12);
+    expect(w?.den[1]).toBeCloseTo(5e-5, 15);
+  });
+});
