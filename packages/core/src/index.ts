@@ -84,6 +84,7 @@ export { crossoverFrequency, crossoverFrequencyCriterion } from "./criteria/cros
 export { bandwidth, bandwidthCriterion } from "./criteria/bandwidth.js";
 export { wsNorm, wsNormCriterion } from "./criteria/ws-norm.js";
 export { CRITERIA } from "./criteria/registry.js";
+export { criterionSense, orientForMinimisation } from "./criteria/criterion-sense.js";
 
 // Frequency domain: L, S, T on an adaptive grid; peaks, crossovers, bandwidth, weights.
 export {

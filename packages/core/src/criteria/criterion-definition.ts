@@ -15,11 +15,17 @@ export type CriterionKind = "time" | "frequency";
  * - `q`, `r`: weights of the quadratic criterion J = ∫(q·e² + r·(u − u∞)²)dt, finite, ≥ 0, default 1.
  * - `settlingBand`: half-width of the settling band as a fraction of the output change, in (0, 1),
  *   default 0.02 (the 2 % band).
+ * - `horizon`: "simulated" (default) integrates ise, effort and quadratic over the scenario's
+ *   horizon on its time grid; "infinite" takes them from exactQuadraticCosts (a Lyapunov equation,
+ *   no time grid, t → ∞) for loops that qualify — linear, delay-free, no actuator limits, a
+ *   continuous controller, a noise-free setpoint step at t = 0 without load — and makes them NaN
+ *   ("does not apply") for every other loop. Other criteria ignore it.
  */
 export interface CriterionOptions {
   q?: number;
   r?: number;
   settlingBand?: number;
+  horizon?: "simulated" | "infinite";
   /** Sensitivity weight W(s) = num/den of `wsNorm` (proper; see performanceWeight for the common preset). */
   weight?: SensitivityWeight;
 }

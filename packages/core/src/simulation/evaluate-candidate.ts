@@ -5,6 +5,7 @@ import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 import { CRITERIA } from "../criteria/registry.js";
 import type { Complex } from "../linear-algebra/complex.js";
 import { polynomialAdd } from "../linear-algebra/polynomial-add.js";
+import { exactQuadraticCosts, type ExactQuadraticCosts } from "../optimal/exact-quadratic-costs.js";
 import { hasActuatorLimits } from "../plants/actuator-limits.js";
 import { linearPlantModel } from "../plants/linear-plant-model.js";
 import type { LinearPlant, Plant } from "../plants/plant.js";
@@ -58,6 +59,11 @@ const scoreBuffer = new Float64Array(FAST_CRITERIA.length);
  *    bandwidth, wsNorm) are computed from loopTransferFunction(plant, controller) — the continuous
  *    loop, dead time exact, actuator limits ignored, a sampled controller by its continuous
  *    counterpart — and are NaN for nonlinear plants (they do not apply).
+ * 4. with options.criterion.horizon "infinite": ise, effort and quadratic come from
+ *    exactQuadraticCosts (Lyapunov equation, t → ∞, no time grid) when the loop qualifies — linear,
+ *    delay-free, no actuator limits, a continuous controller, a noise-free "setpoint-step" scenario
+ *    without load (the step at t = 0) — and are NaN ("does not apply") otherwise. When every
+ *    requested time criterion is among these three and the loop qualifies, nothing is simulated.
  * Fast path: a delay-free linear loop with a continuous controller, no limits, a setpoint step only
  * and time criteria among iae, ise, itae, effort (plus any frequency criteria) is scored inside the
  * recurrence without a trace (scoreExactSetpointLoop; same values to rounding).
@@ -84,11 +90,43 @@ export function evaluateCandidate<C extends CriterionId>(
     if (fast === "diverged") return { status: "diverged", poles, scores: null };
     if (fast) return { status: "stable", poles, scores: addFrequencyScores(fast, plant, controller, criteria, options) };
   }
+  const exact = options.criterion?.horizon === "infinite" ? infiniteHorizonCosts(plant, controller, scenario, options) : null;
+  const scores = {} as Record<C, number>;
+  if (exact?.ok && criteria.every((id) => INFINITE_HORIZON_CRITERIA.includes(id) || CRITERIA[id].kind === "frequency")) {
+    // A qualifying loop is linear, stable and without limits: it cannot diverge, so no trace is needed.
+    return { status: "stable", poles, scores: addFrequencyScores(addInfiniteHorizonScores(scores, exact, criteria), plant, controller, criteria, options) };
+  }
   const trace = simulateLoop(plant, controller, scenario);
   if (trace.status === "diverged") return { status: "diverged", poles, scores: null };
-  const scores = {} as Record<C, number>;
   for (const id of criteria) scores[id] = CRITERIA[id].compute(trace, options.criterion);
+  if (exact) addInfiniteHorizonScores(scores, exact, criteria);
   return { status: "stable", poles, scores: addFrequencyScores(scores, plant, controller, criteria, options) };
+}
+
+/** The criteria that options.criterion.horizon "infinite" takes from exactQuadraticCosts. */
+const INFINITE_HORIZON_CRITERIA: readonly CriterionId[] = ["ise", "effort", "quadratic"];
+
+/**
+ * exactQuadraticCosts of the loop under the scenario's setpoint step with the options' q and r, or
+ * `{ ok: false }` when the scenario is not a noise-free setpoint step without load at t = 0 (the
+ * plant, controller and delay conditions are exactQuadraticCosts' own).
+ */
+function infiniteHorizonCosts(plant: Plant, controller: Controller, scenario: Scenario, options: EvaluateCandidateOptions): ExactQuadraticCosts {
+  if (scenario.kind !== "setpoint-step" || (scenario.load !== undefined && scenario.load.size !== 0)) {
+    return { ok: false, reason: "the infinite horizon applies to a setpoint step without load" };
+  }
+  const { q, r } = options.criterion ?? {};
+  return exactQuadraticCosts(plant, controller, { kind: "setpoint-step", setpoint: scenario.setpoint, noise: scenario.noise }, { q, r });
+}
+
+/** Overwrites ise, effort and quadratic with the infinite-horizon values (NaN when they do not apply). */
+function addInfiniteHorizonScores<C extends CriterionId>(scores: Record<C, number>, exact: ExactQuadraticCosts, criteria: readonly C[]): Record<C, number> {
+  for (const id of criteria) {
+    if (id === "ise") scores[id] = exact.ok ? exact.ise : NaN;
+    else if (id === "effort") scores[id] = exact.ok ? exact.effort : NaN;
+    else if (id === "quadratic") scores[id] = exact.ok ? exact.quadratic : NaN;
+  }
+  return scores;
 }
 
 /**

@@ -70,11 +70,16 @@ export const sweepScenarioSchema = z.object({
     .optional(),
 });
 
-/** Options of the criteria: quadratic weights q, r (≥ 0) and the settling band (a fraction in (0, 1)). */
+/**
+ * Options of the criteria: quadratic weights q, r (≥ 0), the settling band (a fraction in (0, 1)),
+ * the horizon of ise, effort and quadratic ("simulated" or "infinite", see CriterionOptions) and
+ * the sensitivity weight of wsNorm.
+ */
 export const criterionOptionsSchema = z.object({
   q: finite("q").min(0, "q must be ≥ 0").optional(),
   r: finite("r").min(0, "r must be ≥ 0").optional(),
   settlingBand: finite("settlingBand").gt(0, "settlingBand must be > 0").lt(1, "settlingBand must be < 1 (a fraction, 0.02 = 2 %)").optional(),
+  horizon: z.enum(["simulated", "infinite"], { error: 'horizon must be "simulated" or "infinite"' }).optional(),
   /** Weight W(s) of the weighted-sensitivity norm ‖W·S‖∞ (criterion wsNorm): {num, den} or the performance preset. */
   weight: sensitivityWeightSchema.optional(),
 });
