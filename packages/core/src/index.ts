@@ -20,6 +20,12 @@ export {
   sweepParameterNames,
   sweepCandidateCount,
   sweepCandidates,
+  sweepSpace,
+  sweepDesignSchema,
+  sweepAggregateSchema,
+  sweepFamilySchema,
+  MAX_FAMILY_VARIANTS,
+  UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
 
@@ -135,6 +141,8 @@ export { createSeededRandom } from "./batch/seeded-random.js";
 export { DEFAULT_MAX_CANDIDATES, gridDesign } from "./batch/grid-design.js";
 export { latinHypercube, latinHypercubeUnit } from "./batch/latin-hypercube.js";
 export { seededRandomDesign } from "./batch/random-design.js";
+export { SOBOL_BITS, SOBOL_MAX_DIMENSION, SOBOL_MAX_POINTS, sobolDesign, sobolDirections, sobolUnit } from "./batch/sobol-design.js";
+export { JOE_KUO_DIRECTION_ROWS } from "./batch/sobol-direction-numbers.js";
 export { BATCH_STATUSES, STATUS_DIVERGED, STATUS_INVALID, STATUS_STABLE, STATUS_UNSTABLE, batchStatusName } from "./batch/batch-status.js";
 export { evaluateBatch } from "./batch/evaluate-batch.js";
 
@@ -195,7 +203,15 @@ export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
 export type { PidController } from "./controllers/pid.js";
 export type { CriterionId } from "./criteria/criterion-id.js";
-export type { ParameterRange, DerivativeFilter, SweepInput, SweepInputParsed } from "./sweeps/sweep-input.js";
+export type {
+  ParameterRange,
+  DerivativeFilter,
+  SweepInput,
+  SweepInputParsed,
+  SweepDesign,
+  SweepAggregate,
+  SweepFamily,
+} from "./sweeps/sweep-input.js";
 export type { Role } from "./api/roles.js";
 export type { Complex } from "./linear-algebra/complex.js";
 export type * from "./api/dto.js";
@@ -217,6 +233,8 @@ export type { Structure } from "./batch/structure.js";
 export type { ParameterAxis, ParameterScale, ParameterSpace } from "./batch/parameter-space.js";
 export type { BatchStatus } from "./batch/batch-status.js";
 export type { BatchOptions, BatchResult, EvaluationOptions } from "./batch/evaluate-batch.js";
+export type { SobolOptions } from "./batch/sobol-design.js";
+export type { SobolDirectionRow } from "./batch/sobol-direction-numbers.js";
 export type { RouthHurwitzResult, RouthSpecialCase } from "./stability/routh-hurwitz.js";
 export type { LoopTransferFunction } from "./stability/evaluate-loop.js";
 export type { NyquistVerdict } from "./stability/nyquist-stability.js";
