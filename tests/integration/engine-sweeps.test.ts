@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { exactQuadraticCosts } from "@loopyard/core";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
@@ -248,5 +249,41 @@ describe("sweep definitions", () => {
     });
     expect(response.status).toBe(400);
     expect(response.body.error.field).toBe("sampleTime");
+  });
+});
+
+describe("infinite horizon and larger-is-better criteria on fronts", () => {
+  it("when a PI sweep asks for the infinite horizon and the front of (ISE, phase margin), then ISE is exact and the front keeps the largest margins", async () => {
+    const sweep = await runSweep({
+      name: "PI exact ISE against phase margin",
+      plantRevisionId: twoLagRevision,
+      structure: "pi",
+      ranges: { kp: { min: 0.5, max: 4, count: 4 }, ki: { min: 0.2, max: 2, count: 4 } },
+      scenario: { horizon: 5, dt: 0.05 },
+      criteria: ["ise", "phaseMargin"],
+      criterionOptions: { horizon: "infinite" },
+    });
+    expect(sweep.status).toBe("finished");
+    expect(sweep.definition.criterionOptions).toEqual({ horizon: "infinite" });
+    const candidates = await candidatesOf(sweep.id);
+    // Reference: exactQuadraticCosts (Lyapunov form, Kwakernaak & Sivan 1972, §1.11) on G = 1/(s² + 3s + 2).
+    const plant = { kind: "transfer-function", num: [1], den: [1, 3, 2], delay: 0 } as const;
+    for (const c of candidates) {
+      const [kp, ki] = c.params;
+      const exact = exactQuadraticCosts(plant, { kind: "pi", kp, ki }, { kind: "setpoint-step" });
+      if (!exact.ok) throw new Error(exact.reason);
+      expect(c.scores?.[0] as number).toBeCloseTo(exact.ise, 9);
+    }
+    const front = await team.viewer.get(`${sweepsPath()}/${sweep.id}/front?x=ise&y=phaseMargin`);
+    expect(front.status).toBe(200);
+    // Dominance with PM maximised (Kung, Luccio & Preparata 1975): no candidate has ISE ≤ and PM ≥ with one strict.
+    const points = candidates.map((c) => ({ index: c.index, ise: c.scores?.[0] as number, pm: c.scores?.[1] as number }));
+    const onFront = points.filter((p) => (front.body.indices as number[]).includes(p.index));
+    expect(onFront.length).toBeGreaterThan(0);
+    for (const p of onFront) {
+      expect(points.some((o) => o.ise <= p.ise && o.pm >= p.pm && (o.ise < p.ise || o.pm > p.pm))).toBe(false);
+    }
+    const largestMargin = points.reduce((a, b) => (b.pm > a.pm || (b.pm === a.pm && b.ise < a.ise) ? b : a));
+    expect(front.body.indices).toContain(largestMargin.index);
   });
 });

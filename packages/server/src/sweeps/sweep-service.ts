@@ -1,4 +1,4 @@
-import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
+import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, orientForMinimisation, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
 import type {
   CandidateListDto,
   CriterionId,
@@ -69,7 +69,9 @@ function frontAxis(parameter: "x" | "y", value: string | undefined, criteria: re
 }
 
 /**
- * The non-dominated stable candidates for criteria x and y (both minimised), by x ascending.
+ * The non-dominated stable candidates for criteria x and y, by x ascending of the oriented values
+ * (larger-is-better criteria — margins, crossover, bandwidth — are negated first with
+ * orientForMinimisation, so the front keeps the largest margin; paretoFront minimises both).
  * Defaults: x = the sweep's first criterion, y = its last.
  */
 export async function getFront(
@@ -86,8 +88,8 @@ export async function getFront(
   const yi = criteria.indexOf(y);
   // Only finite scores of stable candidates count; paretoFront ignores the rest (NaN for null, ±inf).
   const scored = (await listStoredCandidates(db, sweepId)).filter((c) => c.status === "stable" && c.scores !== null);
-  const xs = Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[xi]));
-  const ys = Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[yi]));
+  const xs = orientForMinimisation(Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[xi])), x);
+  const ys = orientForMinimisation(Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[yi])), y);
   const positions = paretoFront(xs, ys);
   return { x, y, indices: positions.map((p) => (scored[p] as { index: number }).index) };
 }
