@@ -38,3 +38,15 @@ export function useCreateSweep(slug: string) {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.workspace(slug) }),
   });
 }
+
+/** POST /api/workspaces/:slug/sweeps/:sweepId/cancel (engineer+): no more chunks are handed out; running ones finish. */
+export function useCancelSweep(slug: string, sweepId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiFetch<SweepDetailDto>(`${sweepsPath(slug)}/${encodeURIComponent(sweepId)}/cancel`, { method: "POST" }),
+    onSuccess: (detail) => {
+      queryClient.setQueryData(queryKeys.sweep(slug, sweepId), detail);
+      return queryClient.invalidateQueries({ queryKey: queryKeys.sweeps(slug) });
+    },
+  });
+}

@@ -1,11 +1,12 @@
 import type { ButtonHTMLAttributes, ReactNode } from "react";
 import { Link, type LinkProps } from "react-router";
 
-export type ButtonTone = "primary" | "quiet" | "plain";
+export type ButtonTone = "primary" | "danger" | "quiet" | "plain";
 
 const TONES: Record<ButtonTone, string> = {
   primary:
     "bg-moss text-white border border-moss hover:bg-moss-dark disabled:bg-line disabled:border-line disabled:text-ink-soft",
+  danger: "bg-rust text-white border border-rust hover:bg-rust/90 disabled:bg-line disabled:border-line disabled:text-ink-soft",
   quiet: "bg-sheet text-ink border border-line hover:border-ink-faint disabled:text-ink-faint disabled:hover:border-line",
   plain: "bg-transparent text-ink-soft border border-transparent hover:text-ink disabled:text-ink-faint",
 };

@@ -1,4 +1,6 @@
-/** Progress of a long job as a bar and "done / total". */
+const GROUPED = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
+
+/** Progress of a long job as a bar and "done/total" (grouped digits: 45,000/100,000). */
 export function ProgressBar({ done, total, testId, compact = false }: { done: number; total: number; testId?: string; compact?: boolean }) {
   const fraction = total > 0 ? Math.min(1, done / total) : 0;
   const percent = Math.round(fraction * 100);
@@ -14,7 +16,7 @@ export function ProgressBar({ done, total, testId, compact = false }: { done: nu
         <div className="absolute inset-y-0 left-0 rounded-full bg-moss transition-[width] duration-500" style={{ width: `${percent}%` }} />
       </div>
       <span className="shrink-0 font-mono text-xs tabular text-ink-soft">
-        {done}/{total}
+        {GROUPED.format(done)}/{GROUPED.format(total)}
       </span>
     </div>
   );

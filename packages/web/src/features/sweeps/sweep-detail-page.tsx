@@ -1,27 +1,31 @@
 import type { ReactNode } from "react";
 import { Link, useParams } from "react-router";
 import type { SweepDetailDto } from "@loopyard/core";
-import { isSweepActive, useSweep } from "../../api/use-sweeps.js";
+import { isSweepActive, useCancelSweep, useSweep } from "../../api/use-sweeps.js";
+import { ButtonLink } from "../../components/button.js";
 import { CautionNote } from "../../components/caution-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
 import { formatNumber } from "../../components/format-number.js";
 import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
-import { ProgressBar } from "../../components/progress-bar.js";
 import { FrontPanel } from "../fronts/front-panel.js";
 import { criterionShortLabel } from "../fronts/criterion-label.js";
 import { scenarioSummary } from "../fronts/front-panel.js";
 import { plantKindShort } from "../plants/plant-kind.js";
 import { STRUCTURES } from "./structure-choices.js";
-import { useWorkspaceRole } from "../workspace/use-workspace-role.js";
+import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
+import { ChunkFailures, SweepProgressPanel } from "./sweep-progress-panel.js";
+import { formatCount, sweepProgress } from "./sweep-progress.js";
 import { SweepStatusBadge } from "./sweep-status.js";
 
 /** /w/:slug/sweeps/:sweepId — progress while the sweep runs; then the front. */
 export function SweepDetailPage() {
-  const { slug } = useWorkspaceRole();
+  const { slug, workspace, role, canEdit } = useWorkspaceRole();
   const { sweepId = "" } = useParams();
   const sweep = useSweep(slug, sweepId);
+  const cancel = useCancelSweep(slug, sweepId);
+  const workspaceName = workspace.data?.workspace.name;
   const back = { to: `/w/${slug}/sweeps`, label: "Sweeps" };
 
   if (sweep.isPending) return <Loading label="Loading the sweep…" />;
@@ -34,6 +38,17 @@ export function SweepDetailPage() {
     );
 
   const s = sweep.data;
+  const progress = sweepProgress(s);
+  const status: string = s.status;
+  const runAgain = (
+    <ButtonLink
+      to={`/w/${slug}/sweeps/new?from=${encodeURIComponent(s.id)}`}
+      disabledReason={workspace.data && !canEdit ? roleSentence("Running sweeps", "engineer", workspaceName, role) : null}
+      testId="run-again"
+    >
+      Run again with changes
+    </ButtonLink>
+  );
   return (
     <div data-testid="sweep-detail-page">
       <PageHeader
@@ -43,6 +58,7 @@ export function SweepDetailPage() {
           </span>
         }
         back={back}
+        actions={runAgain}
         subtitle={
           <>
             <Link to={`/w/${slug}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="text-ink hover:text-moss">
@@ -58,13 +74,16 @@ export function SweepDetailPage() {
         <CautionNote />
         <Definition sweep={s} />
         {isSweepActive(s.status) ? (
-          <div className="rounded-lg border border-line bg-sheet px-5 py-4">
-            <div className="mb-2 flex items-baseline justify-between text-sm">
-              <span className="font-medium">{s.status === "queued" ? "Waiting to start…" : "Scoring candidates…"}</span>
-              <span className="text-xs text-ink-soft">This page follows the sweep every second.</span>
-            </div>
-            <ProgressBar done={s.done} total={s.total} testId="sweep-progress" />
-          </div>
+          <SweepProgressPanel
+            progress={progress}
+            queued={s.status === "queued"}
+            cancel={{
+              run: () => cancel.mutate(),
+              pending: cancel.isPending,
+              error: cancel.error,
+              refusal: workspace.data && !canEdit ? roleSentence("Cancelling a sweep", "engineer", workspaceName, role) : null,
+            }}
+          />
         ) : s.status === "failed" ? (
           <ErrorNote
             error={new Error(s.error ?? "The sweep stopped without a reason.")}
@@ -72,7 +91,16 @@ export function SweepDetailPage() {
             testId="sweep-failed"
           />
         ) : (
-          <FrontPanel slug={slug} sweep={s} />
+          <>
+            {status === "cancelled" ? (
+              <p className="rounded-md border border-amber/40 bg-amber-wash px-4 py-2.5 text-sm" data-testid="sweep-cancelled">
+                This sweep was cancelled after {formatCount(s.done)} of {formatCount(s.total)} candidates.
+                {s.done > 0 ? " The front below covers the candidates scored before it stopped." : " No candidate was scored; run it again to get a front."}
+              </p>
+            ) : null}
+            {progress.failures.length > 0 ? <ChunkFailures failures={progress.failures} /> : null}
+            {status !== "cancelled" || s.done > 0 ? <FrontPanel slug={slug} sweep={s} /> : null}
+          </>
         )}
       </div>
     </div>

@@ -1,5 +1,5 @@
 import { Link } from "react-router";
-import { useSweeps } from "../../api/use-sweeps.js";
+import { isSweepActive, useSweeps } from "../../api/use-sweeps.js";
 import { ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
 import { RoleNote } from "../../components/role-note.js";
@@ -9,6 +9,7 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { ProgressBar } from "../../components/progress-bar.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
+import { formatEta, formatRate, sweepProgress } from "./sweep-progress.js";
 import { SweepStatusBadge } from "./sweep-status.js";
 
 /** /w/:slug/sweeps — every sweep, newest first, with its state and progress. */
@@ -55,7 +56,7 @@ export function SweepListPage() {
                 <th className="px-4 py-2 font-medium">Name</th>
                 <th className="px-4 py-2 font-medium">Plant</th>
                 <th className="px-4 py-2 font-medium">State</th>
-                <th className="w-56 px-4 py-2 font-medium">Progress</th>
+                <th className="w-64 px-4 py-2 font-medium">Progress</th>
                 <th className="px-4 py-2 font-medium">Started</th>
               </tr>
             </thead>
@@ -77,7 +78,7 @@ export function SweepListPage() {
                     <SweepStatusBadge status={s.status} />
                   </td>
                   <td className="px-4 py-2.5">
-                    <ProgressBar done={s.done} total={s.total} compact />
+                    <SweepGlance sweep={s} />
                   </td>
                   <td className="px-4 py-2.5 text-xs text-ink-soft">
                     {formatDateTime(s.createdAt)} · {s.createdBy.name}
@@ -88,6 +89,24 @@ export function SweepListPage() {
           </table>
         </div>
       )}
+    </div>
+  );
+}
+
+/** Progress of one sweep in a table row: the bar, and while it runs the rate and the time left; failed chunks when there are any. */
+function SweepGlance({ sweep }: { sweep: Parameters<typeof sweepProgress>[0] & { status: string } }) {
+  const p = sweepProgress(sweep);
+  const active = isSweepActive(sweep.status as Parameters<typeof isSweepActive>[0]);
+  return (
+    <div data-testid="sweep-glance">
+      <ProgressBar done={p.done} total={p.total} compact />
+      {active && (p.ratePerSecond !== null || p.etaSeconds !== null) ? (
+        <div className="mt-0.5 flex justify-between font-mono text-[11px] text-ink-soft">
+          <span>{formatRate(p.ratePerSecond)}</span>
+          <span>{p.etaSeconds !== null ? `${formatEta(p.etaSeconds)} left` : ""}</span>
+        </div>
+      ) : null}
+      {p.chunksFailed > 0 ? <div className="mt-0.5 text-[11px] text-rust">{p.chunksFailed} chunk{p.chunksFailed === 1 ? "" : "s"} failed</div> : null}
     </div>
   );
 }
