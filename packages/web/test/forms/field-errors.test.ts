@@ -40,13 +40,14 @@ describe("fieldErrors", () => {
     const result = sweepInputSchema.safeParse({
       name: "too big",
       plantRevisionId: "00000000-0000-4000-8000-000000000000",
-      ranges: { kp: { min: 0, max: 1, count: 100 }, ki: { min: 0, max: 1, count: 100 }, kd: { min: 0, max: 0, count: 1 } },
+      // 100 × 100 × 101 = 1,010,000 candidates: over the cap of every schema version (5000, then 1,000,000).
+      ranges: { kp: { min: 0.1, max: 1, count: 100 }, ki: { min: 0, max: 1, count: 100 }, kd: { min: 0, max: 1, count: 101 } },
       scenario: { horizon: 10, dt: 0.01 },
     });
     expect(result.success).toBe(false);
     if (!result.success) {
       const errors = fieldErrors(result.error.issues, ["name", "ranges", "ranges.kp.count"]);
-      expect(errors.ranges).toContain("10000 candidates");
+      expect(errors.ranges).toMatch(/1,?010,?000 candidates/);
     }
   });
 });
