@@ -126,6 +126,8 @@ export { nyquistStability } from "./stability/nyquist-stability.js";
 // Sweeps and fronts.
 export { gridCandidates } from "./sweeps/grid-candidates.js";
 export { paretoFront } from "./fronts/pareto-front.js";
+export { nonDominatedSort } from "./fronts/non-dominated-sort.js";
+export { AGGREGATE_KINDS, aggregateScores, percentileType7 } from "./aggregates/aggregate-scores.js";
 
 // Batch evaluation: structures, designs, evaluateBatch (the worker pool is the separate Node-only entry "@loopyard/core/pool").
 export {
@@ -234,6 +236,7 @@ export type { ParameterAxis, ParameterScale, ParameterSpace } from "./batch/para
 export type { BatchStatus } from "./batch/batch-status.js";
 export type { BatchOptions, BatchResult, EvaluationOptions } from "./batch/evaluate-batch.js";
 export type { SobolOptions } from "./batch/sobol-design.js";
+export type { Aggregate } from "./aggregates/aggregate-scores.js";
 export type { SobolDirectionRow } from "./batch/sobol-direction-numbers.js";
 export type { RouthHurwitzResult, RouthSpecialCase } from "./stability/routh-hurwitz.js";
 export type { LoopTransferFunction } from "./stability/evaluate-loop.js";
