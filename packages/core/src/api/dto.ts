@@ -87,15 +87,48 @@ export interface PlantDetailDto {
   step: { t: number[]; y: number[] };
 }
 
-export type SweepStatus = "queued" | "running" | "finished" | "failed";
+/**
+ * queued → running → finished (possibly with failed chunks, listed in progress.failures) |
+ * failed (could not run at all) | cancelled (stopped by a member; finished chunks are kept).
+ */
+export type SweepStatus = "queued" | "running" | "finished" | "failed" | "cancelled";
+
+/** Live figures of a sweep run as jobs (see the README, "When one machine is not enough"). */
+export interface SweepProgressDto {
+  /** Candidates stored so far. */
+  done: number;
+  total: number;
+  /** Candidates per second over the chunks finished in the last 30 s; null when none. */
+  ratePerSecond: number | null;
+  /** (total − done) / rate [s]; null without a rate or once the sweep has stopped. */
+  etaSeconds: number | null;
+  /** Worker processes with a heartbeat in the last 15 s (all sweeps share them). */
+  workersActive: number;
+  chunksTotal: number;
+  chunksDone: number;
+  chunksFailed: number;
+  /** Chunks that failed after their last retry, with the error; their candidates are missing. */
+  failures: { chunk: number; error: string }[];
+}
+
+/** One plant variant of a sweep's family, in the order of CandidateDto.variantScores. */
+export interface SweepVariantDto {
+  label: string;
+  plantId: string;
+  revisionId: string;
+  revisionNumber: number;
+  plantName: string;
+}
 
 export interface SweepSummaryDto {
   id: string;
   name: string;
   status: SweepStatus;
+  /** The first variant's plant (the only one without a family). */
   plant: { id: string; name: string; kind: Plant["kind"]; revisionId: string; revisionNumber: number };
   total: number;
   done: number;
+  progress: SweepProgressDto;
   createdAt: string;
   finishedAt: string | null;
   createdBy: UserDto;
@@ -116,6 +149,8 @@ export interface SweepDetailDto extends SweepSummaryDto {
   criteria: CriterionId[];
   unstableCount: number;
   divergedCount: number;
+  /** The variants the candidates were scored on (one when the definition has no family). */
+  family: SweepVariantDto[];
 }
 
 /**
@@ -137,8 +172,13 @@ export interface CandidateDto {
   /** Values in the order of SweepDetailDto.parameters. */
   params: number[];
   status: CandidateStatus;
-  /** Values in the order of SweepDetailDto.criteria; null unless the candidate is stable. */
+  /**
+   * The AGGREGATE over the family (definition.aggregate; with one variant, its scores), in the
+   * order of SweepDetailDto.criteria; null unless the candidate is stable on every variant.
+   */
   scores: ScoreValue[] | null;
+  /** Scores per variant (SweepDetailDto.family order), each in criteria order; null for a variant where it is not stable. */
+  variantScores?: (ScoreValue[] | null)[];
   /** Why the candidate could not be evaluated, when that is the reason for "diverged". */
   error?: string;
 }
@@ -148,14 +188,32 @@ export interface CandidateListDto {
   parameters: string[];
   criteria: CriterionId[];
   candidates: CandidateDto[];
+  /**
+   * True when the sweep holds more than 100,000 candidates: `candidates` is then a deterministic
+   * sample of 100,000 plus every candidate of the front for the default axes, by index.
+   */
+  sampled?: boolean;
+  /** Candidates stored for the sweep (equal to candidates.length unless sampled). */
+  total?: number;
 }
 
 /** GET /api/workspaces/:slug/sweeps/:sweepId/front?x=iae&y=effort */
 export interface FrontDto {
   x: CriterionId;
   y: CriterionId;
-  /** Indices (CandidateDto.index) of the non-dominated stable candidates, sorted by x ascending. */
+  /**
+   * Indices (CandidateDto.index) of the non-dominated stable candidates on the aggregate scores,
+   * larger-is-better criteria turned, sorted by x ascending. With ?criteria=a,b,c: the rank-0
+   * candidates of the k-objective sort, by index.
+   */
   indices: number[];
+  /** The criteria of a k-objective front (?criteria=a,b,c); absent for an x–y front. */
+  criteria?: CriterionId[];
+  /**
+   * Non-dominated ranks of a k-objective front (0 = the front): ranks.indices[i] has rank
+   * ranks.ranks[i]; candidates without finite aggregate scores are left out.
+   */
+  ranks?: { indices: number[]; ranks: number[] };
 }
 
 /** GET /api/workspaces/:slug/sweeps/:sweepId/candidates/:index/response */

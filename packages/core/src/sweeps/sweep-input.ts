@@ -9,10 +9,19 @@ import {
   type Structure,
 } from "../batch/structure.js";
 import { gridDesign } from "../batch/grid-design.js";
+import { latinHypercube } from "../batch/latin-hypercube.js";
+import { seededRandomDesign } from "../batch/random-design.js";
+import { sobolDesign } from "../batch/sobol-design.js";
+import type { ParameterSpace } from "../batch/parameter-space.js";
 import { sensitivityWeightSchema } from "../frequency/sensitivity-weight-schema.js";
 
-/** Largest number of candidates one sweep may hold in this version (grid product). */
-export const MAX_SWEEP_CANDIDATES = 5000;
+/**
+ * Largest number of candidates one sweep may hold (grid product or design count). The server may
+ * set a lower per-workspace limit (LOOPYARD_MAX_CANDIDATES).
+ */
+export const MAX_SWEEP_CANDIDATES = 1_000_000;
+/** Most plant variants in one sweep's family. */
+export const MAX_FAMILY_VARIANTS = 20;
 /**
  * Criteria a sweep scores when none are chosen: the four of the first version, so sweeps stored
  * without a criteria list keep their meaning as CRITERION_IDS grows.
@@ -26,17 +35,26 @@ export const DEFAULT_DERIVATIVE_FILTER = { mode: "ratio", n: 10 } as const;
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be finite`);
 
 /**
- * One swept parameter: `count` values spaced evenly from `min` to `max` (inclusive). The sign
- * rules depend on the parameter and are checked by sweepInputSchema (see PARAMETER_SIGN).
+ * One swept parameter from `min` to `max` (inclusive) on a `scale` (default "linear"; "log" spreads
+ * values evenly in decades and needs min > 0). A grid design takes `count` values (default 1); the
+ * other designs ignore `count` and draw the design's own count of candidates from the box. The sign
+ * rules depend on the parameter and are checked by sweepInputSchema (see parameterSign).
  */
 export const parameterRangeSchema = z
   .object({
     min: finite("min"),
     max: finite("max"),
-    count: z.number().int("count must be a whole number").min(1, "count must be at least 1").max(1000, "count must be at most 1000"),
+    count: z
+      .number()
+      .int("count must be a whole number")
+      .min(1, "count must be at least 1")
+      .max(1_000_000, "count must be at most 1000000")
+      .default(1),
+    scale: z.enum(["linear", "log"], { error: 'scale must be "linear" or "log"' }).optional(),
   })
   .refine((r) => r.max >= r.min, { message: "max must be ≥ min", path: ["max"] })
-  .refine((r) => r.count === 1 || r.max > r.min, { message: "with more than one value, max must exceed min", path: ["max"] });
+  .refine((r) => r.count === 1 || r.max > r.min, { message: "with more than one value, max must exceed min", path: ["max"] })
+  .refine((r) => r.scale !== "log" || r.min > 0, { message: "a log scale needs min > 0", path: ["min"] });
 
 export type ParameterRange = z.infer<typeof parameterRangeSchema>;
 
@@ -84,6 +102,85 @@ export const criterionOptionsSchema = z.object({
   weight: sensitivityWeightSchema.optional(),
 });
 
+const wholeCount = (what: string, max: number) =>
+  z
+    .number({ error: `${what} must be a number` })
+    .int(`${what} must be a whole number`)
+    .min(1, `${what} must be at least 1`)
+    .max(max, `${what} must be at most ${max}`);
+const seedSchema = z.number({ error: "seed must be a number" }).int("seed must be a whole number");
+
+/**
+ * How a sweep chooses its candidates (default grid):
+ * - grid: the product of the ranges' counts, row-major (first parameter slowest);
+ * - latin-hypercube, random: `count` candidates drawn with `seed` (same seed, same candidates);
+ * - sobol: the first `count` points of a Sobol sequence (scrambled when a seed is given);
+ * - search nelder-mead: `starts` multi-start simplex searches of `iterations` evaluations each on
+ *   the aggregate of `criterion`; search nsga2: `population` × `generations` evaluations, every
+ *   criterion of the sweep an objective (larger-is-better ones negated).
+ * Non-grid designs ignore the ranges' counts.
+ */
+export const sweepDesignSchema = z.union(
+  [
+    z.object({ kind: z.literal("grid") }),
+    z.object({ kind: z.literal("latin-hypercube"), count: wholeCount("design.count", MAX_SWEEP_CANDIDATES), seed: seedSchema }),
+    z.object({ kind: z.literal("sobol"), count: wholeCount("design.count", MAX_SWEEP_CANDIDATES), seed: seedSchema.optional() }),
+    z.object({ kind: z.literal("random"), count: wholeCount("design.count", MAX_SWEEP_CANDIDATES), seed: seedSchema }),
+    z.object({
+      kind: z.literal("search"),
+      method: z.literal("nelder-mead"),
+      criterion: z.enum(CRITERION_IDS, { error: `unknown criterion; use one of ${CRITERION_IDS.join(", ")}` }),
+      starts: wholeCount("starts", 1000),
+      iterations: wholeCount("iterations", 100_000),
+      seed: seedSchema,
+    }),
+    z.object({
+      kind: z.literal("search"),
+      method: z.literal("nsga2"),
+      population: wholeCount("population", 10_000),
+      generations: wholeCount("generations", 10_000),
+      seed: seedSchema,
+    }),
+  ],
+  { error: 'design must be {kind:"grid"}, latin-hypercube/random {count, seed}, sobol {count, seed?} or search (nelder-mead or nsga2)' },
+);
+
+export type SweepDesign = z.infer<typeof sweepDesignSchema>;
+
+/** How a criterion is combined over the family's variants (default worst case). */
+export const sweepAggregateSchema = z.discriminatedUnion(
+  "kind",
+  [
+    z.object({ kind: z.literal("worst") }),
+    z.object({ kind: z.literal("mean") }),
+    z.object({ kind: z.literal("percentile"), p: finite("p").min(0, "p must be ≥ 0").max(100, "p must be ≤ 100") }),
+  ],
+  { error: 'aggregate must be {kind:"worst"}, {kind:"mean"} or {kind:"percentile", p}' },
+);
+
+export type SweepAggregate = z.infer<typeof sweepAggregateSchema>;
+
+/**
+ * The plant variants of a sweep: plant revisions, each with an optional label and, for a
+ * nonlinear plant, overrides of its parameters. The first variant's revision is the sweep's
+ * `plantRevisionId`.
+ */
+export const sweepFamilySchema = z.object({
+  name: z.string().trim().max(120, "keep the family name under 120 characters").optional(),
+  variants: z
+    .array(
+      z.object({
+        plantRevisionId: z.string().uuid("choose a plant revision"),
+        label: z.string().trim().max(120, "keep the label under 120 characters").optional(),
+        parameters: z.record(z.string(), finite("every variant parameter")).optional(),
+      }),
+    )
+    .min(1, "give at least one variant")
+    .max(MAX_FAMILY_VARIANTS, `a family holds at most ${MAX_FAMILY_VARIANTS} variants`),
+});
+
+export type SweepFamily = z.infer<typeof sweepFamilySchema>;
+
 /** The controller schema's own anti-windup field (none, back-calculation with tt, conditional). */
 const antiWindupSchema = controllerSchema.options[0].shape.antiWindup;
 
@@ -99,7 +196,13 @@ export function parameterSign(kind: ControllerKind, name: string): "non-negative
 }
 
 /**
- * What a user submits to start a grid sweep on one plant revision (version 2).
+ * What a user submits to start a sweep (version 3).
+ *
+ * - `family` (optional): the plant variants; without it the sweep has one variant,
+ *   `plantRevisionId`. With it, `plantRevisionId` stays required and must be the first variant's
+ *   revision (so every stored definition names a plant revision).
+ * - `design` (default grid), `aggregate` over the family (default worst case); ranges may carry a
+ *   `scale` ("log" needs min > 0).
  *
  * - `structure`: a controller kind (CONTROLLER_KINDS, default "pid").
  * - `ranges`: the swept parameters by name, each `{min, max, count}`; `fixed`: the other parameters
@@ -131,6 +234,9 @@ export const sweepInputSchema = z
       .refine((ids) => new Set(ids).size === ids.length, { message: "list each criterion once" })
       .default(() => [...DEFAULT_SWEEP_CRITERIA]),
     criterionOptions: criterionOptionsSchema.optional(),
+    family: sweepFamilySchema.optional(),
+    design: sweepDesignSchema.default(() => ({ kind: "grid" as const })),
+    aggregate: sweepAggregateSchema.default(() => ({ kind: "worst" as const })),
   })
   .overwrite((s) => {
     // pid and pid2dof without a filter and without tf keep the version-1 default filter.
@@ -219,10 +325,20 @@ export const sweepInputSchema = z
       issue(where("sampleTime"), `sampleTime must be ≥ the time step (${s.scenario.dt} s)`);
     }
 
-    // Size of the grid and of each simulation.
-    const total = rangeNames.reduce((n, name) => n * (s.ranges[name]?.count ?? 1), 1);
+    // Family, design and the size of the sweep and of each simulation.
+    const firstVariant = s.family?.variants[0];
+    if (firstVariant && firstVariant.plantRevisionId !== s.plantRevisionId) {
+      issue(["plantRevisionId"], "plantRevisionId must be the revision of the family's first variant");
+    }
+    if (s.design.kind === "search" && s.design.method === "nelder-mead" && !s.criteria.includes(s.design.criterion)) {
+      issue(["design", "criterion"], `the search criterion must be one of the sweep's criteria (${s.criteria.join(", ")})`);
+    }
+    const total = sweepCandidateCount(s as SweepInputParsed);
     if (total > MAX_SWEEP_CANDIDATES) {
-      issue(["ranges"], `${total} candidates is more than the ${MAX_SWEEP_CANDIDATES} allowed per sweep; lower the counts`);
+      issue(
+        s.design.kind === "grid" ? ["ranges"] : ["design"],
+        `${total} candidates is more than the ${MAX_SWEEP_CANDIDATES} allowed per sweep; ${s.design.kind === "grid" ? "lower the counts" : "lower the design's count"}`,
+      );
     }
     const samples = s.scenario.horizon / s.scenario.dt;
     if (samples > MAX_SIMULATION_SAMPLES) {
@@ -296,26 +412,70 @@ export function sweepParameterNames(input: SweepInputParsed): string[] {
   return names;
 }
 
-/** Number of candidates of a sweep's grid: the product of the range counts. */
+/**
+ * Number of candidates of a sweep: the product of the range counts for a grid, the design's count
+ * for latin-hypercube, sobol and random, the evaluation budget of a search (nelder-mead: starts ×
+ * iterations; nsga2: population × generations).
+ */
 export function sweepCandidateCount(input: SweepInputParsed): number {
-  return Object.values(input.ranges).reduce((n, r) => n * r.count, 1);
+  const design = input.design ?? { kind: "grid" };
+  switch (design.kind) {
+    case "grid":
+      return Object.values(input.ranges).reduce((n, r) => n * (r.count ?? 1), 1);
+    case "latin-hypercube":
+    case "sobol":
+    case "random":
+      return design.count;
+    case "search":
+      return design.method === "nelder-mead" ? design.starts * design.iterations : design.population * design.generations;
+  }
+}
+
+/** The parameter space of a sweep: one axis per tunable name (sweepStructure order) with its scale. */
+export function sweepSpace(input: SweepInputParsed): ParameterSpace {
+  return sweepStructure(input).tunable.map((name) => {
+    const r = input.ranges[name] as ParameterRange;
+    return { name, min: r.min, max: r.max, scale: r.scale ?? "linear" };
+  });
+}
+
+/** Thrown by sweepCandidates for a design without a fixed candidate list (search designs). */
+export class UnsupportedDesignError extends Error {
+  override name = "UnsupportedDesignError";
 }
 
 /**
- * The grid of a sweep (gridDesign over the ranges): `names` = sweepStructure(input).tunable,
- * `values` row-major (n × names.length) with the first name varying slowest and the last fastest;
- * each range gives `count` values evenly spaced from min to max inclusive (count 1: min alone).
- * For version-1 sweeps this is the order and the values of gridCandidates (kp, ki, kd).
+ * The candidates of a sweep with a sampling design: `names` = sweepStructure(input).tunable,
+ * `values` row-major (n × names.length).
+ * - grid (gridDesign over the ranges): the first name varying slowest and the last fastest; each
+ *   range gives `count` values from min to max inclusive, evenly on its scale (count 1: min alone).
+ *   For version-1 sweeps this is the order and the values of gridCandidates (kp, ki, kd).
+ * - latin-hypercube, random: latinHypercube / seededRandomDesign with the design's count and seed;
+ *   sobol: sobolDesign, scrambled with the seed when one is given.
+ * Deterministic: the same definition gives the same bytes, so workers regenerate any chunk.
+ * Search designs choose their candidates as they go: this throws an UnsupportedDesignError for
+ * them.
  */
 export function sweepCandidates(input: SweepInputParsed): { names: string[]; values: Float64Array } {
   const names = [...sweepStructure(input).tunable];
   if (names.length === 0) return { names, values: new Float64Array(0) };
-  const ranges = names.map((name) => input.ranges[name] as ParameterRange);
-  const values = gridDesign(
-    names.map((name, i) => ({ name, min: ranges[i]!.min, max: ranges[i]!.max })),
-    ranges.map((r) => r.count),
-  );
-  return { names, values };
+  const space = sweepSpace(input);
+  const design = input.design ?? { kind: "grid" };
+  switch (design.kind) {
+    case "grid":
+      return { names, values: gridDesign(space, names.map((name) => (input.ranges[name] as ParameterRange).count ?? 1)) };
+    case "latin-hypercube":
+      return { names, values: latinHypercube(space, design.count, design.seed, MAX_SWEEP_CANDIDATES) };
+    case "random":
+      return { names, values: seededRandomDesign(space, design.count, design.seed, MAX_SWEEP_CANDIDATES) };
+    case "sobol":
+      return {
+        names,
+        values: sobolDesign(space, design.count, design.seed === undefined ? {} : { scramble: { seed: design.seed } }, MAX_SWEEP_CANDIDATES),
+      };
+    default:
+      throw new UnsupportedDesignError("search designs choose candidates as they run; they have no fixed list");
+  }
 }
 
 /** Required names of the kind in its order (state feedback: from the k[i] given), then sampleTime. */

@@ -111,7 +111,8 @@ describe("sweepInputSchema v2", () => {
     expect(paths({ ...base, structure: "p", ranges: { kp: { min: 1, max: 2, count: 2 } }, sampleTime: 0.001 })).toContain("sampleTime");
     expect(paths({ ...base, structure: "pi", ranges: { kp: { min: 1, max: 2, count: 2 } }, fixed: { ki: 1 }, filter: { mode: "ratio", n: 5 } })).toContain("filter");
     expect(
-      paths({ ...base, structure: "pi", ranges: { kp: { min: 1, max: 2, count: 100 }, ki: { min: 1, max: 2, count: 100 } } }),
+      // 1001 × 1000 = 1,001,000 candidates: one more thousand than MAX_SWEEP_CANDIDATES (1,000,000).
+      paths({ ...base, structure: "pi", ranges: { kp: { min: 1, max: 2, count: 1001 }, ki: { min: 1, max: 2, count: 1000 } } }),
     ).toContain("ranges");
   });
 });
@@ -140,5 +141,40 @@ describe("sweepInputSchema criterionOptions.weight", () => {
     expect(w?.num[1]).toBeCloseTo(0.5, 12);
     expect(w?.den[0]).toBeCloseTo(1, 12);
     expect(w?.den[1]).toBeCloseTo(5e-5, 15);
+  });
+});
+
+describe("sweepInputSchema v3", () => {
+  const base = { name: "s", plantRevisionId: REVISION, scenario, structure: "pi" as const };
+  const ranges = { kp: { min: 0.1, max: 10, scale: "log" as const }, ki: { min: 0.1, max: 1 } };
+
+  it("sweepInputSchema defaults the design to a grid and the aggregate to the worst case (stored v2 definitions keep their meaning)", () => {
+    const parsed = sweepInputSchema.parse({ ...base, ranges: { kp: { min: 1, max: 2, count: 3 }, ki: { min: 1, max: 2, count: 2 } } });
+    expect(parsed.design).toEqual({ kind: "grid" });
+    expect(parsed.aggregate).toEqual({ kind: "worst" });
+    expect(sweepCandidateCount(parsed)).toBe(6);
+  });
+
+  it("sweepCandidates draws a Latin hypercube of the design's count on a log axis within the bounds, the same for the same seed", () => {
+    const input = sweepInputSchema.parse({ ...base, ranges, design: { kind: "latin-hypercube", count: 50, seed: 7 } });
+    expect(sweepCandidateCount(input)).toBe(50);
+    const a = sweepCandidates(input).values;
+    const b = sweepCandidates(input).values;
+    expect(a.length).toBe(100);
+    expect(Array.from(a)).toEqual(Array.from(b));
+    for (let i = 0; i < 50; i++) {
+      expect(a[2 * i]).toBeGreaterThanOrEqual(0.1);
+      expect(a[2 * i]).toBeLessThanOrEqual(10);
+    }
+  });
+
+  it("sweepInputSchema refuses a log scale from 0, a family whose first variant is another revision, and a search criterion not scored", () => {
+    expect(paths({ ...base, ranges: { kp: { min: 0, max: 1, scale: "log" }, ki: { min: 1, max: 2 } } })).toContain("ranges.kp.min");
+    const other = "5b0e7e7e-8a4c-4d8e-9b1e-1f0c2d3e4f50";
+    expect(paths({ ...base, ranges, family: { variants: [{ plantRevisionId: other }] } })).toContain("plantRevisionId");
+    expect(
+      paths({ ...base, ranges, criteria: ["iae"], design: { kind: "search", method: "nelder-mead", criterion: "ise", starts: 2, iterations: 10, seed: 1 } }),
+    ).toContain("design.criterion");
+    expect(paths({ ...base, ranges, design: { kind: "random", count: 2_000_000, seed: 1 } })).toContain("design.count");
   });
 });

@@ -58,6 +58,17 @@ function toSummary(row: SummaryRow): SweepSummaryDto {
     plant: { id: row.plantId, name: row.plantName, kind: row.plantKind, revisionId: row.revisionId, revisionNumber: row.revisionNumber },
     total: row.total,
     done: row.done,
+    progress: {
+      done: row.done,
+      total: row.total,
+      ratePerSecond: null,
+      etaSeconds: null,
+      workersActive: 0,
+      chunksTotal: 0,
+      chunksDone: 0,
+      chunksFailed: 0,
+      failures: [],
+    },
     createdAt: row.createdAt.toISOString(),
     finishedAt: row.finishedAt ? row.finishedAt.toISOString() : null,
     createdBy: row.createdBy,
@@ -103,6 +114,9 @@ export async function findSweepDetail(db: Database, workspaceId: string, sweepId
     criteria: [...definition.criteria],
     unstableCount: countOf("unstable"),
     divergedCount: countOf("diverged"),
+    family: [
+      { label: row.plantName, plantId: row.plantId, revisionId: row.revisionId, revisionNumber: row.revisionNumber, plantName: row.plantName },
+    ],
   };
 }
 
