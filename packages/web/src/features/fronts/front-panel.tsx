@@ -8,7 +8,7 @@ import { inputClass } from "../../components/field.js";
 import { formatNumber } from "../../components/format-number.js";
 import { Loading } from "../../components/loading.js";
 import { Section } from "../../components/section.js";
-import { criterionDescription, criterionLabel, criterionShortLabel } from "./criterion-label.js";
+import { criterionAxisTitle, criterionDescription, criterionShortLabel, frontSenseNote } from "./criterion-label.js";
 import { FrontChart } from "./front-chart.js";
 import { defaultAxes, frontPoints, plottableCriteria } from "./front-points.js";
 import { FrontTable } from "./front-table.js";
@@ -93,7 +93,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
 
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-5">
         <div className="xl:col-span-3">
-          <Section title={`${criterionShortLabel(y)} against ${criterionShortLabel(x)}`} aside="smaller is better on both axes">
+          <Section title={`${criterionShortLabel(y)} against ${criterionShortLabel(x)}`} aside={frontSenseNote(x, y)}>
             {front.isError ? (
               <ErrorNote error={front.error} title="Could not compute the front" />
             ) : points.length === 0 ? (
@@ -106,8 +106,8 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                 points={points}
                 front={front.data?.indices ?? []}
                 selected={selected}
-                xTitle={criterionLabel(x)}
-                yTitle={criterionLabel(y)}
+                xTitle={criterionAxisTitle(x)}
+                yTitle={criterionAxisTitle(y)}
                 logAxes={logAxes}
                 onSelect={setSelected}
                 bound={bound}

@@ -4,6 +4,7 @@ import { Section } from "../../components/section.js";
 import { criterionDescription, criterionShortLabel } from "../fronts/criterion-label.js";
 import { criterionGroups, isFrequencyCriterion, STEP_RESPONSE_CRITERIA } from "./criterion-groups.js";
 import { FieldErrorText } from "./field-error-text.js";
+import { INFINITE_HORIZON_CRITERIA } from "./sweep-form-values.js";
 import type { SweepSectionProps } from "./sweep-form-types.js";
 
 /** Every registered criterion in groups with its unit; options of the quadratic cost and the settling band. */
@@ -16,7 +17,7 @@ export function CriteriaSection({
 }: SweepSectionProps & { chosen: readonly CriterionId[]; scenarioKind: ScenarioKind; nonlinearPlant: boolean }) {
   const o = errors.criterionOptions;
   return (
-    <Section title="Criteria" aside="every chosen criterion is scored for every stable candidate; smaller is better">
+    <Section title="Criteria" aside="every chosen criterion is scored for every stable candidate; smaller is better, except margins, crossover and bandwidth (larger is better)">
       <div className="grid grid-cols-1 gap-5 md:grid-cols-3" data-testid="criteria-groups">
         {criterionGroups().map((group) => (
           <fieldset key={group.title} className={group.wide ? "md:col-span-3" : ""}>
@@ -52,6 +53,40 @@ export function CriteriaSection({
           With a load step alone there is no setpoint change, so overshoot, undershoot, rise time and settling time do not apply: they show as “—” and
           cannot be drawn on the front. Choose “Both” to score them, or add an integral or effort criterion.
         </p>
+      ) : null}
+      <label className={`mt-4 flex items-start gap-2 text-sm ${chosen.some((c) => INFINITE_HORIZON_CRITERIA.includes(c)) ? "" : "opacity-50"}`}>
+        <input
+          type="checkbox"
+          className="mt-0.5 accent-moss"
+          disabled={!chosen.some((c) => INFINITE_HORIZON_CRITERIA.includes(c))}
+          data-testid="option-infinite-horizon"
+          {...register("criterionOptions.infiniteHorizon")}
+        />
+        <span>
+          ISE, effort and quadratic cost over an infinite horizon (exact, linear loops without dead time)
+          <span className="block text-xs text-ink-soft">
+            Computed from a Lyapunov equation instead of the simulated trace, so slow loops are not cut off at the horizon. They do not apply
+            (shown as “—”) to nonlinear plants, dead time, actuator limits, sampled controllers, noise or a load step; other criteria keep the
+            simulated horizon.
+          </span>
+        </span>
+      </label>
+      {chosen.includes("wsNorm") ? (
+        <fieldset className="mt-4 border-t border-line-soft pt-4" data-testid="weight-options">
+          <legend className="mb-2 text-xs font-medium uppercase tracking-wide text-ink-soft">Weight of ‖W·S‖∞ — W(s) = (s/M + ωB)/(s + ωB·A)</legend>
+          <div className="grid grid-cols-3 gap-4 sm:max-w-lg">
+            <Field label="M (peak of |S| allowed)" htmlFor="weight-m" name="criterionOptions.weight.M" error={o?.weight?.M?.message ?? o?.weight?.message} hint="2 is a common choice">
+              <input id="weight-m" type="number" step="any" min={0} className={`${inputClass} font-mono`} {...register("criterionOptions.weight.M", { valueAsNumber: true })} />
+            </Field>
+            <Field label="ωB [rad/s]" htmlFor="weight-omega" name="criterionOptions.weight.omegaB" error={o?.weight?.omegaB?.message} hint="bandwidth wanted">
+              <input id="weight-omega" type="number" step="any" min={0} className={`${inputClass} font-mono`} {...register("criterionOptions.weight.omegaB", { valueAsNumber: true })} />
+            </Field>
+            <Field label="A (|S| at ω = 0)" htmlFor="weight-a" name="criterionOptions.weight.A" error={o?.weight?.A?.message} hint="small: integral action">
+              <input id="weight-a" type="number" step="any" min={0} className={`${inputClass} font-mono`} {...register("criterionOptions.weight.A", { valueAsNumber: true })} />
+            </Field>
+          </div>
+          <p className="mt-2 text-xs text-ink-soft">‖W·S‖∞ &lt; 1 means |S| stays under 1/|W| at every frequency.</p>
+        </fieldset>
       ) : null}
       <div className="mt-4 grid grid-cols-3 gap-4 border-t border-line-soft pt-4 sm:max-w-lg">
         <Field label="q (weight on e²)" htmlFor="option-q" name="criterionOptions.q" error={o?.q?.message} hint="quadratic J">

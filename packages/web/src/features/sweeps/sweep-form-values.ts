@@ -36,8 +36,26 @@ export interface SweepFormValues {
     noise: { sd: number; seed: number };
   };
   criteria: CriterionId[];
-  criterionOptions: { q: number; r: number; settlingBand: number };
+  criterionOptions: {
+    q: number;
+    r: number;
+    settlingBand: number;
+    /** ISE, effort and quadratic over an infinite horizon (criterionOptions.horizon "infinite"). */
+    infiniteHorizon: boolean;
+    /** The performance weight of wsNorm, W = (s/M + ωB)/(s + ωB·A) (sent as the preset). */
+    weight: { M: number; omegaB: number; A: number };
+  };
 }
+
+/** Criteria that criterionOptions.horizon "infinite" changes. */
+export const INFINITE_HORIZON_CRITERIA: readonly CriterionId[] = ["ise", "effort", "quadratic"];
+
+/**
+ * Default performance weight: peak of |S| at most M = 2 (a common robustness target, Skogestad &
+ * Postlethwaite 2005, §2.8.2, from memory), steady-state |S| at most A = 1e-4 (integral action), and ωB = 0.1 rad/s,
+ * the order of the closed-loop bandwidth of the Ember plates (time constants of 2 to 20 s).
+ */
+export const DEFAULT_PERFORMANCE_WEIGHT = { M: 2, omegaB: 0.1, A: 1e-4 } as const;
 
 /** What the form needs to know of the chosen plant revision: its state names (for state feedback). */
 export interface SweepFormContext {
@@ -71,6 +89,11 @@ export const SWEEP_FORM_FIELDS = [
   "criterionOptions.q",
   "criterionOptions.r",
   "criterionOptions.settlingBand",
+  "criterionOptions.horizon",
+  "criterionOptions.weight",
+  "criterionOptions.weight.M",
+  "criterionOptions.weight.omegaB",
+  "criterionOptions.weight.A",
 ] as const;
 
 /**
@@ -142,7 +165,7 @@ export function defaultSweepForm(plantRevisionId = "", horizon = 60): SweepFormV
       noise: { sd: 0.01, seed: 1 },
     },
     criteria: [...DEFAULT_SWEEP_CRITERIA],
-    criterionOptions: { q: 1, r: 1, settlingBand: 0.02 },
+    criterionOptions: { q: 1, r: 1, settlingBand: 0.02, infiniteHorizon: false, weight: { ...DEFAULT_PERFORMANCE_WEIGHT } },
   };
 }
 
@@ -185,6 +208,11 @@ export function toSweepInput(values: SweepFormValues, context: SweepFormContext)
   const options: NonNullable<SweepInput["criterionOptions"]> = {};
   if (input.criteria?.includes("quadratic")) Object.assign(options, { q: values.criterionOptions.q, r: values.criterionOptions.r });
   if (input.criteria?.includes("settlingTime")) options.settlingBand = values.criterionOptions.settlingBand;
+  if (values.criterionOptions.infiniteHorizon && input.criteria?.some((c) => INFINITE_HORIZON_CRITERIA.includes(c))) options.horizon = "infinite";
+  if (input.criteria?.includes("wsNorm")) {
+    const w = values.criterionOptions.weight ?? DEFAULT_PERFORMANCE_WEIGHT;
+    options.weight = { preset: "performance", M: w.M, omegaB: w.omegaB, A: w.A };
+  }
   if (Object.keys(options).length > 0) input.criterionOptions = options;
   return input;
 }

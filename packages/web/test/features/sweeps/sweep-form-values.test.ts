@@ -40,4 +40,29 @@ describe("sweep form values", () => {
     expect(parsed.success).toBe(false);
     if (!parsed.success) expect(sweepFieldErrors(parsed.error.issues)["scenario.load.time"]).toMatch(/before the end/);
   });
+
+  it("toSweepInput sends the infinite horizon only with ise, effort or quadratic, and the wsNorm weight as the performance preset", () => {
+    const values = { ...defaultSweepForm(REVISION, 60), name: "Exact and weighted" };
+    values.criteria = ["ise", "effort", "wsNorm"];
+    values.criterionOptions = { ...values.criterionOptions, infiniteHorizon: true, weight: { M: 2, omegaB: 0.5, A: 1e-4 } };
+    const input = toSweepInput(values, { stateNames: [] });
+    expect(input.criterionOptions).toEqual({ horizon: "infinite", weight: { preset: "performance", M: 2, omegaB: 0.5, A: 1e-4 } });
+    const parsed = sweepInputSchema.safeParse(input);
+    expect(parsed.success).toBe(true);
+    // W = (s/M + ωB)/(s + ωB·A) (Skogestad & Postlethwaite 2005, §2.8.2, from memory) = (0.5s + 0.5)/(s + 5e-5).
+    const weight = parsed.data?.criterionOptions?.weight;
+    expect(weight?.num[0]).toBeCloseTo(0.5, 12);
+    expect(weight?.den[1]).toBeCloseTo(5e-5, 15);
+    values.criteria = ["iae", "itae"];
+    expect(toSweepInput(values, { stateNames: [] }).criterionOptions).toBeUndefined();
+  });
+
+  it("sweepFieldErrors puts a bad weight field at its input", () => {
+    const values = { ...defaultSweepForm(REVISION, 60), name: "Bad weight", criteria: ["wsNorm" as const] };
+    values.criterionOptions = { ...values.criterionOptions, weight: { M: -1, omegaB: 0.5, A: 1e-4 } };
+    const parsed = sweepInputSchema.safeParse(toSweepInput(values, { stateNames: [] }));
+    expect(parsed.success).toBe(false);
+    const errors = sweepFieldErrors(parsed.error?.issues ?? []);
+    expect(Object.keys(errors).some((k) => k.startsWith("criterionOptions.weight"))).toBe(true);
+  });
 });
