@@ -128,6 +128,8 @@ export { gridCandidates } from "./sweeps/grid-candidates.js";
 export { paretoFront } from "./fronts/pareto-front.js";
 export { nonDominatedSort } from "./fronts/non-dominated-sort.js";
 export { AGGREGATE_KINDS, aggregateScores, percentileType7 } from "./aggregates/aggregate-scores.js";
+export { NM_ALPHA, NM_GAMMA, NM_RHO, NM_SIGMA, NelderMeadSimplex, nelderMead } from "./search/nelder-mead.js";
+export { createNelderMeadSearch, multiStartNelderMead } from "./search/nelder-mead-search.js";
 
 // Batch evaluation: structures, designs, evaluateBatch (the worker pool is the separate Node-only entry "@loopyard/core/pool").
 export {
@@ -237,6 +239,8 @@ export type { BatchStatus } from "./batch/batch-status.js";
 export type { BatchOptions, BatchResult, EvaluationOptions } from "./batch/evaluate-batch.js";
 export type { SobolOptions } from "./batch/sobol-design.js";
 export type { Aggregate } from "./aggregates/aggregate-scores.js";
+export type { NelderMeadResult, SimplexOptions } from "./search/nelder-mead.js";
+export type { MultiStartResult, NelderMeadSearch, NelderMeadSearchOptions } from "./search/nelder-mead-search.js";
 export type { SobolDirectionRow } from "./batch/sobol-direction-numbers.js";
 export type { RouthHurwitzResult, RouthSpecialCase } from "./stability/routh-hurwitz.js";
 export type { LoopTransferFunction } from "./stability/evaluate-loop.js";

@@ -3,8 +3,11 @@ import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/c
 import type { FrontPoint } from "./front-points.js";
 import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, type BaselinePoint } from "./reference-points.js";
 
+/** Above this many candidates the cloud is drawn with WebGL (plotly scattergl); SVG stays sharper and clickable below it. */
+export const WEBGL_POINTS = 5000;
+
 /**
- * Every stable candidate as a dimmed dot, the non-dominated ones in the accent colour joined by a
+ * Every stable candidate as a dimmed dot (WebGL above WEBGL_POINTS), the non-dominated ones in the accent colour joined by a
  * staircase (each front point holds its y until the next one's x), and the chosen candidate ringed.
  * Takes plain data; calls onSelect with the candidate index of a clicked point.
  */
@@ -18,6 +21,7 @@ export function FrontChart({
   onSelect,
   bound = null,
   baselines = [],
+  describe,
 }: {
   points: readonly FrontPoint[];
   /** Candidate indices on the front, sorted by x ascending. */
@@ -31,30 +35,42 @@ export function FrontChart({
   bound?: { x: number[]; y: number[] } | null;
   /** Tuning-rule baselines on these axes (hollow diamonds with their names). */
   baselines?: readonly BaselinePoint[];
+  /** The parameters of a candidate for its hover text, e.g. "kp = 1.2, ki = 0.3". */
+  describe?: (index: number) => string;
 }) {
   const byIndex = new Map(points.map((p) => [p.index, p]));
   const frontPoints = front.map((i) => byIndex.get(i)).filter((p): p is FrontPoint => p !== undefined);
   const chosen = selected === null ? undefined : byIndex.get(selected);
-  const hover = `candidate #%{customdata}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`;
+  const hover = `candidate #%{customdata}${describe ? "<br>%{text}" : ""}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`;
+  const webgl = points.length > WEBGL_POINTS;
+  const text = (list: readonly FrontPoint[]) => (describe ? list.map((p) => describe(p.index)) : undefined);
   const data: Record<string, unknown>[] = [
     {
-      type: "scatter",
+      type: webgl ? "scattergl" : "scatter",
       mode: "markers",
       name: "stable candidates",
       x: points.map((p) => p.x),
       y: points.map((p) => p.y),
       customdata: points.map((p) => p.index),
-      // Dense grids get smaller, fainter dots so that the front stays readable above them.
-      marker: { color: CHART_COLORS.cloud, size: points.length > 1000 ? 4 : 6, opacity: points.length > 1000 ? 0.4 : 0.55, line: { width: 0 } },
+      text: text(points),
+      // Dense clouds get smaller, fainter dots so that the front stays readable above them.
+      marker: {
+        color: CHART_COLORS.cloud,
+        size: webgl ? 3 : points.length > 1000 ? 4 : 6,
+        opacity: webgl ? 0.35 : points.length > 1000 ? 0.4 : 0.55,
+        line: { width: 0 },
+      },
       hovertemplate: hover,
     },
     {
-      type: "scatter",
+      // WebGL draws above every SVG trace, so over a WebGL cloud the front is WebGL too (later traces on top).
+      type: webgl ? "scattergl" : "scatter",
       mode: "lines+markers",
       name: "front",
       x: frontPoints.map((p) => p.x),
       y: frontPoints.map((p) => p.y),
       customdata: frontPoints.map((p) => p.index),
+      text: text(frontPoints),
       line: { color: CHART_COLORS.moss, width: 2, shape: "hv" },
       marker: { color: CHART_COLORS.moss, size: 9, line: { color: "#ffffff", width: 1.5 } },
       hovertemplate: hover,
@@ -96,7 +112,7 @@ export function FrontChart({
   }
   if (chosen) {
     data.push({
-      type: "scatter",
+      type: webgl ? "scattergl" : "scatter",
       mode: "markers",
       name: `candidate #${chosen.index}`,
       x: [chosen.x],
@@ -112,7 +128,7 @@ export function FrontChart({
   const xRange = fit ? fittedRange(points.map((p) => p.x), logAxes) : null;
   const yRange = fit ? fittedRange(points.map((p) => p.y), logAxes) : null;
   return (
-    <div data-testid="front-chart" data-front-size={frontPoints.length} data-bound-points={bound?.x.length ?? 0} data-baselines={baselines.length}>
+    <div data-testid="front-chart" data-webgl={webgl ? "true" : "false"} data-points={points.length} data-front-size={frontPoints.length} data-bound-points={bound?.x.length ?? 0} data-baselines={baselines.length}>
       <LazyPlot
         height={400}
         data={data}
