@@ -16,6 +16,8 @@ import { ReferenceLegend } from "./reference-legend.js";
 import { baselinePoints, boundTrace } from "./reference-points.js";
 import { ResponseChart } from "./response-chart.js";
 import { SensitivityChart } from "./sensitivity-chart.js";
+import { VariantScoresTable, aggregateName } from "./variant-scores-table.js";
+import { formatCount } from "../sweeps/sweep-progress.js";
 
 /** The results of a finished sweep: two criteria chosen, every candidate plotted, the front drawn and listed, one candidate's response. */
 export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDto }) {
@@ -43,6 +45,16 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points, baselines]);
   const byIndex = useMemo(() => new Map(candidates.data?.candidates.map((c) => [c.index, c]) ?? []), [candidates.data]);
   const frontRows = (front.data?.indices ?? []).map((i) => byIndex.get(i)).filter((c) => c !== undefined);
+  // Hover text: the swept parameters of a candidate (fixed ones are the same for all).
+  const describe = useMemo(() => {
+    const positions = sweep.swept.map((name) => [name, sweep.parameters.indexOf(name)] as const);
+    return (index: number) => {
+      const c = byIndex.get(index);
+      return c ? positions.map(([name, i]) => `${name} = ${formatNumber(c.params[i])}`).join(", ") : "";
+    };
+  }, [byIndex, sweep.swept, sweep.parameters]);
+  const family = sweep.family ?? [];
+  const chosenCandidate = selected === null ? undefined : byIndex.get(selected);
 
   const select = (label: string, value: CriterionId, onChange: (c: CriterionId) => void, testId: string) => (
     <label className="flex items-center gap-2 whitespace-nowrap text-sm">
@@ -82,7 +94,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           log axes
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
-          {stableCount} stable of {sweep.total}
+          {stableCount} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : sweep.total}
           {sweep.unstableCount > 0 ? ` · ${sweep.unstableCount} unstable` : ""}
           {divergedCount > 0 ? ` · ${divergedCount} diverged` : ""}
           {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
@@ -90,6 +102,13 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           {front.data ? ` · ${front.data.indices.length} on the front` : ""}
         </span>
       </div>
+
+      {candidates.data.sampled ? (
+        <p className="-mt-3 text-xs text-ink-soft" data-testid="sample-note">
+          Showing a sample of {formatCount(candidates.data.candidates.length)} of {formatCount(candidates.data.total ?? sweep.total)} candidates, so
+          the page stays quick; the front is exact, computed on the server over all of them.
+        </p>
+      ) : null}
 
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-5">
         <div className="xl:col-span-3">
@@ -110,6 +129,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                 yTitle={criterionAxisTitle(y)}
                 logAxes={logAxes}
                 onSelect={setSelected}
+                describe={describe}
                 bound={bound}
                 baselines={baselines}
               />
@@ -120,7 +140,12 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
             </p>
           </Section>
         </div>
-        <div className="xl:col-span-2">
+        <div className="space-y-6 xl:col-span-2">
+          {family.length > 1 && chosenCandidate ? (
+            <Section title={`Candidate #${chosenCandidate.index} on each variant`} aside={`the front uses the ${aggregateName(sweep.definition.aggregate)}`} testId="variant-section">
+              <VariantScoresTable candidate={chosenCandidate} family={family} criteria={sweep.criteria} aggregate={sweep.definition.aggregate} />
+            </Section>
+          ) : null}
           <CandidateResponse slug={slug} sweep={sweep} index={selected} />
           {sweep.plant.kind !== "nonlinear" ? <CandidateSensitivity slug={slug} sweep={sweep} index={selected} /> : null}
         </div>
@@ -189,7 +214,7 @@ function CandidateSensitivity({ slug, sweep, index }: { slug: string; sweep: Swe
   const frequency = useCandidateFrequency(slug, sweep.id, index, true);
   if (index === null) return null;
   return (
-    <div className="mt-6">
+    <div>
       <Section title="Sensitivity |S| and complementary sensitivity |T|" aside={`candidate #${index}, log–log`} testId="sensitivity-section">
         {frequency.isPending ? (
           <Loading label="Computing the frequency response…" />
