@@ -130,6 +130,9 @@ export { nonDominatedSort } from "./fronts/non-dominated-sort.js";
 export { AGGREGATE_KINDS, aggregateScores, percentileType7 } from "./aggregates/aggregate-scores.js";
 export { NM_ALPHA, NM_GAMMA, NM_RHO, NM_SIGMA, NelderMeadSimplex, nelderMead } from "./search/nelder-mead.js";
 export { createNelderMeadSearch, multiStartNelderMead } from "./search/nelder-mead-search.js";
+export { crowdingDistance } from "./search/crowding-distance.js";
+export { CROSSOVER_PROBABILITY, POLYNOMIAL_ETA_M, SBX_ETA_C, polynomialMutation, sbxCrossover } from "./search/variation-operators.js";
+export { createNsga2Search } from "./search/nsga2-search.js";
 
 // Batch evaluation: structures, designs, evaluateBatch (the worker pool is the separate Node-only entry "@loopyard/core/pool").
 export {
@@ -241,6 +244,7 @@ export type { SobolOptions } from "./batch/sobol-design.js";
 export type { Aggregate } from "./aggregates/aggregate-scores.js";
 export type { NelderMeadResult, SimplexOptions } from "./search/nelder-mead.js";
 export type { MultiStartResult, NelderMeadSearch, NelderMeadSearchOptions } from "./search/nelder-mead-search.js";
+export type { Nsga2Front, Nsga2Options, Nsga2Search } from "./search/nsga2-search.js";
 export type { SobolDirectionRow } from "./batch/sobol-direction-numbers.js";
 export type { RouthHurwitzResult, RouthSpecialCase } from "./stability/routh-hurwitz.js";
 export type { LoopTransferFunction } from "./stability/evaluate-loop.js";
