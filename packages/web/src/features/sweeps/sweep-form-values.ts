@@ -3,11 +3,24 @@ import type { Resolver } from "react-hook-form";
 import { dottedPath, fieldErrors, type FieldIssue } from "../../forms/field-errors.js";
 import { toResolverErrors } from "../../forms/resolver-errors.js";
 import { ALL_PARAMETER_KEYS, parameterKey, parameterRows } from "./structure-choices.js";
+import {
+  DEFAULT_AGGREGATE,
+  defaultDesign,
+  parseOverrides,
+  toAggregate,
+  toDesign,
+  toFamily,
+  type AggregateValues,
+  type DesignValues,
+  type VariantValues,
+} from "./sweep-design-values.js";
 
 export interface RangeValues {
   min: number;
   max: number;
   count: number;
+  /** How values spread from min to max: evenly ("linear") or evenly in decades ("log", min > 0). */
+  scale?: "linear" | "log";
 }
 
 export type AntiWindupChoice = "default" | "back-calculation" | "conditional" | "none";
@@ -20,6 +33,12 @@ export type AntiWindupChoice = "default" | "back-calculation" | "conditional" | 
 export interface SweepFormValues {
   name: string;
   plantRevisionId: string;
+  /** Label and parameter overrides of the first variant (the plant and revision above). */
+  firstVariant: { label: string; parameters: string };
+  /** The family's other variants, second to last. */
+  variants: VariantValues[];
+  design: DesignValues;
+  aggregate: AggregateValues;
   structure: ControllerKind;
   ranges: Record<string, RangeValues>;
   filter: { mode: "ratio" | "fixed"; n: number; tf: number };
@@ -62,9 +81,26 @@ export interface SweepFormContext {
   stateNames: readonly string[];
 }
 
+/** Most variants a family may hold in the form (MAX_FAMILY_VARIANTS of the schema). */
+const FORM_VARIANTS = 20;
+
 export const SWEEP_FORM_FIELDS = [
   "name",
   "plantRevisionId",
+  "variants",
+  "firstVariant.label",
+  "firstVariant.parameters",
+  ...Array.from({ length: FORM_VARIANTS - 1 }, (_, i) => [`variants.${i}.plantRevisionId`, `variants.${i}.label`, `variants.${i}.parameters`]).flat(),
+  "design",
+  "design.count",
+  "design.seed",
+  "design.criterion",
+  "design.starts",
+  "design.iterations",
+  "design.population",
+  "design.generations",
+  "aggregate",
+  "aggregate.p",
   "structure",
   "ranges",
   ...ALL_PARAMETER_KEYS.flatMap((k) => [`ranges.${k}`, `ranges.${k}.min`, `ranges.${k}.max`, `ranges.${k}.count`]),
@@ -102,6 +138,16 @@ export const SWEEP_FORM_FIELDS = [
  */
 export function formFieldOf(path: readonly PropertyKey[] | string): string {
   const dotted = parameterKey(dottedPath(path));
+  // family.variants.0.* is the first variant (plant and revision above); the others are variants.(i − 1).*
+  const variant = /^family\.variants\.(\d+)(?:\.(plantRevisionId|label|parameters)(?:\..*)?)?$/.exec(dotted);
+  if (variant) {
+    const i = Number(variant[1]);
+    const field = variant[2];
+    if (!field) return i === 0 ? "plantRevisionId" : `variants.${i - 1}.plantRevisionId`;
+    if (i === 0) return field === "plantRevisionId" ? "plantRevisionId" : `firstVariant.${field}`;
+    return `variants.${i - 1}.${field}`;
+  }
+  if (dotted === "family" || dotted === "family.variants") return "variants";
   const fixed = /^fixed\.([^.]+)$/.exec(dotted);
   return fixed ? `ranges.${fixed[1]}.min` : dotted;
 }
@@ -149,6 +195,10 @@ export function defaultSweepForm(plantRevisionId = "", horizon = 60): SweepFormV
   return {
     name: "",
     plantRevisionId,
+    firstVariant: { label: "", parameters: "" },
+    variants: [],
+    design: defaultDesign(),
+    aggregate: { ...DEFAULT_AGGREGATE },
     structure: "pid",
     ranges: defaultRanges(),
     filter: { mode: "ratio", n: 10, tf: 0.1 },
@@ -180,7 +230,9 @@ export function toSweepInput(values: SweepFormValues, context: SweepFormContext)
   const ranges: Record<string, RangeValues> = {};
   for (const row of parameterRows(kind, context.stateNames)) {
     const r = values.ranges?.[row.key] ?? { min: Number.NaN, max: Number.NaN, count: Number.NaN };
+    // Designs that draw their own count ignore the ranges' counts (sent as typed, so "run again" keeps them).
     ranges[row.name] = { min: r.min, max: r.count === 1 && Number.isNaN(r.max) ? r.min : r.max, count: r.count };
+    if (r.scale === "log") ranges[row.name].scale = "log";
   }
   const s = values.scenario;
   const input: SweepInput = {
@@ -198,6 +250,10 @@ export function toSweepInput(values: SweepFormValues, context: SweepFormContext)
     },
     criteria: Array.isArray(values.criteria) ? values.criteria : values.criteria ? [values.criteria] : [],
   };
+  if (values.design) input.design = toDesign(values.design);
+  if (values.aggregate && (values.variants?.length ?? 0) > 0) input.aggregate = toAggregate(values.aggregate);
+  const family = toFamily({ plantRevisionId: values.plantRevisionId, ...(values.firstVariant ?? { label: "", parameters: "" }) }, values.variants ?? []);
+  if (family) input.family = family;
   if (kind === "pid" || kind === "pid2dof") {
     input.filter = values.filter.mode === "ratio" ? { mode: "ratio", n: values.filter.n } : { mode: "fixed", tf: values.filter.tf };
   }
@@ -221,6 +277,15 @@ export function toSweepInput(values: SweepFormValues, context: SweepFormContext)
 export const sweepFormResolver: Resolver<SweepFormValues, SweepFormContext, SweepInput> = async (values, context) => {
   const input = toSweepInput(values, context ?? { stateNames: [] });
   const parsed = sweepInputSchema.safeParse(input);
-  if (parsed.success) return { values: input, errors: {} };
-  return { values: {}, errors: toResolverErrors<SweepFormValues>(sweepFieldErrors(parsed.error.issues)) };
+  // Overrides that do not read as name = value lists are the form's own problem (the schema never sees the text).
+  const overrideIssues: FieldIssue[] = [];
+  const checkOverrides = (text: string | undefined, path: string) => {
+    const result = parseOverrides(text ?? "");
+    if (!result.ok) overrideIssues.push({ path, message: result.message });
+  };
+  checkOverrides(values.firstVariant?.parameters, "firstVariant.parameters");
+  (values.variants ?? []).forEach((v, i) => checkOverrides(v.parameters, `variants.${i}.parameters`));
+  if (parsed.success && overrideIssues.length === 0) return { values: input, errors: {} };
+  const issues = [...(parsed.success ? [] : parsed.error.issues), ...overrideIssues];
+  return { values: {}, errors: toResolverErrors<SweepFormValues>(sweepFieldErrors(issues)) };
 };
