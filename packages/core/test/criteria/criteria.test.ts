@@ -81,7 +81,7 @@ describe("criteria on given samples", () => {
     expect([...CRITERION_IDS].sort()).toEqual([...specIds, "quadratic", "undershoot", "steadyStateError", ...FREQUENCY_IDS].sort());
   });
 
-  it("the sweep schema accepts every id and defaults to the first version's four", () => {
+  it("the sweep schema accepts every id (wsNorm with its weight) and defaults to the first version's four", () => {
     const input = {
       name: "defaults",
       plantRevisionId: "7f0c7a3e-2b0a-4c1e-9b1a-3d5e6f708192",
@@ -89,6 +89,7 @@ describe("criteria on given samples", () => {
       scenario: { horizon: 10, dt: 0.01 },
     };
     expect(sweepInputSchema.parse(input).criteria).toEqual(["iae", "ise", "itae", "effort"]);
-    expect(sweepInputSchema.parse({ ...input, criteria: [...CRITERION_IDS] }).criteria).toEqual([...CRITERION_IDS]);
+    const weight = { preset: "performance", M: 2, omegaB: 0.5, A: 1e-4 };
+    expect(sweepInputSchema.parse({ ...input, criteria: [...CRITERION_IDS], criterionOptions: { weight } }).criteria).toEqual([...CRITERION_IDS]);
   });
 });
