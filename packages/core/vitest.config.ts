@@ -8,5 +8,8 @@ export default defineConfig({
     // test/ mirrors src/ for the numerics; some folders keep their tests beside the source (*.test.ts).
     include: ["test/**/*.test.ts", "src/**/*.test.ts"],
     sequence: { groupOrder: 0 },
+    // The CLI and worker-pool tests start Node processes and worker threads; on a busy 2-core machine
+    // one such test can take several seconds, so they get more than vitest's 5 s default.
+    testTimeout: 30_000,
   },
 });
