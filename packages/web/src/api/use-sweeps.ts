@@ -22,10 +22,11 @@ export function useSweeps(slug: string) {
 }
 
 /** GET /api/workspaces/:slug/sweeps/:sweepId — polls every second while queued or running. */
-export function useSweep(slug: string, sweepId: string) {
+export function useSweep(slug: string, sweepId: string, enabled = true) {
   return useQuery({
     queryKey: queryKeys.sweep(slug, sweepId),
     queryFn: () => apiFetch<SweepDetailDto>(`${sweepsPath(slug)}/${encodeURIComponent(sweepId)}`),
+    enabled: enabled && sweepId !== "",
     refetchInterval: (query) => (query.state.data && isSweepActive(query.state.data.status) ? SWEEP_POLL_MS : false),
   });
 }

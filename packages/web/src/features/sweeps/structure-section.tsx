@@ -23,6 +23,7 @@ export function StructureSection({
   sampled,
   antiWindup,
   hasLimits,
+  ownCount = false,
 }: SweepSectionProps & {
   structure: ControllerKind;
   stateNames: readonly string[];
@@ -31,6 +32,8 @@ export function StructureSection({
   antiWindup: AntiWindupChoice;
   /** Whether the chosen revision has actuator limits (null while it loads). */
   hasLimits: boolean | null;
+  /** True when the design draws its own count of candidates, so the counts are not used. */
+  ownCount?: boolean;
 }) {
   const rows = parameterRows(structure, stateNames);
   const pidLike = structure === "pid" || structure === "pid2dof";
@@ -68,15 +71,24 @@ export function StructureSection({
         <div>
           <div className="mb-1 flex items-baseline justify-between text-xs text-ink-soft">
             <span className="font-medium">Parameters</span>
-            <span>count values spaced evenly from min to max; count 1 holds the parameter at min</span>
+            <span>
+              {ownCount
+                ? "the design draws every parameter from min to max; max = min holds it there"
+                : "count values spaced from min to max; count 1 holds the parameter at min"}
+            </span>
           </div>
-          <div className="grid grid-cols-[7rem_1fr_1fr_1fr] items-start gap-x-3 gap-y-3" data-testid="parameter-grid">
+          <div className="grid grid-cols-[7rem_1fr_1fr_1fr_6.5rem] items-start gap-x-3 gap-y-3" data-testid="parameter-grid">
             <span />
             <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">min</span>
             <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">max</span>
-            <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">count</span>
+            <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" title={ownCount ? "Not used: the design sets the number of candidates." : undefined}>
+              count{ownCount ? " (unused)" : ""}
+            </span>
+            <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" title="linear: evenly spaced; log: evenly spaced in decades (min > 0)">
+              scale
+            </span>
             {rows.map((row) => (
-              <ParameterRangeRow key={row.key} row={row} register={register} errors={errors} />
+              <ParameterRangeRow key={row.key} row={row} register={register} errors={errors} ownCount={ownCount} />
             ))}
           </div>
         </div>
@@ -145,7 +157,7 @@ export function StructureSection({
   );
 }
 
-function ParameterRangeRow({ row, register, errors }: SweepSectionProps & { row: ParameterRow }) {
+function ParameterRangeRow({ row, register, errors, ownCount }: SweepSectionProps & { row: ParameterRow; ownCount: boolean }) {
   const rowErrors = errors.ranges?.[row.key];
   const cell = (part: "min" | "max" | "count") => {
     const message = rowErrors?.[part]?.message;
@@ -156,6 +168,7 @@ function ParameterRangeRow({ row, register, errors }: SweepSectionProps & { row:
           aria-label={`${row.name} ${part}`}
           type="number"
           step={part === "count" ? 1 : "any"}
+          disabled={part === "count" && ownCount}
           min={part === "count" ? 1 : row.sign === "any" ? undefined : 0}
           className={`${inputClass} font-mono`}
           aria-invalid={Boolean(message)}
@@ -177,6 +190,18 @@ function ParameterRangeRow({ row, register, errors }: SweepSectionProps & { row:
       {cell("min")}
       {cell("max")}
       {cell("count")}
+      <div>
+        <select
+          aria-label={`${row.name} scale`}
+          className={inputClass}
+          data-testid={`${row.key}-scale`}
+          {...register(`ranges.${row.key}.scale`)}
+        >
+          <option value="linear">linear</option>
+          <option value="log">log</option>
+        </select>
+        <FieldErrorText field={`ranges.${row.key}.scale`} message={rowErrors?.scale?.message} />
+      </div>
     </>
   );
 }

@@ -2,6 +2,7 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { useNavigate, useSearchParams } from "react-router";
 import { MAX_SWEEP_CANDIDATES, type SweepInput } from "@loopyard/core";
+import { useSweep } from "../../api/use-sweeps.js";
 import { usePlant, usePlants } from "../../api/use-plants.js";
 import { useCreateSweep } from "../../api/use-sweeps.js";
 import { Button, ButtonLink } from "../../components/button.js";
@@ -17,6 +18,11 @@ import { plantKindShort } from "../plants/plant-kind.js";
 import { hasLimits, plantStateNames } from "../plants/plant-summary.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { candidateCount, isWithinCandidateCap } from "./candidate-count.js";
+import { DesignSection } from "./design-section.js";
+import { FamilyVariants, OVERRIDES_HINT } from "./family-variants.js";
+import { DESIGNS, designCandidateCount, drawsOwnCount } from "./sweep-design-values.js";
+import { formatCount } from "./sweep-progress.js";
+import { formFromSweep } from "./sweep-prefill.js";
 import { CriteriaSection } from "./criteria-section.js";
 import { ScenarioSection } from "./scenario-section.js";
 import { StructureSection } from "./structure-section.js";
@@ -41,6 +47,10 @@ export function SweepNewPage() {
   const create = useCreateSweep(slug);
   const navigate = useNavigate();
   const [failure, setFailure] = useState<unknown>(null);
+  // "Run again with changes": ?from=<sweepId> fills the form from that sweep's definition.
+  const fromId = params.get("from") ?? "";
+  const source = useSweep(slug, fromId, fromId !== "");
+  const prefilled = useRef(false);
   const refusal = workspace.data && !canEdit ? roleSentence("Running sweeps", "engineer", workspace.data.workspace.name, role) : null;
 
   // The resolver reads the plant's state names when it runs (state feedback has one gain per state).
@@ -66,12 +76,27 @@ export function SweepNewPage() {
   const scenario = useWatch({ control, name: "scenario" });
   const criteria = useWatch({ control, name: "criteria" });
   const counts = structureCounts({ structure, ranges }, { stateNames });
-  const count = candidateCount(counts);
+  const gridCount = candidateCount(counts);
+  const design = useWatch({ control, name: "design" });
+  const aggregateKind = useWatch({ control, name: "aggregate.kind" });
+  const variants = useWatch({ control, name: "variants" });
+  const variantCount = 1 + (variants?.length ?? 0);
+  const count = design ? designCandidateCount(design, gridCount) : gridCount;
+  const ownCount = design ? drawsOwnCount(design.kind) : false;
+
+  // Fill the form once from the sweep to run again (its plant first, so the revision list is there).
+  useEffect(() => {
+    if (!source.data || prefilled.current) return;
+    prefilled.current = true;
+    form.reset(formFromSweep(source.data));
+    setPlantId(source.data.plant.id);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [source.data]);
 
   // Pick the first plant when none was asked for.
   useEffect(() => {
-    if (!plantId && plants.data && plants.data.length > 0) setPlantId(plants.data[0].id);
-  }, [plantId, plants.data]);
+    if (!plantId && !fromId && plants.data && plants.data.length > 0) setPlantId(plants.data[0].id);
+  }, [plantId, fromId, plants.data]);
 
   // When a plant loads: choose its latest revision (unless a listed one is chosen), a horizon from its step response.
   useEffect(() => {
@@ -79,6 +104,7 @@ export function SweepNewPage() {
     const { revisions, plant: summary, step } = plant.data;
     if (!revisions.some((r) => r.id === getValues("plantRevisionId"))) setValue("plantRevisionId", summary.latestRevision.id);
     const horizon = step.t.length > 0 ? Number(step.t[step.t.length - 1].toPrecision(3)) : 60;
+    if (prefilled.current) return; // a copied definition keeps its scenario
     if (!formState.dirtyFields.scenario?.horizon) setValue("scenario.horizon", horizon);
     if (!formState.dirtyFields.scenario?.dt) setValue("scenario.dt", defaultTimeStep(horizon));
     if (getValues("structure") === "state-feedback" && plantStateNames(plant.data.revision.model).length === 0) setValue("structure", "pid");
@@ -87,7 +113,7 @@ export function SweepNewPage() {
 
   // A name from the plant and the structure, until the user types one.
   useEffect(() => {
-    if (!plant.data || formState.dirtyFields.name) return;
+    if (!plant.data || formState.dirtyFields.name || prefilled.current) return;
     setValue("name", `${plant.data.plant.name} ${STRUCTURES[structure].label} grid`);
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [plant.data, structure]);
@@ -103,7 +129,7 @@ export function SweepNewPage() {
   });
 
   const back = { to: `/w/${slug}/sweeps`, label: "Sweeps" };
-  if (plants.isPending) return <Loading label="Loading the library…" />;
+  if (plants.isPending || (fromId && source.isPending)) return <Loading label={fromId ? "Copying the sweep's definition…" : "Loading the library…"} />;
   if (plants.isError)
     return (
       <>
@@ -127,6 +153,7 @@ export function SweepNewPage() {
 
   const samples = scenario.dt > 0 ? Math.ceil(scenario.horizon / scenario.dt) : null;
   const overCap = count !== null && !isWithinCandidateCap(count);
+  const evaluations = count !== null ? count * variantCount : null;
   const rows = parameterRows(structure, stateNames);
   const rangesErrors = errors.ranges as { message?: string; root?: { message?: string } } | undefined;
   const rangesMessage = rangesErrors?.message ?? rangesErrors?.root?.message;
@@ -134,14 +161,19 @@ export function SweepNewPage() {
   return (
     <div data-testid="sweep-new-page">
       <PageHeader
-        title="New sweep"
-        subtitle="A grid over the parameters of one controller structure on one plant revision; every candidate is simulated in the chosen scenario and scored."
+        title={source.data ? "Run again with changes" : "New sweep"}
+        subtitle={
+          source.data
+            ? `A copy of “${source.data.name}”; change what you like. The original sweep stays as it was.`
+            : "Candidates over the parameters of one controller structure, on one plant or a family of variants; every candidate is simulated in the chosen scenario and scored."
+        }
         back={back}
       />
       <form onSubmit={submit} noValidate className="grid grid-cols-1 gap-6 lg:grid-cols-3" data-testid="sweep-form">
         <div className="space-y-6 lg:col-span-2">
           {refusal ? <RoleNote sentence={refusal} /> : null}
           {failure ? <ErrorNote error={failure} title="The sweep was not started" /> : null}
+          {fromId && source.isError ? <ErrorNote error={source.error} title="Could not copy that sweep; the form starts empty" /> : null}
           {errors.root?.server || errors.root?.message ? (
             <p role="alert" data-testid="form-error" className="rounded-md border border-rust/40 bg-rust-wash px-4 py-2.5 text-sm text-rust">
               {errors.root?.server?.message ?? errors.root?.message}
@@ -177,7 +209,18 @@ export function SweepNewPage() {
                 </select>
               </Field>
             </div>
+            <div className="mt-4 grid grid-cols-1 gap-4 sm:grid-cols-2">
+              <Field label="Variant label" htmlFor="first-variant-label" name="firstVariant.label" error={errors.firstVariant?.label?.message} hint={variantCount > 1 ? "how this variant is named in the results" : "optional with one plant"}>
+                <input id="first-variant-label" className={inputClass} data-testid="first-variant-label" {...register("firstVariant.label")} />
+              </Field>
+              {revisionModel?.kind === "nonlinear" ? (
+                <Field label="Parameter overrides" htmlFor="first-variant-parameters" name="firstVariant.parameters" error={errors.firstVariant?.parameters?.message} hint={OVERRIDES_HINT}>
+                  <input id="first-variant-parameters" className={`${inputClass} font-mono`} {...register("firstVariant.parameters")} />
+                </Field>
+              ) : null}
+            </div>
             {plant.isError ? <div className="mt-3"><ErrorNote error={plant.error} title="Could not load the plant" /></div> : null}
+            <FamilyVariants slug={slug} plants={plants.data} control={control} register={register} setValue={setValue} errors={errors} />
           </Section>
 
           <StructureSection
@@ -189,6 +232,15 @@ export function SweepNewPage() {
             sampled={sampled}
             antiWindup={antiWindup}
             hasLimits={revisionModel ? hasLimits(revisionModel) : null}
+            ownCount={ownCount}
+          />
+          <DesignSection
+            register={register}
+            errors={errors}
+            design={design?.kind ?? "grid"}
+            aggregate={aggregateKind ?? "worst"}
+            criteria={Array.isArray(criteria) ? criteria : []}
+            variantCount={variantCount}
           />
           <ScenarioSection register={register} errors={errors} kind={scenario.kind} noiseOn={scenario.noiseOn} samples={samples} />
           <CriteriaSection register={register} errors={errors} chosen={Array.isArray(criteria) ? criteria : []} scenarioKind={scenario.kind} nonlinearPlant={revisionModel?.kind === "nonlinear"} />
@@ -199,16 +251,23 @@ export function SweepNewPage() {
             <div>
               <div className="text-xs font-medium uppercase tracking-wide text-ink-soft">Candidates</div>
               <div className={`font-mono text-3xl tabular ${overCap ? "text-rust" : "text-ink"}`} data-testid="candidate-count">
-                {count ?? "—"}
+                {count !== null ? formatCount(count) : "—"}
               </div>
               <div className="font-mono text-xs text-ink-soft" data-testid="candidate-product">
-                {rows.map((row, i) => `${row.name} ${Number.isFinite(counts[i]) ? counts[i] : "?"}`).join(" × ")}
+                {ownCount
+                  ? DESIGNS[design.kind].label
+                  : rows.map((row, i) => `${row.name} ${Number.isFinite(counts[i]) ? counts[i] : "?"}`).join(" × ")}
               </div>
+              {variantCount > 1 ? (
+                <div className="mt-1 font-mono text-xs text-ink" data-testid="evaluation-count">
+                  × {variantCount} variants = {evaluations !== null ? formatCount(evaluations) : "—"} simulations
+                </div>
+              ) : null}
             </div>
             <p className={`text-xs ${overCap ? "text-rust" : "text-ink-soft"}`} data-testid="candidate-cap">
               {overCap
-                ? `${count} is more than the ${MAX_SWEEP_CANDIDATES} candidates one sweep may hold; lower a count.`
-                : `One sweep holds at most ${MAX_SWEEP_CANDIDATES} candidates, so that it runs in about a minute on the shared server without holding up others.`}
+                ? `${formatCount(count)} is more than the ${formatCount(MAX_SWEEP_CANDIDATES)} candidates one sweep may hold; ${ownCount ? "lower the design's count" : "lower a count"}.`
+                : `One sweep holds at most ${formatCount(MAX_SWEEP_CANDIDATES)} candidates (your workspace may set less), and a workspace runs a few sweeps at a time; the server says so if this one is over. Large sweeps run as chunks on every worker and can be cancelled.`}
             </p>
             {!overCap && rangesMessage ? (
               <p role="alert" data-testid="field-error-ranges" className="text-xs text-rust">
@@ -216,7 +275,7 @@ export function SweepNewPage() {
               </p>
             ) : null}
             <Button type="submit" tone="primary" className="w-full" disabled={formState.isSubmitting || Boolean(refusal) || !plant.data} data-testid="sweep-submit">
-              {formState.isSubmitting ? "Starting…" : count !== null ? `Run ${count} candidates` : "Run sweep"}
+              {formState.isSubmitting ? "Starting…" : count !== null ? `Run ${formatCount(count)} candidates` : "Run sweep"}
             </Button>
           </div>
         </aside>
