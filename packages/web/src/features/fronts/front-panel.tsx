@@ -138,6 +138,11 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
             <p className="mt-2 text-xs text-ink-faint">
               {criterionShortLabel(x)}: {criterionDescription(x)} {x !== y ? `${criterionShortLabel(y)}: ${criterionDescription(y)}` : ""}
             </p>
+            {infiniteHorizonNote(sweep, x, y) ? (
+              <p className="mt-1 text-xs text-ink-soft" data-testid="infinite-horizon-note">
+                {infiniteHorizonNote(sweep, x, y)}
+              </p>
+            ) : null}
           </Section>
         </div>
         <div className="space-y-6 xl:col-span-2">
@@ -162,6 +167,17 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
       </Section>
     </div>
   );
+}
+
+/**
+ * When the sweep scored ise, effort or quadratic over an infinite horizon and one of them is on an axis:
+ * a sentence saying so (the descriptions speak of "the horizon"); otherwise null.
+ */
+export function infiniteHorizonNote(sweep: Pick<SweepDetailDto, "definition">, x: CriterionId, y: CriterionId): string | null {
+  if (sweep.definition.criterionOptions?.horizon !== "infinite") return null;
+  const shown = [x, y].filter((c, i, all) => (c === "ise" || c === "effort" || c === "quadratic") && all.indexOf(c) === i);
+  if (shown.length === 0) return null;
+  return `${shown.map(criterionShortLabel).join(" and ")} here ${shown.length > 1 ? "are" : "is"} exact over an infinite horizon (Lyapunov equation, no time grid), not over the ${formatNumber(sweep.definition.scenario.horizon)} s simulated; candidates they do not apply to are left out.`;
 }
 
 /** What the scenario of a sweep does, in a few words, e.g. "load step of 1 at t = 10 s". */
