@@ -162,8 +162,9 @@ describe("sweep roles and input", () => {
 
   it("when the grid is larger than allowed, then the answer is 400 naming ranges", async () => {
     const input = gridInput("Too big", revisionId);
-    input.ranges.kp.count = 100;
-    input.ranges.ki.count = 100;
+    // 1000 × 1000 × kd's count (≥ 2) is over MAX_SWEEP_CANDIDATES (1,000,000).
+    input.ranges.kp.count = 1000;
+    input.ranges.ki.count = 1000;
     const response = await team.engineer.post(sweepsPath(), input);
     expect(response.status).toBe(400);
     expect(response.body.error.field).toBe("ranges");

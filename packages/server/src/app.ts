@@ -9,8 +9,10 @@ import { apiHeaders, securityHeaders } from "./http/security-headers.js";
 import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
+import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { SweepRunner } from "./sweeps/sweep-runner.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
+import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
@@ -21,21 +23,31 @@ export interface LoopyardApp {
   app: Express;
   auth: Auth;
   db: RootDatabase;
+  /** The in-process runner (the demo seed runs its sweeps with it). */
   runner: SweepRunner;
-  /** Stops the sweep runner after its current chunk, then closes the database pool. */
+  /** Sweeps as pg-boss jobs, with the embedded worker unless turned off. */
+  jobs: SweepJobSystem;
+  /** Stops the embedded worker (running chunks finish) and pg-boss, then closes the database pool. */
   close(): Promise<void>;
 }
 
 /**
  * Builds the Loopyard HTTP application: better-auth under /api/auth, the JSON API under /api
  * (session and role checked on every route but /api/health), and the built web app when
- * `config.webDist` is given. Sweeps left unfinished by an earlier process resume in the background.
+ * `config.webDist` is given. Sweeps run as pg-boss jobs (an embedded worker takes them unless
+ * turned off); what unfinished sweeps still need is enqueued at start-up.
  */
 export function createApp(config: AppConfig): LoopyardApp {
   const database = createDatabase(config.databaseUrl);
   const { db } = database;
   const auth = createAuth(db, config);
   const runner = new SweepRunner(db);
+  const jobs = createSweepJobSystem(db, config.databaseUrl, {
+    embeddedWorker: config.embeddedWorker ?? true,
+    resume: config.resumeSweeps ?? true,
+    ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
+    ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
+  });
 
   const app = express();
   app.disable("x-powered-by");
@@ -54,7 +66,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth));
   app.use("/api/me", meRoutes(db));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db));
-  app.use("/api/workspaces/:slug/sweeps", sweepRoutes(db, runner));
+  app.use("/api/workspaces/:slug/sweeps", sweepRoutes(db, (sweepId) => jobs.start(sweepId), config.limits ?? DEFAULT_SWEEP_LIMITS));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -65,23 +77,16 @@ export function createApp(config: AppConfig): LoopyardApp {
 
   app.use(errorMiddleware(JSON_BODY_LIMIT));
 
-  const resuming =
-    config.resumeSweeps === false
-      ? Promise.resolve()
-      : runner.resumeUnfinished().then(
-          () => undefined,
-          (error: unknown) => console.error("[loopyard] could not resume unfinished sweeps:", error),
-        );
-
   let closing: Promise<void> | null = null;
   return {
     app,
     auth,
     db,
     runner,
+    jobs,
     close() {
       closing ??= (async () => {
-        await resuming;
+        await jobs.close();
         await runner.close();
         await database.close();
       })();

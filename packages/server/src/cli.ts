@@ -4,10 +4,13 @@
  *
  *   node packages/server/dist/cli.js migrate   apply pending database migrations
  *   node packages/server/dist/cli.js seed      create the demo workspace (idempotent) and print its sign-ins
- *   node packages/server/dist/cli.js serve     serve the API and the built web app
+ *   node packages/server/dist/cli.js serve     serve the API and the built web app (with an embedded sweep worker)
+ *   node packages/server/dist/cli.js worker    work on sweep chunks only (any host pointing at the same DATABASE_URL)
  *
  * Environment: DATABASE_URL, PORT, HOST, LOOPYARD_AUTH_SECRET, LOOPYARD_PUBLIC_URL, LOOPYARD_WEB_DIST,
- * LOOPYARD_MIGRATIONS_DIR, LOOPYARD_TRUSTED_ORIGINS (comma-separated extra origins, e.g. a Vite dev server).
+ * LOOPYARD_MIGRATIONS_DIR, LOOPYARD_TRUSTED_ORIGINS (comma-separated extra origins, e.g. a Vite dev server),
+ * LOOPYARD_EMBEDDED_WORKER (0: serve without a worker), LOOPYARD_WORKER_THREADS, LOOPYARD_CHUNK_EXPIRE_SECONDS,
+ * LOOPYARD_MAX_CANDIDATES, LOOPYARD_MAX_CONCURRENT_SWEEPS.
  */
 import type { Server } from "node:http";
 import { createApp } from "./app.js";
@@ -17,8 +20,11 @@ import { createDatabase } from "./db/database.js";
 import { runMigrations } from "./db/migrate.js";
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "./seed/demo-seed.js";
 import { SweepRunner } from "./sweeps/sweep-runner.js";
+import { chunkExpireSecondsFromEnv, startJobQueue } from "./jobs/job-queue.js";
+import { resumeSweepJobs } from "./sweeps/sweep-jobs.js";
+import { startSweepWorker } from "./workers/sweep-worker.js";
 
-const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve>";
+const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve|worker>";
 
 /** Connection string with the password hidden, for messages. */
 function redact(url: string): string {
@@ -88,6 +94,43 @@ async function serveCommand(): Promise<void> {
   process.on("SIGTERM", () => stop("SIGTERM"));
 }
 
+/**
+ * A worker process: pg-boss on DATABASE_URL, a piscina pool of LOOPYARD_WORKER_THREADS threads
+ * (default: every core), enqueues what unfinished sweeps still need, then works chunks until
+ * SIGINT/SIGTERM (running chunks finish first).
+ */
+async function workerCommand(): Promise<void> {
+  const databaseUrl = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
+  const threadsText = process.env.LOOPYARD_WORKER_THREADS;
+  const threads = threadsText === undefined || threadsText === "" ? undefined : Number(threadsText);
+  if (threads !== undefined && (!Number.isInteger(threads) || threads < 0)) {
+    throw new ConfigError(`LOOPYARD_WORKER_THREADS must be a whole number ≥ 0; got "${threadsText}".`);
+  }
+  const database = createDatabase(databaseUrl, { max: 6 });
+  const boss = await startJobQueue(databaseUrl, { expireSeconds: chunkExpireSecondsFromEnv() });
+  const worker = await startSweepWorker(database.db, boss, threads === undefined ? {} : { threads });
+  await resumeSweepJobs(database.db, boss);
+  console.log(`Loopyard worker ${worker.id} is working sweep chunks with ${worker.threads} threads on ${redact(databaseUrl)}.`);
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`${signal} received; finishing the running chunks…`);
+    (async () => {
+      await worker.close();
+      await boss.stop({ graceful: true, timeout: 10_000, wait: true });
+      await database.close();
+    })()
+      .then(() => process.exit(0))
+      .catch((error: unknown) => {
+        console.error("Stopping failed:", error);
+        process.exit(1);
+      });
+  };
+  process.on("SIGINT", () => stop("SIGINT"));
+  process.on("SIGTERM", () => stop("SIGTERM"));
+}
+
 async function main(command: string | undefined): Promise<void> {
   switch (command) {
     case "migrate":
@@ -96,6 +139,8 @@ async function main(command: string | undefined): Promise<void> {
       return seedCommand();
     case "serve":
       return serveCommand();
+    case "worker":
+      return workerCommand();
     default:
       console.error(USAGE);
       process.exitCode = 2;

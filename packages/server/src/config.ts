@@ -15,6 +15,14 @@ export interface AppConfig {
   webDist?: string | null;
   /** Resume sweeps left queued or running by an earlier process (default true). */
   resumeSweeps?: boolean;
+  /** Run a sweep worker inside the server (default true; LOOPYARD_EMBEDDED_WORKER=0 turns it off). */
+  embeddedWorker?: boolean;
+  /** Threads of the embedded worker's pool (LOOPYARD_WORKER_THREADS; default os.availableParallelism()). */
+  workerThreads?: number;
+  /** Chunk job expiry [s] (LOOPYARD_CHUNK_EXPIRE_SECONDS; default 120). */
+  chunkExpireSeconds?: number;
+  /** Per-workspace sweep limits (LOOPYARD_MAX_CANDIDATES, LOOPYARD_MAX_CONCURRENT_SWEEPS). */
+  limits?: { maxCandidates: number; maxConcurrentSweeps: number };
 }
 
 /** Settings of the command-line entry point on top of AppConfig. */
@@ -73,7 +81,23 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): ServerConfi
       throw new ConfigError(`LOOPYARD_TRUSTED_ORIGINS must list absolute URLs separated by commas; "${origin}" is not one.`);
     }
   }
+  const wholeNumber = (name: string, fallback: number, min: number): number => {
+    const text = env[name];
+    if (text === undefined || text === "") return fallback;
+    const value = Number(text);
+    if (!Number.isInteger(value) || value < min) throw new ConfigError(`${name} must be a whole number ≥ ${min}; got "${text}".`);
+    return value;
+  };
+  const limits = {
+    maxCandidates: wholeNumber("LOOPYARD_MAX_CANDIDATES", 1_000_000, 1),
+    maxConcurrentSweeps: wholeNumber("LOOPYARD_MAX_CONCURRENT_SWEEPS", 3, 1),
+  };
+  const workerThreads = env.LOOPYARD_WORKER_THREADS ? wholeNumber("LOOPYARD_WORKER_THREADS", 1, 0) : undefined;
   return {
+    limits,
+    embeddedWorker: env.LOOPYARD_EMBEDDED_WORKER !== "0",
+    chunkExpireSeconds: wholeNumber("LOOPYARD_CHUNK_EXPIRE_SECONDS", 120, 1),
+    ...(workerThreads === undefined ? {} : { workerThreads }),
     databaseUrl: env.DATABASE_URL ?? DEFAULT_DATABASE_URL,
     extraTrustedOrigins,
     authSecret,

@@ -102,7 +102,10 @@ export const verification = pgTable(
 /** Roles of a member, least to most rights; mirrors ROLES in @loopyard/core. */
 export const roleEnum = pgEnum("member_role", ["viewer", "engineer", "lead", "admin"]);
 
-export const sweepStatusEnum = pgEnum("sweep_status", ["queued", "running", "finished", "failed"]);
+export const sweepStatusEnum = pgEnum("sweep_status", ["queued", "running", "finished", "failed", "cancelled"]);
+
+/** State of one chunk of a sweep run as a pg-boss job. */
+export const sweepChunkStatusEnum = pgEnum("sweep_chunk_status", ["pending", "done", "failed"]);
 
 /** Mirrors CandidateStatus in @loopyard/core. */
 export const candidateStatusEnum = pgEnum("candidate_status", ["stable", "unstable", "diverged"]);
@@ -205,9 +208,12 @@ export const sweep = pgTable(
 
 /**
  * One parameter vector of a sweep (in the order of sweepParameterNames) with its scores (in the
- * order of the sweep's criteria). scores: null unless stable; inside, 'NaN' marks a criterion that
- * does not apply and 'Infinity' one never reached (PostgreSQL double precision keeps both).
- * error: why a candidate marked diverged could not be evaluated, when that was the reason.
+ * order of the sweep's criteria). scores: the AGGREGATE over the family, null unless stable on
+ * every variant; inside, 'NaN' marks a criterion that does not apply and 'Infinity' one never
+ * reached (PostgreSQL double precision keeps both). variant_scores: with more than one variant,
+ * the per-variant scores flattened variant-major (F × C, NaN where a variant is not stable); null
+ * for a single variant (then scores are its scores). error: why a candidate marked diverged could
+ * not be evaluated, when that was the reason.
  */
 export const candidate = pgTable(
   "candidate",
@@ -219,9 +225,43 @@ export const candidate = pgTable(
     params: doublePrecision("params").array().notNull(),
     status: candidateStatusEnum("status").notNull(),
     scores: doublePrecision("scores").array(),
+    variantScores: doublePrecision("variant_scores").array(),
     error: text("error"),
   },
   (table) => [primaryKey({ columns: [table.sweepId, table.index] })],
 );
+
+/**
+ * One chunk of a sweep: the contiguous candidate indices [start, end), one pg-boss job. Created
+ * when the sweep starts. A chunk becomes done in the same transaction that stores its candidates;
+ * failed after its last retry, with the error. worker_id: the worker that finished it.
+ */
+export const sweepChunk = pgTable(
+  "sweep_chunk",
+  {
+    sweepId: uuid("sweep_id")
+      .notNull()
+      .references(() => sweep.id, { onDelete: "cascade" }),
+    chunk: integer("chunk").notNull(),
+    start: integer("start").notNull(),
+    end: integer("end").notNull(),
+    status: sweepChunkStatusEnum("status").notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    error: text("error"),
+    workerId: text("worker_id"),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [primaryKey({ columns: [table.sweepId, table.chunk] }), index("sweep_chunk_finished_idx").on(table.sweepId, table.finishedAt)],
+);
+
+/** A worker process (embedded in a server or started with `cli.js worker`), alive while its heartbeat is fresh. */
+export const worker = pgTable("worker", {
+  id: text("id").primaryKey(),
+  host: text("host").notNull(),
+  pid: integer("pid").notNull(),
+  threads: integer("threads").notNull(),
+  startedAt: timestamp("started_at", { withTimezone: true }).defaultNow().notNull(),
+  heartbeatAt: timestamp("heartbeat_at", { withTimezone: true }).defaultNow().notNull(),
+});
 
 export const authSchema = { user, session, account, verification };

@@ -9,6 +9,7 @@ const candidateColumns = {
   params: candidate.params,
   status: candidate.status,
   scores: candidate.scores,
+  variantScores: candidate.variantScores,
   error: candidate.error,
 };
 
@@ -19,11 +20,31 @@ export interface CandidateRow {
   status: CandidateDto["status"];
   /** In the order of the sweep's criteria; null unless stable. */
   scores: number[] | null;
+  /** With more than one variant: F × C per-variant scores, variant-major (NaN where not stable). */
+  variantScores?: number[] | null;
   error?: string | null;
 }
 
-function toDto(row: { index: number; params: number[]; status: CandidateDto["status"]; scores: number[] | null; error: string | null }): CandidateDto {
+interface StoredRow {
+  index: number;
+  params: number[];
+  status: CandidateDto["status"];
+  scores: number[] | null;
+  variantScores: number[] | null;
+  error: string | null;
+}
+
+/** A stored row as CandidateDto; `criteria` = C, to cut variant_scores into one array per variant. */
+function toDto(row: StoredRow, criteria: number): CandidateDto {
   const dto: CandidateDto = { index: row.index, params: row.params, status: row.status, scores: row.scores ? row.scores.map(toScoreValue) : null };
+  if (row.variantScores && criteria > 0) {
+    const variants: (ReturnType<typeof toScoreValue>[] | null)[] = [];
+    for (let at = 0; at < row.variantScores.length; at += criteria) {
+      const values = row.variantScores.slice(at, at + criteria);
+      variants.push(values.every((v) => Number.isNaN(v)) ? null : values.map(toScoreValue));
+    }
+    dto.variantScores = variants;
+  }
   if (row.error !== null) dto.error = row.error;
   return dto;
 }
@@ -58,17 +79,47 @@ export async function insertCandidateChunk(db: Database, sweepId: string, rows: 
   });
 }
 
-/** Every stored candidate of the sweep by index. */
-export async function listCandidates(db: Database, sweepId: string): Promise<CandidateDto[]> {
+/** Every stored candidate of the sweep by index (C = criteria count, to shape per-variant scores). */
+export async function listCandidates(db: Database, sweepId: string, criteria = 0): Promise<CandidateDto[]> {
   const rows = await db.select(candidateColumns).from(candidate).where(eq(candidate.sweepId, sweepId)).orderBy(asc(candidate.index));
-  return rows.map(toDto);
+  return rows.map((row) => toDto(row, criteria));
 }
 
-export async function findCandidate(db: Database, sweepId: string, index: number): Promise<CandidateDto | null> {
+/**
+ * A deterministic sample of the sweep's candidates: every `stride`-th index (index mod stride = 0),
+ * plus the candidates whose indices are in `extra` (e.g. the front), by index.
+ */
+export async function listCandidateSample(db: Database, sweepId: string, stride: number, extra: readonly number[], criteria = 0): Promise<CandidateDto[]> {
+  const rows = await db
+    .select(candidateColumns)
+    .from(candidate)
+    .where(
+      and(
+        eq(candidate.sweepId, sweepId),
+        extra.length > 0
+          ? sql`(${candidate.index} % ${stride} = 0 or ${candidate.index} = any(${`{${extra.join(",")}}`}::int[]))`
+          : sql`${candidate.index} % ${stride} = 0`,
+      ),
+    )
+    .orderBy(asc(candidate.index));
+  return rows.map((row) => toDto(row, criteria));
+}
+
+/** Index and aggregate scores of every stable candidate (the input of fronts). */
+export async function listStableScores(db: Database, sweepId: string): Promise<{ index: number; scores: number[] }[]> {
+  const rows = await db
+    .select({ index: candidate.index, scores: candidate.scores })
+    .from(candidate)
+    .where(and(eq(candidate.sweepId, sweepId), eq(candidate.status, "stable")))
+    .orderBy(asc(candidate.index));
+  return rows.filter((r): r is { index: number; scores: number[] } => r.scores !== null);
+}
+
+export async function findCandidate(db: Database, sweepId: string, index: number, criteria = 0): Promise<CandidateDto | null> {
   const rows = await db
     .select(candidateColumns)
     .from(candidate)
     .where(and(eq(candidate.sweepId, sweepId), eq(candidate.index, index)))
     .limit(1);
-  return rows[0] ? toDto(rows[0]) : null;
+  return rows[0] ? toDto(rows[0], criteria) : null;
 }

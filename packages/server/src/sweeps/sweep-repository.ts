@@ -3,6 +3,7 @@ import { sweepInputSchema, sweepParameterNames } from "@loopyard/core";
 import type { CriterionId, PlantKind, SweepDetailDto, SweepInputParsed, SweepStatus, SweepSummaryDto, UserDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { candidate, plantRevision, sweep, user } from "../db/schema.js";
+import { sweepProgress } from "./sweep-chunk-repository.js";
 import { userDtoColumns } from "../users/user-repository.js";
 
 /**
@@ -88,7 +89,17 @@ function summaryQuery(db: Database) {
 export async function listSweepSummaries(db: Database, workspaceId: string, limit?: number): Promise<SweepSummaryDto[]> {
   const query = summaryQuery(db).where(eq(sweep.workspaceId, workspaceId)).orderBy(desc(sweep.createdAt), desc(sweep.id));
   const rows = limit === undefined ? await query : await query.limit(limit);
-  return rows.map(toSummary);
+  return withProgress(db, rows.map(toSummary));
+}
+
+/** Summaries with their live progress figures (sweep_chunk, worker). */
+async function withProgress<T extends SweepSummaryDto>(db: Database, summaries: T[]): Promise<T[]> {
+  const progress = await sweepProgress(db, summaries);
+  for (const summary of summaries) {
+    const figures = progress.get(summary.id);
+    if (figures) summary.progress = figures;
+  }
+  return summaries;
 }
 
 /** One sweep of a workspace with its definition and unstable count, or null. */
@@ -106,17 +117,32 @@ export async function findSweepDetail(db: Database, workspaceId: string, sweepId
   const countOf = (status: string) => counts.find((c) => c.status === status)?.n ?? 0;
   const definition = storedDefinition(row.definition);
   const parameters = sweepParameterNames(definition);
+  const variants = definition.family?.variants ?? [{ plantRevisionId: row.revisionId }];
+  const revisions = await db
+    .select({ id: plantRevision.id, plantId: plantRevision.plantId, number: plantRevision.number, name: plantRevision.name })
+    .from(plantRevision)
+    .where(inArray(plantRevision.id, [...new Set(variants.map((v) => v.plantRevisionId))]));
+  const family = variants.map((variant, i) => {
+    const revision = revisions.find((r) => r.id === variant.plantRevisionId);
+    const plantName = revision?.name ?? "(missing revision)";
+    return {
+      label: variant.label ?? (variants.length > 1 ? `${plantName} #${i + 1}` : plantName),
+      plantId: revision?.plantId ?? "",
+      revisionId: variant.plantRevisionId,
+      revisionNumber: revision?.number ?? 0,
+      plantName,
+    };
+  });
+  const [summary] = await withProgress(db, [toSummary(row)]);
   return {
-    ...toSummary(row),
+    ...(summary as SweepSummaryDto),
     definition,
     parameters,
     swept: parameters.filter((name) => name in definition.ranges),
     criteria: [...definition.criteria],
     unstableCount: countOf("unstable"),
     divergedCount: countOf("diverged"),
-    family: [
-      { label: row.plantName, plantId: row.plantId, revisionId: row.revisionId, revisionNumber: row.revisionNumber, plantName: row.plantName },
-    ],
+    family,
   };
 }
 
@@ -193,6 +219,26 @@ export async function markSweepFinished(db: Database, sweepId: string): Promise<
     .update(sweep)
     .set({ status: "finished", updatedAt: now, finishedAt: now, done: sql`${sweep.total}` })
     .where(and(eq(sweep.id, sweepId), inArray(sweep.status, ["queued", "running"])));
+}
+
+/** Cancels a queued or running sweep; returns false when it had already stopped. */
+export async function markSweepCancelled(db: Database, sweepId: string): Promise<boolean> {
+  const now = new Date();
+  const rows = await db
+    .update(sweep)
+    .set({ status: "cancelled", updatedAt: now, finishedAt: now })
+    .where(and(eq(sweep.id, sweepId), inArray(sweep.status, ["queued", "running"])))
+    .returning({ id: sweep.id });
+  return rows.length > 0;
+}
+
+/** Sweeps of a workspace that are queued or running. */
+export async function countActiveSweeps(db: Database, workspaceId: string): Promise<number> {
+  const [row] = await db
+    .select({ n: count() })
+    .from(sweep)
+    .where(and(eq(sweep.workspaceId, workspaceId), inArray(sweep.status, ["queued", "running"])));
+  return row?.n ?? 0;
 }
 
 export async function markSweepFailed(db: Database, sweepId: string, error: string): Promise<void> {

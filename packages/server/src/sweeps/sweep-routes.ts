@@ -5,8 +5,8 @@ import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
 import { parseBody, parseIdParam, parseQuery, pathParam } from "../http/validation.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
-import type { SweepRunner } from "./sweep-runner.js";
 import {
+  cancelSweep,
   createSweep,
   getCandidateResponse,
   getFront,
@@ -14,12 +14,15 @@ import {
   listCandidates,
   listSweeps,
   SWEEP_NOT_FOUND,
+  type SweepLimits,
+  type SweepStarter,
 } from "./sweep-service.js";
 import { getCandidateFrequency, getReferences } from "./sweep-reference-service.js";
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
   y: z.string({ error: "give one criterion" }).optional(),
+  criteria: z.string({ error: "list criteria separated by commas" }).optional(),
 });
 
 function candidateIndex(param: string | string[] | undefined): number {
@@ -32,7 +35,7 @@ function candidateIndex(param: string | string[] | undefined): number {
 }
 
 /** /api/workspaces/:slug/sweeps */
-export function sweepRoutes(db: Database, runner: SweepRunner): Router {
+export function sweepRoutes(db: Database, startSweep: SweepStarter, limits: SweepLimits): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading sweeps");
   const sweepIdOf = (value: unknown) => parseIdParam(value, SWEEP_NOT_FOUND);
@@ -43,7 +46,11 @@ export function sweepRoutes(db: Database, runner: SweepRunner): Router {
 
   router.post("/", memberOf(db, "engineer", "Starting sweeps"), async (req, res) => {
     const input = parseBody(sweepInputSchema, req);
-    res.status(201).json(await createSweep(db, runner, accessOf(req), input));
+    res.status(201).json(await createSweep(db, startSweep, accessOf(req), input, limits));
+  });
+
+  router.post("/:sweepId/cancel", memberOf(db, "engineer", "Cancelling sweeps"), async (req, res) => {
+    res.json(await cancelSweep(db, accessOf(req), sweepIdOf(req.params.sweepId)));
   });
 
   router.get("/:sweepId", canRead, async (req, res) => {

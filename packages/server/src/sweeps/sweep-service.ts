@@ -1,4 +1,4 @@
-import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, orientForMinimisation, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
+import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, nonDominatedSort, orientForMinimisation, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
 import type {
   CandidateListDto,
   CriterionId,
@@ -13,11 +13,11 @@ import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
-import { findCandidate, listCandidates as listStoredCandidates } from "./candidate-repository.js";
+import { findCandidate, listCandidateSample, listCandidates as listStoredCandidates, listStableScores } from "./candidate-repository.js";
+import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
 import { structureProblem, sweepPlan, tunableFromParams } from "./sweep-plan.js";
-import { findSweepDetail, insertSweep, listSweepSummaries } from "./sweep-repository.js";
-import type { SweepRunner } from "./sweep-runner.js";
+import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
 export const SWEEP_NOT_FOUND = "There is no such sweep in this workspace.";
 
@@ -31,36 +31,106 @@ export async function getSweep(db: Database, access: MemberAccess, sweepId: stri
   return detail;
 }
 
-/** Stores a queued sweep on a revision of this workspace and hands it to the runner. */
+/** Per-workspace limits of sweeps (LOOPYARD_MAX_CANDIDATES, LOOPYARD_MAX_CONCURRENT_SWEEPS). */
+export interface SweepLimits {
+  /** Most candidates in one sweep. */
+  maxCandidates: number;
+  /** Most sweeps queued or running at once in one workspace. */
+  maxConcurrentSweeps: number;
+}
+
+export const DEFAULT_SWEEP_LIMITS: SweepLimits = { maxCandidates: 1_000_000, maxConcurrentSweeps: 3 };
+
+/** Starts a stored sweep (the job system: chunks and their jobs). */
+export type SweepStarter = (sweepId: string) => Promise<void>;
+
+/**
+ * Checks the limits and every variant of the family (a revision of this workspace, parameters that
+ * fit, a structure that fits), stores the queued sweep (its definition frozen from here on) and
+ * starts it as jobs.
+ */
 export async function createSweep(
   db: Database,
-  runner: SweepRunner,
+  startSweep: SweepStarter,
   access: MemberAccess,
   input: SweepInputParsed,
+  limits: SweepLimits = DEFAULT_SWEEP_LIMITS,
 ): Promise<SweepDetailDto> {
-  const revision = await findRevisionInWorkspace(db, access.workspace.id, input.plantRevisionId);
-  if (!revision) {
-    throw badRequest("plantRevisionId: there is no such plant revision in this workspace", "plantRevisionId");
+  if (input.design.kind === "search") {
+    throw badRequest("design: search designs are not available on this server yet; use grid, latin-hypercube, sobol or random", "design");
   }
-  const problem = structureProblem(sweepPlan(input).structure, revision.model);
-  if (problem) throw badRequest(`ranges: ${problem}`, "ranges");
+  const total = sweepCandidateCount(input);
+  if (total > limits.maxCandidates) {
+    throw new HttpError(
+      422,
+      `This sweep has ${total} candidates, more than the ${limits.maxCandidates} one sweep may hold in this workspace; lower the counts (or the design's count), or ask an admin to raise LOOPYARD_MAX_CANDIDATES.`,
+    );
+  }
+  const structure = sweepPlan(input).structure;
+  const variants = definitionVariants(input);
+  for (const [i, variant] of variants.entries()) {
+    const field = input.family ? `family.variants.${i}.plantRevisionId` : "plantRevisionId";
+    const revision = await findRevisionInWorkspace(db, access.workspace.id, variant.plantRevisionId);
+    if (!revision) throw badRequest(`${field}: there is no such plant revision in this workspace`, field);
+    let plant;
+    try {
+      plant = variantPlant(revision.model, variant.parameters);
+    } catch (error) {
+      if (error instanceof SweepDefinitionError) throw badRequest(`family.variants.${i}.parameters: ${error.message}`, `family.variants.${i}.parameters`);
+      throw error;
+    }
+    const problem = structureProblem(structure, plant);
+    if (problem) throw badRequest(`ranges: ${problem}`, "ranges");
+  }
+  const active = await countActiveSweeps(db, access.workspace.id);
+  if (active >= limits.maxConcurrentSweeps) {
+    throw new HttpError(
+      409,
+      `${access.workspace.name} already runs ${active} sweeps, the most allowed at once; wait for one to finish or cancel one, then start this sweep again.`,
+    );
+  }
   const sweepId = await insertSweep(db, {
     workspaceId: access.workspace.id,
     createdBy: access.user.id,
     definition: input,
-    total: sweepCandidateCount(input),
+    total,
   });
-  runner.enqueue(sweepId);
+  await startSweep(sweepId);
   return getSweep(db, access, sweepId);
 }
 
+/** Cancels a queued or running sweep: workers skip its remaining chunks; chunks already stored are kept. */
+export async function cancelSweep(db: Database, access: MemberAccess, sweepId: string): Promise<SweepDetailDto> {
+  const sweep = await getSweep(db, access, sweepId);
+  if (!(await markSweepCancelled(db, sweepId))) {
+    throw new HttpError(409, `This sweep is already ${sweep.status}; only a queued or running sweep can be cancelled.`);
+  }
+  return getSweep(db, access, sweepId);
+}
+
+/** Most candidates one candidate list returns; larger sweeps get a sample (CandidateListDto.sampled). */
+export const CANDIDATE_LIST_LIMIT = 100_000;
+
+/**
+ * The candidates of a sweep by index. Over CANDIDATE_LIST_LIMIT stored candidates: every
+ * ⌈done / limit⌉-th index (a deterministic sample of at most the limit) plus every candidate of
+ * the front for the default axes, with `sampled: true` and `total`.
+ */
 export async function listCandidates(db: Database, access: MemberAccess, sweepId: string): Promise<CandidateListDto> {
   const sweep = await getSweep(db, access, sweepId);
-  return { parameters: sweep.parameters, criteria: sweep.criteria, candidates: await listStoredCandidates(db, sweepId) };
+  const nc = sweep.criteria.length;
+  if (sweep.done <= CANDIDATE_LIST_LIMIT) {
+    const candidates = await listStoredCandidates(db, sweepId, nc);
+    return { parameters: sweep.parameters, criteria: sweep.criteria, candidates, sampled: false, total: candidates.length };
+  }
+  const stride = Math.ceil(sweep.done / CANDIDATE_LIST_LIMIT);
+  const front = await getFront(db, access, sweepId, {});
+  const candidates = await listCandidateSample(db, sweepId, stride, front.indices, nc);
+  return { parameters: sweep.parameters, criteria: sweep.criteria, candidates, sampled: true, total: sweep.done };
 }
 
 /** Checks that a front axis names one of the sweep's criteria; otherwise a 400 naming the parameter. */
-function frontAxis(parameter: "x" | "y", value: string | undefined, criteria: readonly CriterionId[], fallback: CriterionId): CriterionId {
+function frontAxis(parameter: "x" | "y" | "criteria", value: string | undefined, criteria: readonly CriterionId[], fallback: CriterionId): CriterionId {
   if (value === undefined || value === "") return fallback;
   if ((criteria as readonly string[]).includes(value)) return value as CriterionId;
   const known = (CRITERION_IDS as readonly string[]).includes(value);
@@ -69,27 +139,50 @@ function frontAxis(parameter: "x" | "y", value: string | undefined, criteria: re
 }
 
 /**
- * The non-dominated stable candidates for criteria x and y, by x ascending of the oriented values
- * (larger-is-better criteria — margins, crossover, bandwidth — are negated first with
- * orientForMinimisation, so the front keeps the largest margin; paretoFront minimises both).
- * Defaults: x = the sweep's first criterion, y = its last.
+ * The front of a sweep on its AGGREGATE scores (stable candidates with finite scores; larger-is-
+ * better criteria turned with orientForMinimisation):
+ * - x, y (defaults: the first and the last criterion): paretoFront, indices by x ascending;
+ * - `criteria=a,b,c` (two or more): nonDominatedSort over those k objectives; `indices` = rank 0 by
+ *   index, `ranks` = the rank of every candidate with finite scores on all k.
  */
 export async function getFront(
   db: Database,
   access: MemberAccess,
   sweepId: string,
-  query: { x?: string; y?: string },
+  query: { x?: string; y?: string; criteria?: string },
 ): Promise<FrontDto> {
   const sweep = await getSweep(db, access, sweepId);
   const { criteria } = sweep;
   const x = frontAxis("x", query.x, criteria, criteria[0] as CriterionId);
   const y = frontAxis("y", query.y, criteria, criteria[criteria.length - 1] as CriterionId);
+  const scored = await listStableScores(db, sweepId);
+  if (query.criteria !== undefined && query.criteria !== "") {
+    const chosen = query.criteria.split(",").map((id) => frontAxis("criteria", id.trim(), criteria, criteria[0] as CriterionId));
+    if (chosen.length < 2 || new Set(chosen).size !== chosen.length) {
+      throw badRequest("criteria: list two or more different criteria of the sweep, separated by commas", "criteria");
+    }
+    const k = chosen.length;
+    const columns = chosen.map((id) => orientForMinimisation(Float64Array.from(scored, (c) => c.scores[criteria.indexOf(id)] ?? Number.NaN), id));
+    // Keep the candidates finite on every chosen criterion; the others have no rank.
+    const kept: number[] = [];
+    for (let i = 0; i < scored.length; i++) if (columns.every((col) => Number.isFinite(col[i]))) kept.push(i);
+    const objectives = new Float64Array(kept.length * k);
+    kept.forEach((i, row) => columns.forEach((col, j) => (objectives[row * k + j] = col[i] as number)));
+    const rank = nonDominatedSort(objectives, kept.length, k);
+    const indices = kept.filter((_, row) => rank[row] === 0).map((i) => (scored[i] as { index: number }).index);
+    return {
+      x,
+      y,
+      indices,
+      criteria: chosen,
+      ranks: { indices: kept.map((i) => (scored[i] as { index: number }).index), ranks: Array.from(rank) },
+    };
+  }
   const xi = criteria.indexOf(x);
   const yi = criteria.indexOf(y);
-  // Only finite scores of stable candidates count; paretoFront ignores the rest (NaN for null, ±inf).
-  const scored = (await listStoredCandidates(db, sweepId)).filter((c) => c.status === "stable" && c.scores !== null);
-  const xs = orientForMinimisation(Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[xi])), x);
-  const ys = orientForMinimisation(Float64Array.from(scored, (c) => fromScoreValue(c.scores?.[yi])), y);
+  // Only finite scores count; paretoFront ignores the rest (NaN, ±inf).
+  const xs = orientForMinimisation(Float64Array.from(scored, (c) => c.scores[xi] ?? Number.NaN), x);
+  const ys = orientForMinimisation(Float64Array.from(scored, (c) => c.scores[yi] ?? Number.NaN), y);
   const positions = paretoFront(xs, ys);
   return { x, y, indices: positions.map((p) => (scored[p] as { index: number }).index) };
 }

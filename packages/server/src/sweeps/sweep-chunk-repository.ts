@@ -1,0 +1,206 @@
+import { and, asc, count, eq, gt, inArray, sql } from "drizzle-orm";
+import type { SweepProgressDto } from "@loopyard/core";
+import type { Database } from "../db/database.js";
+import { candidate, sweep, sweepChunk, worker } from "../db/schema.js";
+import type { CandidateRow } from "./candidate-repository.js";
+
+/** Window over which the rate of a sweep is measured [s]. */
+export const RATE_WINDOW_SECONDS = 30;
+/** A worker counts as active when its heartbeat is at most this old [s]. */
+export const WORKER_ALIVE_SECONDS = 15;
+
+/** One chunk of a sweep: candidates [start, end). */
+export interface ChunkRange {
+  chunk: number;
+  start: number;
+  end: number;
+}
+
+/** Stores the chunks of a sweep (idempotent: existing chunks are kept). */
+export async function insertChunks(db: Database, sweepId: string, chunks: readonly ChunkRange[]): Promise<void> {
+  for (let i = 0; i < chunks.length; i += 5000) {
+    await db
+      .insert(sweepChunk)
+      .values(chunks.slice(i, i + 5000).map((c) => ({ sweepId, chunk: c.chunk, start: c.start, end: c.end })))
+      .onConflictDoNothing();
+  }
+}
+
+/** The chunks of a sweep still to run, by number. */
+export async function listPendingChunks(db: Database, sweepId: string): Promise<ChunkRange[]> {
+  return db
+    .select({ chunk: sweepChunk.chunk, start: sweepChunk.start, end: sweepChunk.end })
+    .from(sweepChunk)
+    .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.status, "pending")))
+    .orderBy(asc(sweepChunk.chunk));
+}
+
+export async function chunkCount(db: Database, sweepId: string): Promise<number> {
+  const [row] = await db.select({ n: count() }).from(sweepChunk).where(eq(sweepChunk.sweepId, sweepId));
+  return row?.n ?? 0;
+}
+
+export async function chunkStatus(db: Database, sweepId: string, chunk: number): Promise<"pending" | "done" | "failed" | null> {
+  const [row] = await db
+    .select({ status: sweepChunk.status })
+    .from(sweepChunk)
+    .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk)))
+    .limit(1);
+  return row?.status ?? null;
+}
+
+/** Counts one more attempt of a chunk (for the failure report). */
+export async function countChunkAttempt(db: Database, sweepId: string, chunk: number): Promise<void> {
+  await db
+    .update(sweepChunk)
+    .set({ attempts: sql`${sweepChunk.attempts} + 1` })
+    .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk)));
+}
+
+/**
+ * Stores a chunk's candidates and marks the chunk done in ONE transaction: rows already stored are
+ * skipped (ON CONFLICT DO NOTHING), sweep.done grows by the rows actually inserted, and the
+ * transaction that settles the last pending chunk finishes the sweep (unless it was cancelled or
+ * failed). Returns the number of rows inserted. A chunk that is no longer pending changes nothing,
+ * so a retried or duplicated job is harmless.
+ */
+export async function completeChunk(
+  db: Database,
+  sweepId: string,
+  chunk: number,
+  rows: readonly CandidateRow[],
+  workerId: string,
+): Promise<number> {
+  return db.transaction(async (tx) => {
+    // Lock the chunk row: a second worker finishing the same chunk waits here, then sees it done.
+    const locked = await tx
+      .select({ status: sweepChunk.status })
+      .from(sweepChunk)
+      .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk)))
+      .for("update");
+    if (locked[0]?.status !== "pending") return 0;
+    let inserted = 0;
+    for (let i = 0; i < rows.length; i += 2000) {
+      const part = rows.slice(i, i + 2000);
+      const result = await tx
+        .insert(candidate)
+        .values(
+          part.map((row) => ({
+            sweepId,
+            index: row.index,
+            params: row.params,
+            status: row.status,
+            scores: row.scores,
+            variantScores: row.variantScores ?? null,
+            error: row.error ?? null,
+          })),
+        )
+        .onConflictDoNothing({ target: [candidate.sweepId, candidate.index] })
+        .returning({ index: candidate.index });
+      inserted += result.length;
+    }
+    const now = new Date();
+    await tx
+      .update(sweepChunk)
+      .set({ status: "done", workerId, finishedAt: now, error: null })
+      .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk)));
+    await settleSweep(tx, sweepId, inserted, now);
+    return inserted;
+  });
+}
+
+/** Marks a chunk failed after its last retry, with the error; the sweep finishes when nothing is pending. */
+export async function failChunk(db: Database, sweepId: string, chunk: number, error: string, workerId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const now = new Date();
+    const updated = await tx
+      .update(sweepChunk)
+      .set({ status: "failed", error, workerId, finishedAt: now })
+      .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk), eq(sweepChunk.status, "pending")))
+      .returning({ chunk: sweepChunk.chunk });
+    if (updated.length > 0) await settleSweep(tx, sweepId, 0, now);
+  });
+}
+
+/** Adds `inserted` to sweep.done; finishes a queued or running sweep once no chunk is pending. */
+async function settleSweep(tx: Database, sweepId: string, inserted: number, now: Date): Promise<void> {
+  const [pending] = await tx
+    .select({ n: count() })
+    .from(sweepChunk)
+    .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.status, "pending")));
+  const last = (pending?.n ?? 0) === 0;
+  await tx
+    .update(sweep)
+    .set({
+      done: sql`${sweep.done} + ${inserted}`,
+      updatedAt: now,
+      status: last
+        ? sql`case when ${sweep.status} in ('queued', 'running') then 'finished'::sweep_status else ${sweep.status} end`
+        : sql`case when ${sweep.status} = 'queued' then 'running'::sweep_status else ${sweep.status} end`,
+      finishedAt: last ? sql`coalesce(${sweep.finishedAt}, now())` : sweep.finishedAt,
+    })
+    .where(eq(sweep.id, sweepId));
+}
+
+/** Progress figures of sweeps (see SweepProgressDto); sweeps without chunks get zeros. */
+export async function sweepProgress(
+  db: Database,
+  sweeps: readonly { id: string; done: number; total: number; status: string }[],
+): Promise<Map<string, SweepProgressDto>> {
+  const ids = sweeps.map((s) => s.id);
+  const result = new Map<string, SweepProgressDto>();
+  if (ids.length === 0) return result;
+  const since = new Date(Date.now() - RATE_WINDOW_SECONDS * 1000);
+  const [chunkRows, recentRows, failureRows, workerRows] = await Promise.all([
+    db
+      .select({ sweepId: sweepChunk.sweepId, status: sweepChunk.status, n: count() })
+      .from(sweepChunk)
+      .where(inArray(sweepChunk.sweepId, ids))
+      .groupBy(sweepChunk.sweepId, sweepChunk.status),
+    db
+      .select({
+        sweepId: sweepChunk.sweepId,
+        candidates: sql<number>`coalesce(sum(${sweepChunk.end} - ${sweepChunk.start}), 0)::int`,
+        first: sql<string | null>`min(${sweepChunk.finishedAt})::text`,
+      })
+      .from(sweepChunk)
+      .where(and(inArray(sweepChunk.sweepId, ids), eq(sweepChunk.status, "done"), gt(sweepChunk.finishedAt, since)))
+      .groupBy(sweepChunk.sweepId),
+    db
+      .select({ sweepId: sweepChunk.sweepId, chunk: sweepChunk.chunk, error: sweepChunk.error })
+      .from(sweepChunk)
+      .where(and(inArray(sweepChunk.sweepId, ids), eq(sweepChunk.status, "failed")))
+      .orderBy(asc(sweepChunk.chunk)),
+    db
+      .select({ n: count() })
+      .from(worker)
+      .where(gt(worker.heartbeatAt, new Date(Date.now() - WORKER_ALIVE_SECONDS * 1000))),
+  ]);
+  const workersActive = workerRows[0]?.n ?? 0;
+  for (const s of sweeps) {
+    const of = (status: string) => chunkRows.find((r) => r.sweepId === s.id && r.status === status)?.n ?? 0;
+    const chunksDone = of("done");
+    const chunksFailed = of("failed");
+    const chunksTotal = chunksDone + chunksFailed + of("pending");
+    const recent = recentRows.find((r) => r.sweepId === s.id);
+    const running = s.status === "queued" || s.status === "running";
+    let ratePerSecond: number | null = null;
+    if (recent && recent.candidates > 0) {
+      // Over the window, or since the first chunk of the window finished when the run is younger.
+      const span = recent.first ? Math.max(1, (Date.now() - new Date(recent.first).getTime()) / 1000) : RATE_WINDOW_SECONDS;
+      ratePerSecond = recent.candidates / Math.min(RATE_WINDOW_SECONDS, span);
+    }
+    result.set(s.id, {
+      done: s.done,
+      total: s.total,
+      ratePerSecond: running ? ratePerSecond : null,
+      etaSeconds: running && ratePerSecond ? Math.max(0, (s.total - s.done) / ratePerSecond) : null,
+      workersActive,
+      chunksTotal,
+      chunksDone,
+      chunksFailed,
+      failures: failureRows.filter((r) => r.sweepId === s.id).map((r) => ({ chunk: r.chunk, error: r.error ?? "unknown error" })),
+    });
+  }
+  return result;
+}

@@ -1,0 +1,61 @@
+import type PgBoss from "pg-boss";
+import type { Database } from "../db/database.js";
+import { enqueueChunks } from "../jobs/job-queue.js";
+import { chunkCount, insertChunks, listPendingChunks, type ChunkRange } from "./sweep-chunk-repository.js";
+import { definitionVariants } from "./sweep-evaluation.js";
+import { findSweepForRun, listUnfinishedSweepIds } from "./sweep-repository.js";
+
+/** Most candidate·variant evaluations per chunk (a chunk of 5 variants holds 400 candidates). */
+export const CHUNK_EVALUATIONS = 2000;
+/** Fewest candidates per chunk. */
+export const MIN_CHUNK_CANDIDATES = 100;
+/** A small sweep is cut into about this many chunks, so that progress moves and several workers share it. */
+export const TARGET_CHUNKS = 64;
+
+/**
+ * Candidates per chunk for a sweep of `total` candidates on `variants` plants:
+ * min(max(100, ⌊2000 / variants⌋), max(100, ⌈total / 64⌉)).
+ */
+export function chunkSizeFor(total: number, variants: number): number {
+  const largest = Math.max(MIN_CHUNK_CANDIDATES, Math.floor(CHUNK_EVALUATIONS / Math.max(1, variants)));
+  return Math.min(largest, Math.max(MIN_CHUNK_CANDIDATES, Math.ceil(total / TARGET_CHUNKS)));
+}
+
+/** The chunks [start, end) of a sweep, numbered from 0. */
+export function chunkRanges(total: number, size: number): ChunkRange[] {
+  const chunks: ChunkRange[] = [];
+  for (let start = 0, chunk = 0; start < total; start += size, chunk++) chunks.push({ chunk, start, end: Math.min(total, start + size) });
+  return chunks;
+}
+
+/**
+ * Starts a sweep as jobs: stores its chunks (the definition is frozen from here on) and enqueues
+ * one pg-boss job per pending chunk. Idempotent: running it again (a resumed start) adds nothing
+ * but the jobs of chunks whose job was never stored.
+ */
+export async function startSweepJobs(db: Database, boss: PgBoss, sweepId: string): Promise<void> {
+  const record = await findSweepForRun(db, sweepId);
+  if (!record || (record.status !== "queued" && record.status !== "running")) return;
+  if ((await chunkCount(db, sweepId)) === 0) {
+    const size = chunkSizeFor(record.total, definitionVariants(record.definition).length);
+    await insertChunks(db, sweepId, chunkRanges(record.total, size));
+  }
+  const pending = await listPendingChunks(db, sweepId);
+  await enqueueChunks(
+    boss,
+    pending.map((c) => ({ sweepId, chunk: c.chunk, start: c.start, end: c.end })),
+  );
+}
+
+/** Enqueues what every queued or running sweep still needs (start-up of a server or worker); returns how many sweeps. */
+export async function resumeSweepJobs(db: Database, boss: PgBoss): Promise<number> {
+  const ids = await listUnfinishedSweepIds(db);
+  for (const id of ids) {
+    try {
+      await startSweepJobs(db, boss, id);
+    } catch (error) {
+      console.error(`[loopyard] could not resume sweep ${id}:`, error);
+    }
+  }
+  return ids.length;
+}

@@ -1,0 +1,135 @@
+import { randomUUID } from "node:crypto";
+import { availableParallelism, hostname } from "node:os";
+import type PgBoss from "pg-boss";
+import { evaluateBatch } from "@loopyard/core";
+import { createEvaluationPool, type EvaluationPool } from "@loopyard/core/pool";
+import type { Database } from "../db/database.js";
+import { SWEEP_CHUNK_QUEUE, type ChunkJobData } from "../jobs/job-queue.js";
+import { chunkStatus, completeChunk, countChunkAttempt, failChunk } from "../sweeps/sweep-chunk-repository.js";
+import { evaluateRange, loadEvaluationContext, SweepDefinitionError, type BatchEvaluator, type SweepEvaluationContext } from "../sweeps/sweep-evaluation.js";
+import { findSweepForRun, markSweepFailed } from "../sweeps/sweep-repository.js";
+import { heartbeatWorker, pruneWorkers, registerWorker, removeWorker } from "./worker-repository.js";
+
+/** Seconds between heartbeats of a worker row. */
+export const HEARTBEAT_SECONDS = 5;
+/** Sweeps whose evaluation context a worker keeps (their candidate lists can be large). */
+const CONTEXT_CACHE_SIZE = 4;
+
+export interface SweepWorkerOptions {
+  /** Threads of the piscina pool (default os.availableParallelism()); 0 evaluates in process (tests, tiny hosts). */
+  threads?: number;
+  /** Chunk jobs worked at once (default: threads, at least 1). */
+  concurrency?: number;
+}
+
+export interface SweepWorker {
+  readonly id: string;
+  readonly threads: number;
+  /** Stops taking jobs, lets running chunks finish (up to a timeout), closes the pool and removes the worker row. */
+  close(): Promise<void>;
+}
+
+/**
+ * A worker: takes chunk jobs from pg-boss, evaluates each chunk's candidates on the sweep's family
+ * through a piscina pool (@loopyard/core/pool; the same bytes as evaluateBatch in process), and
+ * stores them with the chunk's completion in one transaction (completeChunk). Jobs of a sweep that
+ * is no longer running complete without work. A job that throws is retried by pg-boss with backoff;
+ * on its last attempt the chunk is marked failed with the error instead. Registers a `worker` row
+ * with a heartbeat every HEARTBEAT_SECONDS.
+ */
+export async function startSweepWorker(db: Database, boss: PgBoss, options: SweepWorkerOptions = {}): Promise<SweepWorker> {
+  const threads = options.threads ?? availableParallelism();
+  const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads }) : null;
+  const id = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
+  await pruneWorkers(db).catch(() => undefined);
+  await registerWorker(db, { id, host: hostname(), pid: process.pid, threads });
+  const heartbeat = setInterval(() => {
+    heartbeatWorker(db, id).catch((error: unknown) => console.error(`[loopyard] worker heartbeat failed: ${String(error)}`));
+  }, HEARTBEAT_SECONDS * 1000);
+  heartbeat.unref();
+
+  const contexts = new Map<string, Promise<SweepEvaluationContext>>();
+  const contextOf = (sweepId: string, definition: Parameters<typeof loadEvaluationContext>[2]) => {
+    let context = contexts.get(sweepId);
+    if (!context) {
+      context = loadEvaluationContext(db, sweepId, definition);
+      context.catch(() => contexts.delete(sweepId));
+      contexts.set(sweepId, context);
+      while (contexts.size > CONTEXT_CACHE_SIZE) contexts.delete(contexts.keys().next().value as string);
+    }
+    return context;
+  };
+
+  const evaluate: BatchEvaluator = async (context, candidates) => {
+    const batch = {
+      family: context.family,
+      structure: context.plan.structure,
+      candidates,
+      scenario: context.plan.scenario,
+      criteria: context.criteria,
+      evaluation: context.plan.evaluation,
+    };
+    if (pool) return pool.evaluate(batch);
+    return evaluateBatch(batch.family, batch.structure, batch.candidates, batch.scenario, batch.criteria, { evaluation: batch.evaluation });
+  };
+
+  async function handle(job: PgBoss.JobWithMetadata<ChunkJobData>): Promise<void> {
+    const { sweepId, chunk, start, end } = job.data;
+    const record = await findSweepForRun(db, sweepId);
+    // Cancelled, finished or deleted sweeps: nothing to do; the job completes.
+    if (!record || (record.status !== "queued" && record.status !== "running")) return;
+    if ((await chunkStatus(db, sweepId, chunk)) !== "pending") return;
+    await countChunkAttempt(db, sweepId, chunk);
+    try {
+      let context: SweepEvaluationContext;
+      try {
+        context = await contextOf(sweepId, record.definition);
+      } catch (error) {
+        if (error instanceof SweepDefinitionError) {
+          await markSweepFailed(db, sweepId, `The sweep could not run: ${error.message}.`);
+          return;
+        }
+        throw error;
+      }
+      const rows = await evaluateRange(context, start, end, evaluate);
+      await completeChunk(db, sweepId, chunk, rows, id);
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      if (job.retryCount >= job.retryLimit) {
+        console.error(`[loopyard] sweep ${sweepId} chunk ${chunk} failed after ${job.retryCount + 1} attempts: ${message}`);
+        await failChunk(db, sweepId, chunk, message, id);
+        return;
+      }
+      throw error;
+    }
+  }
+
+  const concurrency = Math.max(1, options.concurrency ?? threads);
+  const workIds: string[] = [];
+  for (let i = 0; i < concurrency; i++) {
+    workIds.push(
+      await boss.work<ChunkJobData>(
+        SWEEP_CHUNK_QUEUE,
+        { batchSize: 1, pollingIntervalSeconds: 0.5, includeMetadata: true },
+        async ([job]) => {
+          if (job) await handle(job);
+        },
+      ),
+    );
+  }
+
+  let closing: Promise<void> | null = null;
+  return {
+    id,
+    threads,
+    close() {
+      closing ??= (async () => {
+        clearInterval(heartbeat);
+        await boss.offWork(SWEEP_CHUNK_QUEUE).catch(() => undefined);
+        await pool?.close();
+        await removeWorker(db, id).catch(() => undefined);
+      })();
+      return closing;
+    },
+  };
+}
