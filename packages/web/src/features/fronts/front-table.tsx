@@ -1,7 +1,23 @@
+import { useState } from "react";
 import type { CandidateDto, CriterionId } from "@loopyard/core";
+import { Button } from "../../components/button.js";
 import { NumberCell } from "../../components/number-cell.js";
 import { ScoreCell } from "../../components/score-cell.js";
 import { criterionShortLabel } from "./criterion-label.js";
+
+/** Rows shown at first on a long front; the rest behind "Show all". */
+export const FRONT_ROWS_SHOWN = 60;
+
+/**
+ * At most `limit` rows spread evenly along the front (first and last kept), plus the selected one,
+ * in front order; every row when the front is short.
+ */
+export function thinRows<T extends { index: number }>(rows: readonly T[], limit: number, selected: number | null): T[] {
+  if (rows.length <= limit) return [...rows];
+  const keep = new Set<number>();
+  for (let k = 0; k < limit; k++) keep.add(Math.round((k * (rows.length - 1)) / (limit - 1)));
+  return rows.filter((row, i) => keep.has(i) || row.index === selected);
+}
 
 /** The front as a table: one row per non-dominated candidate (sorted by x), its parameters and every score. */
 export function FrontTable({
@@ -21,6 +37,8 @@ export function FrontTable({
   selected: number | null;
   onSelect: (index: number) => void;
 }) {
+  const [showAll, setShowAll] = useState(false);
+  const shown = showAll ? rows : thinRows(rows, FRONT_ROWS_SHOWN, selected);
   const axisClass = (c: CriterionId) => (c === x || c === y ? "bg-moss-wash/60" : "");
   return (
     <div className="overflow-x-auto">
@@ -42,7 +60,7 @@ export function FrontTable({
           </tr>
         </thead>
         <tbody className="divide-y divide-line-soft">
-          {rows.map((row) => {
+          {shown.map((row) => {
             const isSelected = row.index === selected;
             return (
               <tr
@@ -72,6 +90,18 @@ export function FrontTable({
           })}
         </tbody>
       </table>
+      {shown.length < rows.length || showAll ? (
+        <div className="mt-2 flex items-center gap-3 text-xs text-ink-soft" data-testid="front-rows-note">
+          {showAll
+            ? `All ${rows.length} candidates of the front.`
+            : `${shown.length} of the ${rows.length} candidates of the front, spread evenly along it.`}
+          {rows.length > FRONT_ROWS_SHOWN ? (
+            <Button tone="plain" className="px-1 py-0 text-xs" onClick={() => setShowAll(!showAll)}>
+              {showAll ? "Show fewer" : "Show all"}
+            </Button>
+          ) : null}
+        </div>
+      ) : null}
     </div>
   );
 }

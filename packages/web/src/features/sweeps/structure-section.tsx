@@ -170,7 +170,7 @@ function ParameterRangeRow({ row, register, errors, ownCount }: SweepSectionProp
           step={part === "count" ? 1 : "any"}
           disabled={part === "count" && ownCount}
           min={part === "count" ? 1 : row.sign === "any" ? undefined : 0}
-          className={`${inputClass} font-mono`}
+          className={`${inputClass} font-mono disabled:bg-line-soft/60 disabled:text-ink-faint`}
           aria-invalid={Boolean(message)}
           data-testid={`${row.key}-${part}`}
           {...register(`ranges.${row.key}.${part}`, { valueAsNumber: true })}

@@ -66,6 +66,17 @@ export function drawsOwnCount(kind: DesignChoice): boolean {
   return kind !== "grid";
 }
 
+/** A stored design in a few words, e.g. "Latin hypercube, 300 candidates, seed 7". */
+export function designSummary(design: SweepDesign | undefined): string {
+  if (!design || design.kind === "grid") return DESIGNS.grid.label;
+  if (design.kind === "search") {
+    return design.method === "nelder-mead"
+      ? `${DESIGNS["nelder-mead"].label} on ${design.criterion}: ${design.starts} starts × ${design.iterations} evaluations, seed ${design.seed}`
+      : `${DESIGNS.nsga2.label}: population ${design.population} × ${design.generations} generations, seed ${design.seed}`;
+  }
+  return `${DESIGNS[design.kind].label}, ${design.count} candidates${design.seed !== undefined ? `, seed ${design.seed}` : ""}`;
+}
+
 /** The design as the API takes it. */
 export function toDesign(values: DesignValues): SweepDesign {
   switch (values.kind) {

@@ -18,6 +18,8 @@ import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.
 import { ChunkFailures, SweepProgressPanel } from "./sweep-progress-panel.js";
 import { formatCount, sweepProgress } from "./sweep-progress.js";
 import { SweepStatusBadge } from "./sweep-status.js";
+import { designSummary } from "./sweep-design-values.js";
+import { aggregateName } from "../fronts/variant-scores-table.js";
 
 /** /w/:slug/sweeps/:sweepId — progress while the sweep runs; then the front. */
 export function SweepDetailPage() {
@@ -117,7 +119,9 @@ function Definition({ sweep }: { sweep: SweepDetailDto }) {
   const value = (name: string) => {
     const r = d.ranges[name];
     if (!r) return formatNumber(fixed[name]);
-    return r.count === 1 ? formatNumber(r.min) : `${formatNumber(r.min)} … ${formatNumber(r.max)} × ${r.count}`;
+    const scale = r.scale === "log" ? " log" : "";
+    if (d.design && d.design.kind !== "grid") return r.max === r.min ? formatNumber(r.min) : `${formatNumber(r.min)} … ${formatNumber(r.max)}${scale}`;
+    return r.count === 1 ? formatNumber(r.min) : `${formatNumber(r.min)} … ${formatNumber(r.max)} × ${r.count}${scale}`;
   };
   const antiWindup = d.antiWindup
     ? d.antiWindup.kind === "back-calculation"
@@ -146,7 +150,17 @@ function Definition({ sweep }: { sweep: SweepDetailDto }) {
       {antiWindup ? item("Anti-windup", antiWindup, false) : null}
       {item("Scenario", scenarioSummary(d.scenario), false, "scenario", true)}
       {item("Horizon · step", `${formatNumber(d.scenario.horizon)} s · ${formatNumber(d.scenario.dt)} s`)}
-      {item("Candidates", sweep.total)}
+      {item("Design", designSummary(d.design), false, "design", true)}
+      {item("Candidates", formatCount(sweep.total))}
+      {(sweep.family?.length ?? 0) > 1
+        ? item(
+            `Family · ${aggregateName(d.aggregate)}`,
+            sweep.family.map((v) => v.label).join(" · "),
+            false,
+            "family",
+            true,
+          )
+        : null}
       {item(
         "Criteria",
         <>

@@ -26,7 +26,7 @@ export function SweepListPage() {
 
   return (
     <div data-testid="sweep-list-page">
-      <PageHeader title="Sweeps" subtitle="Grids of PID gains run on one plant revision; every candidate scored on the chosen criteria." actions={newButton} />
+      <PageHeader title="Sweeps" subtitle="Controller candidates tried on one plant or a family of variants; every candidate scored on the chosen criteria, the front drawn from them." actions={newButton} />
       {refusal ? <RoleNote sentence={refusal} /> : null}
       {sweeps.isPending ? (
         <Loading label="Loading sweeps…" />

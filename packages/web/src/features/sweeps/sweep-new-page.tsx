@@ -114,9 +114,10 @@ export function SweepNewPage() {
   // A name from the plant and the structure, until the user types one.
   useEffect(() => {
     if (!plant.data || formState.dirtyFields.name || prefilled.current) return;
-    setValue("name", `${plant.data.plant.name} ${STRUCTURES[structure].label} grid`);
+    const how = !design || design.kind === "grid" ? "grid" : design.kind === "nelder-mead" || design.kind === "nsga2" ? "search" : DESIGNS[design.kind].label.toLowerCase().replace("latin", "Latin").replace("sobol", "Sobol");
+    setValue("name", `${plant.data.plant.name}${variantCount > 1 ? ` family (${variantCount})` : ""} ${STRUCTURES[structure].label} ${how}`);
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [plant.data, structure]);
+  }, [plant.data, structure, design?.kind, variantCount]);
 
   const submit = handleSubmit(async (input) => {
     setFailure(null);

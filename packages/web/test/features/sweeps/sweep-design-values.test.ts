@@ -73,3 +73,12 @@ describe("family", () => {
     });
   });
 });
+
+describe("designSummary", () => {
+  it("designSummary names the design and its numbers in a few words", async () => {
+    const { designSummary } = await import("../../../src/features/sweeps/sweep-design-values.js");
+    expect(designSummary(undefined)).toBe("Even grid");
+    expect(designSummary({ kind: "latin-hypercube", count: 300, seed: 7 })).toBe("Latin hypercube, 300 candidates, seed 7");
+    expect(designSummary({ kind: "search", method: "nsga2", population: 60, generations: 40, seed: 1 })).toContain("population 60 × 40 generations");
+  });
+});
