@@ -94,12 +94,12 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           log axes
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
-          {stableCount} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : sweep.total}
-          {sweep.unstableCount > 0 ? ` · ${sweep.unstableCount} unstable` : ""}
-          {divergedCount > 0 ? ` · ${divergedCount} diverged` : ""}
+          {formatCount(stableCount)} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : formatCount(sweep.total)}
+          {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable` : ""}
+          {divergedCount > 0 ? ` · ${formatCount(divergedCount)} diverged` : ""}
           {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
           {points.length < stableCount ? ` · ${stableCount - points.length} without a finite score on these axes` : ""}
-          {front.data ? ` · ${front.data.indices.length} on the front` : ""}
+          {front.data ? ` · ${formatCount(front.data.indices.length)} on the front` : ""}
         </span>
       </div>
 
