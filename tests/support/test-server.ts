@@ -16,6 +16,12 @@ export interface TestServer {
 export interface TestServerOptions {
   /** Resume sweeps other processes left unfinished (default false, so each file only runs its own sweeps). */
   resumeSweeps?: boolean;
+  /** Run the embedded sweep worker (default true); off when a test wants only external worker processes. */
+  embeddedWorker?: boolean;
+  /** Threads of the embedded worker's pool (default: every core). */
+  workerThreads?: number;
+  /** Per-workspace sweep limits (default 1,000,000 candidates, 3 concurrent sweeps). */
+  limits?: { maxCandidates: number; maxConcurrentSweeps: number };
 }
 
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
@@ -37,7 +43,11 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     publicUrl: url,
     webDist: null,
     resumeSweeps: options.resumeSweeps ?? false,
+    embeddedWorker: options.embeddedWorker ?? true,
+    ...(options.workerThreads === undefined ? {} : { workerThreads: options.workerThreads }),
+    ...(options.limits === undefined ? {} : { limits: options.limits }),
   });
+  await loopyard.jobs.ready;
   server.on("request", loopyard.app);
   return {
     url,

@@ -66,7 +66,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth));
   app.use("/api/me", meRoutes(db));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db));
-  app.use("/api/workspaces/:slug/sweeps", sweepRoutes(db, (sweepId) => jobs.start(sweepId), config.limits ?? DEFAULT_SWEEP_LIMITS));
+  app.use("/api/workspaces/:slug/sweeps", sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 

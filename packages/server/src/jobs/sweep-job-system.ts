@@ -1,6 +1,6 @@
 import type PgBoss from "pg-boss";
 import type { Database } from "../db/database.js";
-import { resumeSweepJobs, startSweepJobs } from "../sweeps/sweep-jobs.js";
+import { cancelSweepJobs, resumeSweepJobs, startSweepJobs } from "../sweeps/sweep-jobs.js";
 import { startSweepWorker, type SweepWorker } from "../workers/sweep-worker.js";
 import { startJobQueue } from "./job-queue.js";
 
@@ -21,6 +21,8 @@ export interface SweepJobSystem {
   ready: Promise<void>;
   /** Stores the chunks of a queued sweep and enqueues their jobs. */
   start(sweepId: string): Promise<void>;
+  /** Cancels the jobs of a cancelled sweep's pending chunks. */
+  cancel(sweepId: string): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -41,6 +43,10 @@ export function createSweepJobSystem(db: Database, databaseUrl: string, options:
     async start(sweepId) {
       await ready;
       await startSweepJobs(db, boss as unknown as PgBoss, sweepId);
+    },
+    async cancel(sweepId) {
+      await ready;
+      await cancelSweepJobs(db, boss as unknown as PgBoss, sweepId);
     },
     close() {
       closing ??= (async () => {

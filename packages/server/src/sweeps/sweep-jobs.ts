@@ -1,6 +1,6 @@
 import type PgBoss from "pg-boss";
 import type { Database } from "../db/database.js";
-import { enqueueChunks } from "../jobs/job-queue.js";
+import { chunkJobId, enqueueChunks, SWEEP_CHUNK_QUEUE } from "../jobs/job-queue.js";
 import { chunkCount, insertChunks, listPendingChunks, type ChunkRange } from "./sweep-chunk-repository.js";
 import { definitionVariants } from "./sweep-evaluation.js";
 import { findSweepForRun, listUnfinishedSweepIds } from "./sweep-repository.js";
@@ -58,4 +58,13 @@ export async function resumeSweepJobs(db: Database, boss: PgBoss): Promise<numbe
     }
   }
   return ids.length;
+}
+
+/**
+ * Stops handing out a cancelled sweep's chunks: cancels the pg-boss jobs of its pending chunks
+ * (a chunk being evaluated finishes and is kept; workers also skip any job of a cancelled sweep).
+ */
+export async function cancelSweepJobs(db: Database, boss: PgBoss, sweepId: string): Promise<void> {
+  const ids = (await listPendingChunks(db, sweepId)).map((c) => chunkJobId(sweepId, c.chunk));
+  for (let i = 0; i < ids.length; i += 1000) await boss.cancel(SWEEP_CHUNK_QUEUE, ids.slice(i, i + 1000));
 }

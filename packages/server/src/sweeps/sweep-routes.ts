@@ -15,7 +15,7 @@ import {
   listSweeps,
   SWEEP_NOT_FOUND,
   type SweepLimits,
-  type SweepStarter,
+  type SweepJobControl,
 } from "./sweep-service.js";
 import { getCandidateFrequency, getReferences } from "./sweep-reference-service.js";
 
@@ -35,7 +35,7 @@ function candidateIndex(param: string | string[] | undefined): number {
 }
 
 /** /api/workspaces/:slug/sweeps */
-export function sweepRoutes(db: Database, startSweep: SweepStarter, limits: SweepLimits): Router {
+export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading sweeps");
   const sweepIdOf = (value: unknown) => parseIdParam(value, SWEEP_NOT_FOUND);
@@ -46,11 +46,11 @@ export function sweepRoutes(db: Database, startSweep: SweepStarter, limits: Swee
 
   router.post("/", memberOf(db, "engineer", "Starting sweeps"), async (req, res) => {
     const input = parseBody(sweepInputSchema, req);
-    res.status(201).json(await createSweep(db, startSweep, accessOf(req), input, limits));
+    res.status(201).json(await createSweep(db, jobs.start, accessOf(req), input, limits));
   });
 
   router.post("/:sweepId/cancel", memberOf(db, "engineer", "Cancelling sweeps"), async (req, res) => {
-    res.json(await cancelSweep(db, accessOf(req), sweepIdOf(req.params.sweepId)));
+    res.json(await cancelSweep(db, jobs.cancel, accessOf(req), sweepIdOf(req.params.sweepId)));
   });
 
   router.get("/:sweepId", canRead, async (req, res) => {

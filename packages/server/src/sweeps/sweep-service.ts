@@ -41,8 +41,14 @@ export interface SweepLimits {
 
 export const DEFAULT_SWEEP_LIMITS: SweepLimits = { maxCandidates: 1_000_000, maxConcurrentSweeps: 3 };
 
-/** Starts a stored sweep (the job system: chunks and their jobs). */
+/** Starts a stored sweep, or stops a cancelled one's jobs (the job system). */
 export type SweepStarter = (sweepId: string) => Promise<void>;
+
+/** What the sweep routes ask of the job system. */
+export interface SweepJobControl {
+  start: SweepStarter;
+  cancel: SweepStarter;
+}
 
 /**
  * Checks the limits and every variant of the family (a revision of this workspace, parameters that
@@ -100,11 +106,12 @@ export async function createSweep(
 }
 
 /** Cancels a queued or running sweep: workers skip its remaining chunks; chunks already stored are kept. */
-export async function cancelSweep(db: Database, access: MemberAccess, sweepId: string): Promise<SweepDetailDto> {
+export async function cancelSweep(db: Database, stopJobs: SweepStarter, access: MemberAccess, sweepId: string): Promise<SweepDetailDto> {
   const sweep = await getSweep(db, access, sweepId);
   if (!(await markSweepCancelled(db, sweepId))) {
     throw new HttpError(409, `This sweep is already ${sweep.status}; only a queued or running sweep can be cancelled.`);
   }
+  await stopJobs(sweepId);
   return getSweep(db, access, sweepId);
 }
 

@@ -107,15 +107,21 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
   const concurrency = Math.max(1, options.concurrency ?? threads);
   const workIds: string[] = [];
   for (let i = 0; i < concurrency; i++) {
-    workIds.push(
-      await boss.work<ChunkJobData>(
-        SWEEP_CHUNK_QUEUE,
-        { batchSize: 1, pollingIntervalSeconds: 0.5, includeMetadata: true },
-        async ([job]) => {
-          if (job) await handle(job);
-        },
-      ),
+    let workId = "";
+    workId = await boss.work<ChunkJobData>(
+      SWEEP_CHUNK_QUEUE,
+      { batchSize: 1, pollingIntervalSeconds: 0.5, includeMetadata: true },
+      async ([job]) => {
+        if (!job) return;
+        try {
+          await handle(job);
+        } finally {
+          // After a job, fetch the next one at once instead of waiting out the polling interval.
+          boss.notifyWorker(workId);
+        }
+      },
     );
+    workIds.push(workId);
   }
 
   let closing: Promise<void> | null = null;
