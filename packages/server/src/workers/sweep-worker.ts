@@ -18,7 +18,7 @@ const CONTEXT_CACHE_SIZE = 4;
 export interface SweepWorkerOptions {
   /** Threads of the piscina pool (default os.availableParallelism()); 0 evaluates in process (tests, tiny hosts). */
   threads?: number;
-  /** Chunk jobs worked at once (default: threads, at least 1). */
+  /** Chunk jobs worked at once (default: threads + 1, so that the pool stays busy while a chunk is stored). */
   concurrency?: number;
 }
 
@@ -104,7 +104,7 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     }
   }
 
-  const concurrency = Math.max(1, options.concurrency ?? threads);
+  const concurrency = Math.max(1, options.concurrency ?? threads + 1);
   const workIds: string[] = [];
   for (let i = 0; i < concurrency; i++) {
     let workId = "";
