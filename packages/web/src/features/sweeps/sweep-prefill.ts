@@ -46,6 +46,7 @@ export function formFromSweep(sweep: Pick<SweepDetailDto, "name" | "definition" 
     r: o?.r ?? form.criterionOptions.r,
     settlingBand: o?.settlingBand ?? form.criterionOptions.settlingBand,
     infiniteHorizon: o?.horizon === "infinite",
+    weight: performancePreset(o?.weight) ?? form.criterionOptions.weight,
   };
   const variants = d.family?.variants ?? [];
   if (variants.length > 0) {
@@ -60,4 +61,15 @@ export function formFromSweep(sweep: Pick<SweepDetailDto, "name" | "definition" 
   form.design = fromDesign(d.design, d.criteria[0] ?? "ise");
   form.aggregate = fromAggregate(d.aggregate);
   return form;
+}
+
+/**
+ * M, ωB, A of a stored weight that has the performance preset's form W = (s/M + ωB)/(s + ωB·A)
+ * (num = [1/M, ωB], den = [1, ωB·A]; the schema stores the preset as num/den), or null for any other W.
+ */
+export function performancePreset(weight: { num: readonly number[]; den: readonly number[] } | undefined): { M: number; omegaB: number; A: number } | null {
+  if (!weight || weight.num.length !== 2 || weight.den.length !== 2 || weight.den[0] !== 1) return null;
+  const [a, omegaB] = weight.num as [number, number];
+  if (!(a > 0) || !(omegaB > 0)) return null;
+  return { M: 1 / a, omegaB, A: (weight.den[1] as number) / omegaB };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { sweepInputSchema, type SweepVariantDto } from "@loopyard/core";
-import { formFromSweep } from "../../../src/features/sweeps/sweep-prefill.js";
+import { formFromSweep, performancePreset } from "../../../src/features/sweeps/sweep-prefill.js";
 import { formFieldOf, sweepFormResolver, toSweepInput } from "../../../src/features/sweeps/sweep-form-values.js";
 
 const REV_A = "00000000-0000-4000-8000-00000000000a";
@@ -45,5 +45,17 @@ describe("formFromSweep", () => {
     expect(formFieldOf("family.variants.0.plantRevisionId")).toBe("plantRevisionId");
     expect(formFieldOf("family.variants.2.plantRevisionId")).toBe("variants.1.plantRevisionId");
     expect(formFieldOf(["family", "variants", 1, "parameters", "k"])).toBe("variants.0.parameters");
+  });
+});
+
+describe("performancePreset", () => {
+  it("performancePreset recovers M, ωB and A from the stored num/den of the preset and refuses other weights", () => {
+    // W = (s/M + ωB)/(s + ωB·A) with M = 2, ωB = 0.3, A = 1e-4 ⇒ num = [0.5, 0.3], den = [1, 3e-5] (closed form).
+    const preset = performancePreset({ num: [0.5, 0.3], den: [1, 3e-5] });
+    expect(preset?.M).toBeCloseTo(2, 12);
+    expect(preset?.omegaB).toBeCloseTo(0.3, 12);
+    expect(preset?.A).toBeCloseTo(1e-4, 12);
+    expect(performancePreset({ num: [1], den: [1, 1] })).toBeNull();
+    expect(performancePreset(undefined)).toBeNull();
   });
 });
