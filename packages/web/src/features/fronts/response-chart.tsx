@@ -1,5 +1,10 @@
 import { LazyPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
+import { formatNumber } from "../../components/format-number.js";
+import { responseWindowEnd } from "./response-window.js";
+
+/** The plot opens on the transient only when it ends before this fraction of the horizon. */
+const WINDOW_FRACTION = 0.6;
 
 /**
  * A closed-loop response: output y(t) against setpoint r(t) in the upper panel, controller output
@@ -63,8 +68,11 @@ export function ResponseChart({
     line: { color, width: 2, dash },
     hovertemplate: `${name}: %{y:.4g}<br>t = %{x:.4g} s<extra></extra>`,
   });
+  const horizon = t[t.length - 1] ?? 0;
+  const windowEnd = responseWindowEnd(t, y, u);
+  const windowed = windowEnd > 0 && windowEnd < WINDOW_FRACTION * horizon;
   return (
-    <div data-testid="response-chart" data-load-time={loadTime ?? undefined}>
+    <div data-testid="response-chart" data-load-time={loadTime ?? undefined} data-window-end={windowed ? windowEnd : undefined}>
       <LazyPlot
         height={380}
         data={[
@@ -73,7 +81,7 @@ export function ResponseChart({
           line("u(t)", u, CHART_COLORS.slate, "y2"),
         ]}
         layout={baseLayout({
-          xaxis: axis("time t [s]", { anchor: "y2" }),
+          xaxis: axis("time t [s]", windowed ? { anchor: "y2", range: [0, windowEnd] } : { anchor: "y2" }),
           yaxis: axis("y, r", { domain: [0.42, 1], anchor: "x" }),
           yaxis2: axis("u", { domain: [0, 0.32], anchor: "x" }),
           margin: { l: 56, r: 16, t: 28, b: 44 },
@@ -81,6 +89,11 @@ export function ResponseChart({
         })}
         config={CHART_CONFIG}
       />
+      {windowed ? (
+        <p className="mt-1 text-xs text-ink-faint" data-testid="response-window-note">
+          Showing 0–{formatNumber(windowEnd)} s, where the loop settles, of the {formatNumber(horizon)} s horizon; double-click the plot for all of it.
+        </p>
+      ) : null}
     </div>
   );
 }
