@@ -94,7 +94,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           log axes
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
-          {formatCount(stableCount)} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : formatCount(sweep.total)}
+          {formatCount(stableCount)} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : formatCount(candidates.data.candidates.length)}
           {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable` : ""}
           {divergedCount > 0 ? ` · ${formatCount(divergedCount)} diverged` : ""}
           {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
