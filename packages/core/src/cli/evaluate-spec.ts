@@ -9,7 +9,7 @@ import { scenarioSpecSchema } from "./scenario-spec.js";
 /**
  * The spec of `loopyard evaluate`: one plant, one controller, one scenario, the criteria.
  * Keys exactly: plant, controller, scenario, criteria, and optionally criterionOptions
- * { q, r, settlingBand } and weight (the sensitivity weight of wsNorm: { num, den } or
+ * { q, r, settlingBand, horizon } and weight (the sensitivity weight of wsNorm: { num, den } or
  * { preset: "performance", M, omegaB, A }) (see packages/core/README.md, "CLI").
  */
 export const evaluateSpecSchema = z.strictObject({
