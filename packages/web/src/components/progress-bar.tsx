@@ -15,7 +15,7 @@ export function ProgressBar({ done, total, testId, compact = false }: { done: nu
       >
         <div className="absolute inset-y-0 left-0 rounded-full bg-moss transition-[width] duration-500" style={{ width: `${percent}%` }} />
       </div>
-      <span className={`shrink-0 font-mono text-xs tabular text-ink-soft ${compact ? "w-[8.5rem] text-right" : ""}`}>
+      <span className={`shrink-0 font-mono text-xs tabular text-ink-soft ${compact ? "w-28 text-right" : ""}`}>
         {GROUPED.format(done)}/{GROUPED.format(total)}
       </span>
     </div>

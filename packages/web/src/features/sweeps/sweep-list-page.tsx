@@ -56,7 +56,7 @@ export function SweepListPage() {
                 <th className="px-4 py-2 font-medium">Name</th>
                 <th className="px-4 py-2 font-medium">Plant</th>
                 <th className="px-4 py-2 font-medium">State</th>
-                <th className="w-64 px-4 py-2 font-medium">Progress</th>
+                <th className="w-80 px-4 py-2 font-medium">Progress</th>
                 <th className="px-4 py-2 font-medium">Started</th>
               </tr>
             </thead>
