@@ -177,7 +177,11 @@ export interface CandidateDto {
    * order of SweepDetailDto.criteria; null unless the candidate is stable on every variant.
    */
   scores: ScoreValue[] | null;
-  /** Scores per variant (SweepDetailDto.family order), each in criteria order; null for a variant where it is not stable. */
+  /**
+   * Scores per variant (SweepDetailDto.family order), each in criteria order; null for a variant
+   * where it is not stable. Absent for single-variant sweeps, and in the candidate list of sweeps
+   * over 20,000 candidates (GET …/candidates/:index returns them).
+   */
   variantScores?: (ScoreValue[] | null)[];
   /** Why the candidate could not be evaluated, when that is the reason for "diverged". */
   error?: string;

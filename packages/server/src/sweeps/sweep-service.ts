@@ -1,6 +1,6 @@
 import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, nonDominatedSort, orientForMinimisation, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
 import type {
-  CandidateListDto,
+  CandidateDto,
   CriterionId,
   FrontDto,
   ResponseDto,
@@ -13,7 +13,8 @@ import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
-import { findCandidate, listCandidateSample, listCandidates as listStoredCandidates, listStableScores } from "./candidate-repository.js";
+import { findCandidate } from "./candidate-repository.js";
+import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "./candidate-list-json.js";
 import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
 import { structureProblem, sweepPlan, tunableFromParams } from "./sweep-plan.js";
@@ -119,21 +120,33 @@ export async function cancelSweep(db: Database, stopJobs: SweepStarter, access: 
 export const CANDIDATE_LIST_LIMIT = 100_000;
 
 /**
- * The candidates of a sweep by index. Over CANDIDATE_LIST_LIMIT stored candidates: every
- * ⌈done / limit⌉-th index (a deterministic sample of at most the limit) plus every candidate of
- * the front for the default axes, with `sampled: true` and `total`.
+ * The candidates of a sweep by index as the JSON text of a CandidateListDto (written from
+ * PostgreSQL's text form, see candidateListJson). Over CANDIDATE_LIST_LIMIT stored candidates:
+ * every ⌈done / limit⌉-th index (a deterministic sample of at most the limit) plus every candidate
+ * of the front for the default axes, with `sampled: true` and `total`. Per-variant scores come
+ * with sweeps of at most LIST_VARIANT_SCORES_UP_TO candidates (otherwise from getCandidate).
  */
-export async function listCandidates(db: Database, access: MemberAccess, sweepId: string): Promise<CandidateListDto> {
+export async function listCandidatesJson(db: Database, access: MemberAccess, sweepId: string): Promise<string> {
   const sweep = await getSweep(db, access, sweepId);
   const nc = sweep.criteria.length;
+  const withVariants = sweep.family.length > 1 && sweep.total <= LIST_VARIANT_SCORES_UP_TO;
+  const head = `{"parameters":${JSON.stringify(sweep.parameters)},"criteria":${JSON.stringify(sweep.criteria)}`;
   if (sweep.done <= CANDIDATE_LIST_LIMIT) {
-    const candidates = await listStoredCandidates(db, sweepId, nc);
-    return { parameters: sweep.parameters, criteria: sweep.criteria, candidates, sampled: false, total: candidates.length };
+    const { json, count } = await candidateListJson(db, sweepId, { criteria: nc, withVariants });
+    return `${head},"candidates":${json},"sampled":false,"total":${count}}`;
   }
   const stride = Math.ceil(sweep.done / CANDIDATE_LIST_LIMIT);
   const front = await getFront(db, access, sweepId, {});
-  const candidates = await listCandidateSample(db, sweepId, stride, front.indices, nc);
-  return { parameters: sweep.parameters, criteria: sweep.criteria, candidates, sampled: true, total: sweep.done };
+  const { json } = await candidateListJson(db, sweepId, { criteria: nc, withVariants, stride, extra: front.indices });
+  return `${head},"candidates":${json},"sampled":true,"total":${sweep.done}}`;
+}
+
+/** One stored candidate with its per-variant scores. */
+export async function getCandidate(db: Database, access: MemberAccess, sweepId: string, index: number): Promise<CandidateDto> {
+  const sweep = await getSweep(db, access, sweepId);
+  const stored = await findCandidate(db, sweepId, index, sweep.criteria.length);
+  if (!stored) throw notFound(`This sweep has no stored candidate ${index}.`);
+  return stored;
 }
 
 /** Checks that a front axis names one of the sweep's criteria; otherwise a 400 naming the parameter. */
@@ -162,7 +175,7 @@ export async function getFront(
   const { criteria } = sweep;
   const x = frontAxis("x", query.x, criteria, criteria[0] as CriterionId);
   const y = frontAxis("y", query.y, criteria, criteria[criteria.length - 1] as CriterionId);
-  const scored = await listStableScores(db, sweepId);
+  const scored = await stableScoresFast(db, sweepId);
   if (query.criteria !== undefined && query.criteria !== "") {
     const chosen = query.criteria.split(",").map((id) => frontAxis("criteria", id.trim(), criteria, criteria[0] as CriterionId));
     if (chosen.length < 2 || new Set(chosen).size !== chosen.length) {
