@@ -1,7 +1,7 @@
 import { and, asc, count, eq, gt, inArray, sql } from "drizzle-orm";
 import type { SweepProgressDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
-import { candidate, sweep, sweepChunk, worker } from "../db/schema.js";
+import { sweep, sweepChunk, worker } from "../db/schema.js";
 import type { CandidateRow } from "./candidate-repository.js";
 
 /** Window over which the rate of a sweep is measured [s]. */
@@ -79,26 +79,29 @@ export async function completeChunk(
       .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk)))
       .for("update");
     if (locked[0]?.status !== "pending") return 0;
-    let inserted = 0;
-    for (let i = 0; i < rows.length; i += 2000) {
-      const part = rows.slice(i, i + 2000);
-      const result = await tx
-        .insert(candidate)
-        .values(
-          part.map((row) => ({
-            sweepId,
-            index: row.index,
-            params: row.params,
-            status: row.status,
-            scores: row.scores,
-            variantScores: row.variantScores ?? null,
-            error: row.error ?? null,
-          })),
-        )
-        .onConflictDoNothing({ target: [candidate.sweepId, candidate.index] })
-        .returning({ index: candidate.index });
-      inserted += result.length;
-    }
+    // One statement per chunk: the rows travel as one JSON parameter (NaN and ±Infinity as strings,
+    // which float8 reads back exactly) instead of thousands of bound parameters.
+    const payload = JSON.stringify(
+      rows.map((row) => ({
+        i: row.index,
+        p: row.params,
+        s: row.status,
+        a: row.scores,
+        v: row.variantScores ?? null,
+        e: row.error ?? null,
+      })),
+      (_key, value: unknown) => (typeof value === "number" && !Number.isFinite(value) ? String(value) : value),
+    );
+    const result = await tx.execute<{ n: number }>(sql`
+      with inserted as (
+        insert into candidate (sweep_id, index, params, status, scores, variant_scores, error)
+        select ${sweepId}::uuid, x.i, x.p, x.s::candidate_status, x.a, x.v, x.e
+        from json_to_recordset(${payload}::json) as x(i int, p float8[], s text, a float8[], v float8[], e text)
+        on conflict (sweep_id, index) do nothing
+        returning 1
+      )
+      select count(*)::int as n from inserted`);
+    const inserted = result.rows[0]?.n ?? 0;
     const now = new Date();
     await tx
       .update(sweepChunk)
