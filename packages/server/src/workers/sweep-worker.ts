@@ -69,7 +69,8 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
       criteria: context.criteria,
       evaluation: context.plan.evaluation,
     };
-    if (pool) return pool.evaluate(batch);
+    // One task per pool thread: a chunk is already small, and fewer messages leave more time to evaluate.
+    if (pool) return pool.evaluate(batch, { chunkSize: Math.max(8, Math.ceil(candidates.length / context.plan.d / threads)) });
     return evaluateBatch(batch.family, batch.structure, batch.candidates, batch.scenario, batch.criteria, { evaluation: batch.evaluation });
   };
 
