@@ -51,6 +51,8 @@ export function SweepNewPage() {
   const fromId = params.get("from") ?? "";
   const source = useSweep(slug, fromId, fromId !== "");
   const prefilled = useRef(false);
+  // Whether the user typed a name (dirtyFields is recomputed for the whole form when variants are added, so it cannot tell).
+  const nameTyped = useRef(false);
   const refusal = workspace.data && !canEdit ? roleSentence("Running sweeps", "engineer", workspace.data.workspace.name, role) : null;
 
   // The resolver reads the plant's state names when it runs (state feedback has one gain per state).
@@ -113,7 +115,7 @@ export function SweepNewPage() {
 
   // A name from the plant and the structure, until the user types one.
   useEffect(() => {
-    if (!plant.data || formState.dirtyFields.name || prefilled.current) return;
+    if (!plant.data || nameTyped.current || prefilled.current) return;
     const how = !design || design.kind === "grid" ? "grid" : design.kind === "nelder-mead" || design.kind === "nsga2" ? "search" : DESIGNS[design.kind].label.toLowerCase().replace("latin", "Latin").replace("sobol", "Sobol");
     setValue("name", `${plant.data.plant.name}${variantCount > 1 ? ` family (${variantCount})` : ""} ${STRUCTURES[structure].label} ${how}`);
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -184,7 +186,7 @@ export function SweepNewPage() {
           <Section title="What to sweep">
             <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
               <Field label="Name" htmlFor="sweep-name" name="name" error={errors.name?.message} className="sm:col-span-2">
-                <input id="sweep-name" className={inputClass} aria-invalid={Boolean(errors.name)} {...register("name")} />
+                <input id="sweep-name" className={inputClass} aria-invalid={Boolean(errors.name)} {...register("name", { onChange: () => (nameTyped.current = true) })} />
               </Field>
               <Field label="Plant" htmlFor="sweep-plant" name="plant" hint={plant.data ? `${plantKindShort(plant.data.revision.model.kind)}${hasLimits(plant.data.revision.model) ? ", with actuator limits" : ""}` : undefined}>
                 <select id="sweep-plant" className={inputClass} value={plantId ?? ""} onChange={(e) => setPlantId(e.target.value)} data-testid="sweep-plant">
@@ -270,6 +272,11 @@ export function SweepNewPage() {
                 ? `${formatCount(count)} is more than the ${formatCount(MAX_SWEEP_CANDIDATES)} candidates one sweep may hold; ${ownCount ? "lower the design's count" : "lower a count"}.`
                 : `One sweep holds at most ${formatCount(MAX_SWEEP_CANDIDATES)} candidates (your workspace may set less), and a workspace runs a few sweeps at a time; the server says so if this one is over. Large sweeps run as chunks on every worker and can be cancelled.`}
             </p>
+            {formState.submitCount > 0 && Object.keys(errors).length > 0 && !formState.isSubmitting ? (
+              <p role="alert" data-testid="form-problems" className="text-xs text-rust">
+                The sweep was not started: fix what is marked in red under {problemSections(Object.keys(errors))}.
+              </p>
+            ) : null}
             {!overCap && rangesMessage ? (
               <p role="alert" data-testid="field-error-ranges" className="text-xs text-rust">
                 {rangesMessage}
@@ -283,4 +290,27 @@ export function SweepNewPage() {
       </form>
     </div>
   );
+}
+
+/** Where the form's problems are, by section title, e.g. "Design and Scenario". */
+function problemSections(keys: readonly string[]): string {
+  const SECTION: Record<string, string> = {
+    name: "What to sweep",
+    plantRevisionId: "What to sweep",
+    firstVariant: "What to sweep",
+    variants: "What to sweep",
+    structure: "Controller",
+    ranges: "Controller",
+    filter: "Controller",
+    sampleTime: "Controller",
+    antiWindup: "Controller",
+    design: "Design",
+    aggregate: "Design",
+    scenario: "Scenario",
+    criteria: "Criteria",
+    criterionOptions: "Criteria",
+  };
+  const names = [...new Set(keys.map((k) => SECTION[k]).filter((n): n is string => n !== undefined))];
+  if (names.length === 0) return "the form";
+  return names.length === 1 ? names[0] : `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]}`;
 }
