@@ -1,4 +1,5 @@
 import type { CriterionId, SweepAggregate, SweepDesign, SweepFamily } from "@loopyard/core";
+import { formatCount } from "./sweep-progress.js";
 
 /** The design choices of the sweep form (the two search methods are separate choices). */
 export type DesignChoice = "grid" | "latin-hypercube" | "sobol" | "random" | "nelder-mead" | "nsga2";
@@ -74,7 +75,7 @@ export function designSummary(design: SweepDesign | undefined): string {
       ? `${DESIGNS["nelder-mead"].label} on ${design.criterion}: ${design.starts} starts × ${design.iterations} evaluations, seed ${design.seed}`
       : `${DESIGNS.nsga2.label}: population ${design.population} × ${design.generations} generations, seed ${design.seed}`;
   }
-  return `${DESIGNS[design.kind].label}, ${design.count} candidates${design.seed !== undefined ? `, seed ${design.seed}` : ""}`;
+  return `${DESIGNS[design.kind].label}, ${formatCount(design.count)} candidates${design.seed !== undefined ? `, seed ${design.seed}` : ""}`;
 }
 
 /** The design as the API takes it. */
