@@ -95,7 +95,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
           {formatCount(stableCount)} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : formatCount(candidates.data.candidates.length)}
-          {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable` : ""}
+          {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable${candidates.data.sampled ? " in the whole sweep" : ""}` : ""}
           {divergedCount > 0 ? ` · ${formatCount(divergedCount)} diverged` : ""}
           {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
           {points.length < stableCount ? ` · ${stableCount - points.length} without a finite score on these axes` : ""}
