@@ -197,6 +197,42 @@ describe("sweeps as jobs on worker processes", () => {
   });
 });
 
+describe("a chunk that keeps failing", () => {
+  it("when a chunk's evaluation throws on every attempt, then it is retried, then reported failed with its error while the sweep finishes", async () => {
+    const server = await startTestServer({ embeddedWorker: false });
+    servers.push(server);
+    const { team, revisions } = await familyTeam(server.url, "Failing");
+    const created = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, familySweep("One bad chunk", revisions, 200));
+    expect(created.status).toBe(201);
+    const id: string = created.body.id;
+    // Corrupt the job of chunk 1 (candidates 100–199): an end past the design makes evaluateRange throw on
+    // every attempt (the batch holds 100 candidates, the range asks for 150).
+    const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await db.connect();
+    const changed = await db.query(
+      "update pgboss.job set data = jsonb_set(data, '{end}', '250') where name = 'sweep-chunk' and data->>'sweepId' = $1 and data->>'chunk' = '1'",
+      [id],
+    );
+    await db.end();
+    expect(changed.rowCount).toBe(1);
+    const worker = await startWorker();
+    const sweep = await waitUntil(team.viewer, team.slug, id, finished, 60_000);
+    expect(sweep.status).toBe("finished");
+    expect(sweep.done).toBe(100);
+    expect(sweep.progress.chunksFailed).toBe(1);
+    expect(sweep.progress.failures).toHaveLength(1);
+    expect(sweep.progress.failures[0]?.chunk).toBe(1);
+    expect(sweep.progress.failures[0]?.error.length).toBeGreaterThan(0);
+    const attempts = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await attempts.connect();
+    const row = await attempts.query("select attempts, status from sweep_chunk where sweep_id = $1 and chunk = 1", [id]);
+    await attempts.end();
+    // First attempt plus CHUNK_RETRY_LIMIT (3) retries.
+    expect(row.rows[0]).toEqual({ attempts: 4, status: "failed" });
+    await worker.stop();
+  });
+});
+
 describe("the server killed mid-sweep", () => {
   it("when the server process is killed with SIGKILL and started again, then the sweep resumes and completes", async () => {
     const port = await freePort();
