@@ -115,9 +115,10 @@ const seedSchema = z.number({ error: "seed must be a number" }).int("seed must b
  * - grid: the product of the ranges' counts, row-major (first parameter slowest);
  * - latin-hypercube, random: `count` candidates drawn with `seed` (same seed, same candidates);
  * - sobol: the first `count` points of a Sobol sequence (scrambled when a seed is given);
- * - search nelder-mead: `starts` multi-start simplex searches of `iterations` evaluations each on
- *   the aggregate of `criterion`; search nsga2: `population` × `generations` evaluations, every
- *   criterion of the sweep an objective (larger-is-better ones negated).
+ * - search nelder-mead: `starts` multi-start simplex searches of at most `iterations` iterations
+ *   each, on the aggregate of `criterion`, within a budget of starts × iterations evaluations;
+ *   search nsga2: an initial population and `generations` offspring generations of `population`,
+ *   every criterion of the sweep an objective (larger-is-better ones negated).
  * Non-grid designs ignore the ranges' counts.
  */
 export const sweepDesignSchema = z.union(
@@ -415,7 +416,8 @@ export function sweepParameterNames(input: SweepInputParsed): string[] {
 /**
  * Number of candidates of a sweep: the product of the range counts for a grid, the design's count
  * for latin-hypercube, sobol and random, the evaluation budget of a search (nelder-mead: starts ×
- * iterations; nsga2: population × generations).
+ * iterations, the most evaluations the search may use; nsga2: population × (generations + 1), the
+ * initial population and its offspring generations).
  */
 export function sweepCandidateCount(input: SweepInputParsed): number {
   const design = input.design ?? { kind: "grid" };
@@ -427,7 +429,7 @@ export function sweepCandidateCount(input: SweepInputParsed): number {
     case "random":
       return design.count;
     case "search":
-      return design.method === "nelder-mead" ? design.starts * design.iterations : design.population * design.generations;
+      return design.method === "nelder-mead" ? design.starts * design.iterations : design.population * (design.generations + 1);
   }
 }
 

@@ -3,6 +3,8 @@ import PgBoss from "pg-boss";
 
 /** Queue of sweep chunks: one job per chunk of contiguous candidates. */
 export const SWEEP_CHUNK_QUEUE = "sweep-chunk";
+/** Queue of search sweeps: one job per generation of a search design's ask/tell loop. */
+export const SWEEP_SEARCH_QUEUE = "sweep-search";
 /** Retries of a chunk job after its first attempt, with exponential backoff (pg-boss retryBackoff). */
 export const CHUNK_RETRY_LIMIT = 3;
 /** First retry delay [s]; pg-boss doubles it each retry (with jitter). */
@@ -58,6 +60,11 @@ export async function startJobQueue(databaseUrl: string, options: JobQueueOption
     retryBackoff: true,
     expireInSeconds: expireSeconds,
   });
+  for (const name of [SWEEP_SEARCH_QUEUE]) {
+    const queue = { name, retryLimit: CHUNK_RETRY_LIMIT, retryDelay: CHUNK_RETRY_DELAY_SECONDS, retryBackoff: true, expireInSeconds: expireSeconds };
+    await boss.createQueue(name, queue);
+    await boss.updateQueue(name, queue);
+  }
   return boss;
 }
 
@@ -75,4 +82,15 @@ export async function enqueueChunks(boss: PgBoss, jobs: readonly ChunkJobData[])
   for (let i = 0; i < jobs.length; i += 1000) {
     await boss.insert(jobs.slice(i, i + 1000).map((data) => ({ id: chunkJobId(data.sweepId, data.chunk), name: SWEEP_CHUNK_QUEUE, data })));
   }
+}
+
+/** What a search job carries: the sweep and the generation it is to evaluate. */
+export interface SearchJobData {
+  sweepId: string;
+  generation: number;
+}
+
+/** Enqueues generation `generation` of a search sweep (one job per generation: a UUID derived from both). */
+export async function enqueueSearchGeneration(boss: PgBoss, sweepId: string, generation: number): Promise<void> {
+  await boss.insert([{ id: chunkJobId(sweepId, -1 - generation), name: SWEEP_SEARCH_QUEUE, data: { sweepId, generation } }]);
 }

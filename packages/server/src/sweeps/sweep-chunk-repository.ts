@@ -79,29 +79,7 @@ export async function completeChunk(
       .where(and(eq(sweepChunk.sweepId, sweepId), eq(sweepChunk.chunk, chunk)))
       .for("update");
     if (locked[0]?.status !== "pending") return 0;
-    // One statement per chunk: the rows travel as one JSON parameter (NaN and ±Infinity as strings,
-    // which float8 reads back exactly) instead of thousands of bound parameters.
-    const payload = JSON.stringify(
-      rows.map((row) => ({
-        i: row.index,
-        p: row.params,
-        s: row.status,
-        a: row.scores,
-        v: row.variantScores ?? null,
-        e: row.error ?? null,
-      })),
-      (_key, value: unknown) => (typeof value === "number" && !Number.isFinite(value) ? String(value) : value),
-    );
-    const result = await tx.execute<{ n: number }>(sql`
-      with inserted as (
-        insert into candidate (sweep_id, index, params, status, scores, variant_scores, error)
-        select ${sweepId}::uuid, x.i, x.p, x.s::candidate_status, x.a, x.v, x.e
-        from json_to_recordset(${payload}::json) as x(i int, p float8[], s text, a float8[], v float8[], e text)
-        on conflict (sweep_id, index) do nothing
-        returning 1
-      )
-      select count(*)::int as n from inserted`);
-    const inserted = result.rows[0]?.n ?? 0;
+    const inserted = await insertCandidateRows(tx, sweepId, rows);
     const now = new Date();
     await tx
       .update(sweepChunk)
@@ -206,4 +184,79 @@ export async function sweepProgress(
     });
   }
   return result;
+}
+
+/**
+ * Inserts candidate rows, skipping those already stored (ON CONFLICT DO NOTHING); returns how many
+ * were inserted. One statement: the rows travel as one JSON parameter (NaN and ±Infinity as
+ * strings, which float8 reads back exactly) instead of thousands of bound parameters.
+ */
+export async function insertCandidateRows(tx: Database, sweepId: string, rows: readonly CandidateRow[]): Promise<number> {
+  if (rows.length === 0) return 0;
+    const payload = JSON.stringify(
+      rows.map((row) => ({
+        i: row.index,
+        p: row.params,
+        s: row.status,
+        a: row.scores,
+        v: row.variantScores ?? null,
+        e: row.error ?? null,
+      })),
+      (_key, value: unknown) => (typeof value === "number" && !Number.isFinite(value) ? String(value) : value),
+    );
+    const result = await tx.execute<{ n: number }>(sql`
+      with inserted as (
+        insert into candidate (sweep_id, index, params, status, scores, variant_scores, error)
+        select ${sweepId}::uuid, x.i, x.p, x.s::candidate_status, x.a, x.v, x.e
+        from json_to_recordset(${payload}::json) as x(i int, p float8[], s text, a float8[], v float8[], e text)
+        on conflict (sweep_id, index) do nothing
+        returning 1
+      )
+      select count(*)::int as n from inserted`);
+    const inserted = result.rows[0]?.n ?? 0;
+  return inserted;
+}
+
+/** Stores one generation of a search sweep: its rows and the sweep's count in one transaction. */
+export async function storeSearchGeneration(db: Database, sweepId: string, rows: readonly CandidateRow[]): Promise<number> {
+  return db.transaction(async (tx) => {
+    const inserted = await insertCandidateRows(tx, sweepId, rows);
+    await tx
+      .update(sweep)
+      .set({
+        done: sql`${sweep.done} + ${inserted}`,
+        updatedAt: new Date(),
+        status: sql`case when ${sweep.status} = 'queued' then 'running'::sweep_status else ${sweep.status} end`,
+      })
+      .where(eq(sweep.id, sweepId));
+    return inserted;
+  });
+}
+
+/** Finishes a search sweep: its total becomes the candidates it stored. */
+export async function finishSearchSweep(db: Database, sweepId: string): Promise<void> {
+  await db
+    .update(sweep)
+    .set({ status: "finished", total: sql`${sweep.done}`, finishedAt: new Date(), updatedAt: new Date() })
+    .where(and(eq(sweep.id, sweepId), inArray(sweep.status, ["queued", "running"])));
+}
+
+/** The aggregate scores of a search sweep's stored candidates by index (null unless stable). */
+export async function storedAggregates(db: Database, sweepId: string): Promise<Map<number, number[] | null>> {
+  const result = await db.execute<{ index: number; scores: string | null }>(
+    sql`select index, scores::text as scores from candidate where sweep_id = ${sweepId}`,
+  );
+  const map = new Map<number, number[] | null>();
+  for (const row of result.rows) {
+    map.set(
+      row.index,
+      row.scores === null
+        ? null
+        : row.scores
+            .slice(1, -1)
+            .split(",")
+            .map((t) => (t === "NaN" ? Number.NaN : t === "Infinity" ? Number.POSITIVE_INFINITY : t === "-Infinity" ? Number.NEGATIVE_INFINITY : Number(t))),
+    );
+  }
+  return map;
 }

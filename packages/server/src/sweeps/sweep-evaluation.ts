@@ -1,9 +1,9 @@
-import { aggregateScores, assertValidController, batchStatusName, sweepCandidateCount } from "@loopyard/core";
+import { aggregateScores, assertValidController, batchStatusName, controllerFromVector, sweepCandidateCount } from "@loopyard/core";
 import type { BatchResult, CriterionId, Plant, SweepInputParsed } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { findRevisionById } from "../plants/plant-repository.js";
 import type { CandidateRow } from "./candidate-repository.js";
-import { candidateParams, planController, structureProblem, sweepPlan, type SweepPlan } from "./sweep-plan.js";
+import { candidateParams, structureProblem, sweepPlan, type SweepPlan } from "./sweep-plan.js";
 
 /** Everything needed to evaluate any candidate range of a sweep, derived once from its frozen definition. */
 export interface SweepEvaluationContext {
@@ -66,15 +66,34 @@ export type BatchEvaluator = (context: SweepEvaluationContext, candidates: Float
  * (with the reason), else stable.
  */
 export async function evaluateRange(context: SweepEvaluationContext, start: number, end: number, evaluate: BatchEvaluator): Promise<CandidateRow[]> {
+  const { plan } = context;
+  const n = plan.d === 0 ? 0 : plan.candidates.length / plan.d;
+  if (!(Number.isInteger(start) && Number.isInteger(end) && 0 <= start && start < end && end <= n)) {
+    throw new RangeError(`chunk [${start}, ${end}) lies outside the sweep's ${n} candidates`);
+  }
+  return (await evaluateCandidates(context, plan.candidates.subarray(start * plan.d, end * plan.d), start, evaluate)).rows;
+}
+
+/**
+ * evaluateRange for explicit tunable vectors (n × d, e.g. a search's generation) stored from index
+ * `first`; also returns the aggregate (n × C, NaN for candidates not stable on every variant).
+ */
+export async function evaluateCandidates(
+  context: SweepEvaluationContext,
+  candidates: Float64Array,
+  first: number,
+  evaluate: BatchEvaluator,
+): Promise<{ rows: CandidateRow[]; aggregate: Float64Array }> {
   const { plan, family, criteria } = context;
-  const n = end - start;
+  const n = plan.d === 0 ? 0 : candidates.length / plan.d;
+  const start = first;
   const nf = family.length;
   const nc = criteria.length;
-  const result = await evaluate(context, plan.candidates.subarray(start * plan.d, end * plan.d));
+  const result = await evaluate(context, candidates);
   const aggregate = aggregateScores(result.scores, result.status, n, nf, criteria, context.definition.aggregate ?? { kind: "worst" });
   const rows: CandidateRow[] = [];
   for (let i = 0; i < n; i++) {
-    const controller = planController(plan, start + i);
+    const controller = controllerFromVector(plan.structure, candidates, i * plan.d);
     let status: CandidateRow["status"] = "stable";
     let invalid = false;
     for (let f = 0; f < nf; f++) {
@@ -93,7 +112,7 @@ export async function evaluateRange(context: SweepEvaluationContext, start: numb
     if (status === "diverged" && invalid) row.error = rejectionReason(controller);
     rows.push(row);
   }
-  return rows;
+  return { rows, aggregate };
 }
 
 /** Why core rejected a candidate's controller (its RangeError's sentence). */

@@ -1,6 +1,6 @@
 import type PgBoss from "pg-boss";
 import type { Database } from "../db/database.js";
-import { chunkJobId, enqueueChunks, SWEEP_CHUNK_QUEUE } from "../jobs/job-queue.js";
+import { chunkJobId, enqueueChunks, SWEEP_CHUNK_QUEUE, SWEEP_SEARCH_QUEUE } from "../jobs/job-queue.js";
 import { chunkCount, insertChunks, listPendingChunks, type ChunkRange } from "./sweep-chunk-repository.js";
 import { definitionVariants } from "./sweep-evaluation.js";
 import { findSweepForRun, listUnfinishedSweepIds } from "./sweep-repository.js";
@@ -36,6 +36,11 @@ export function chunkRanges(total: number, size: number): ChunkRange[] {
 export async function startSweepJobs(db: Database, boss: PgBoss, sweepId: string): Promise<void> {
   const record = await findSweepForRun(db, sweepId);
   if (!record || (record.status !== "queued" && record.status !== "running")) return;
+  if (record.definition.design?.kind === "search") {
+    // One job per generation; a resumed start adds one (the chains meet at the next generation's job id).
+    await boss.send(SWEEP_SEARCH_QUEUE, { sweepId, generation: 0 });
+    return;
+  }
   if ((await chunkCount(db, sweepId)) === 0) {
     const size = chunkSizeFor(record.total, definitionVariants(record.definition).length);
     await insertChunks(db, sweepId, chunkRanges(record.total, size));

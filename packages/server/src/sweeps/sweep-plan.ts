@@ -20,7 +20,8 @@ export interface SweepPlan {
 
 export function sweepPlan(definition: SweepInputParsed): SweepPlan {
   const structure = sweepStructure(definition);
-  const { values } = sweepCandidates(definition);
+  // Search designs choose their candidates as they run (sweep-search-job.ts): no fixed list.
+  const values = definition.design?.kind === "search" ? new Float64Array(0) : sweepCandidates(definition).values;
   const evaluation: EvaluationOptions = { poles: false };
   // Without options the loop keeps core's fast scoring path.
   if (definition.criterionOptions !== undefined) evaluation.criterion = definition.criterionOptions;

@@ -63,9 +63,6 @@ export async function createSweep(
   input: SweepInputParsed,
   limits: SweepLimits = DEFAULT_SWEEP_LIMITS,
 ): Promise<SweepDetailDto> {
-  if (input.design.kind === "search") {
-    throw badRequest("design: search designs are not available on this server yet; use grid, latin-hypercube, sobol or random", "design");
-  }
   const total = sweepCandidateCount(input);
   if (total > limits.maxCandidates) {
     throw new HttpError(

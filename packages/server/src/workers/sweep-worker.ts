@@ -4,7 +4,8 @@ import type PgBoss from "pg-boss";
 import { evaluateBatch } from "@loopyard/core";
 import { createEvaluationPool, type EvaluationPool } from "@loopyard/core/pool";
 import type { Database } from "../db/database.js";
-import { SWEEP_CHUNK_QUEUE, type ChunkJobData } from "../jobs/job-queue.js";
+import { enqueueSearchGeneration, SWEEP_CHUNK_QUEUE, SWEEP_SEARCH_QUEUE, type ChunkJobData, type SearchJobData } from "../jobs/job-queue.js";
+import { runSearchGeneration } from "../sweeps/sweep-search-job.js";
 import { chunkStatus, completeChunk, countChunkAttempt, failChunk } from "../sweeps/sweep-chunk-repository.js";
 import { evaluateRange, loadEvaluationContext, SweepDefinitionError, type BatchEvaluator, type SweepEvaluationContext } from "../sweeps/sweep-evaluation.js";
 import { findSweepForRun, markSweepFailed } from "../sweeps/sweep-repository.js";
@@ -105,6 +106,48 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     }
   }
 
+  /** One generation of a search sweep; then the next generation's job (or the sweep is finished). */
+  async function handleSearch(job: PgBoss.JobWithMetadata<SearchJobData>): Promise<void> {
+    const { sweepId } = job.data;
+    const record = await findSweepForRun(db, sweepId);
+    if (!record || (record.status !== "queued" && record.status !== "running")) return;
+    try {
+      let context: SweepEvaluationContext;
+      try {
+        context = await contextOf(sweepId, record.definition);
+      } catch (error) {
+        if (error instanceof SweepDefinitionError) {
+          await markSweepFailed(db, sweepId, `The sweep could not run: ${error.message}.`);
+          return;
+        }
+        throw error;
+      }
+      const next = await runSearchGeneration(db, context, evaluate);
+      if (next !== null) await enqueueSearchGeneration(boss, sweepId, next);
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      if (job.retryCount >= job.retryLimit) {
+        console.error(`[loopyard] search sweep ${sweepId} failed after ${job.retryCount + 1} attempts: ${message}`);
+        await markSweepFailed(db, sweepId, `The search stopped: ${message}`);
+        return;
+      }
+      throw error;
+    }
+  }
+  let searchWorkId = "";
+  searchWorkId = await boss.work<SearchJobData>(
+    SWEEP_SEARCH_QUEUE,
+    { batchSize: 1, pollingIntervalSeconds: 0.5, includeMetadata: true },
+    async ([job]) => {
+      if (!job) return;
+      try {
+        await handleSearch(job);
+      } finally {
+        boss.notifyWorker(searchWorkId);
+      }
+    },
+  );
+
   const concurrency = Math.max(1, options.concurrency ?? threads + 1);
   const workIds: string[] = [];
   for (let i = 0; i < concurrency; i++) {
@@ -133,6 +176,7 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
       closing ??= (async () => {
         clearInterval(heartbeat);
         await boss.offWork(SWEEP_CHUNK_QUEUE).catch(() => undefined);
+        await boss.offWork(SWEEP_SEARCH_QUEUE).catch(() => undefined);
         await pool?.close();
         await removeWorker(db, id).catch(() => undefined);
       })();
