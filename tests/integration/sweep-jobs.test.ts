@@ -233,6 +233,32 @@ describe("a chunk that keeps failing", () => {
   });
 });
 
+describe("a chunk job that failed while no worker could report it", () => {
+  it("when a chunk's job has failed for good but its chunk is still pending, then a starting worker reports the chunk failed and the sweep finishes", async () => {
+    const server = await startTestServer({ embeddedWorker: false });
+    servers.push(server);
+    const { team, revisions } = await familyTeam(server.url, "Orphaned");
+    const created = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, familySweep("Orphaned chunk", revisions, 200));
+    expect(created.status).toBe(201);
+    const id: string = created.body.id;
+    // What pg-boss leaves when a worker is killed during the chunk's last attempt: the job failed, the chunk pending.
+    const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await db.connect();
+    const changed = await db.query(
+      "update pgboss.job set state = 'failed', output = '{\"message\":\"job expired\"}'::jsonb where name = 'sweep-chunk' and data->>'sweepId' = $1 and data->>'chunk' = '1'",
+      [id],
+    );
+    await db.end();
+    expect(changed.rowCount).toBe(1);
+    const worker = await startWorker();
+    const sweep = await waitUntil(team.viewer, team.slug, id, finished, 30_000);
+    expect(sweep).toMatchObject({ status: "finished", done: 100 });
+    expect(sweep.progress.failures).toHaveLength(1);
+    expect(sweep.progress.failures[0]?.error).toMatch(/failed after its last retry.*job expired/);
+    await worker.stop();
+  });
+});
+
 describe("the server killed mid-sweep", () => {
   it("when the server process is killed with SIGKILL and started again, then the sweep resumes and completes", async () => {
     const port = await freePort();

@@ -1,7 +1,8 @@
+import { sql } from "drizzle-orm";
 import type PgBoss from "pg-boss";
 import type { Database } from "../db/database.js";
 import { chunkJobId, enqueueChunks, SWEEP_CHUNK_QUEUE, SWEEP_SEARCH_QUEUE } from "../jobs/job-queue.js";
-import { chunkCount, insertChunks, listPendingChunks, type ChunkRange } from "./sweep-chunk-repository.js";
+import { chunkCount, failChunk, insertChunks, listPendingChunks, type ChunkRange } from "./sweep-chunk-repository.js";
 import { definitionVariants } from "./sweep-evaluation.js";
 import { findSweepForRun, listUnfinishedSweepIds } from "./sweep-repository.js";
 
@@ -52,8 +53,29 @@ export async function startSweepJobs(db: Database, boss: PgBoss, sweepId: string
   );
 }
 
+/**
+ * Marks failed the pending chunks of running sweeps whose pg-boss job failed for good without the
+ * worker saying so (the worker was killed during the last attempt, so the job expired one time too
+ * many): their sweep can then finish, with the chunk listed among its failures. Returns how many.
+ */
+export async function reconcileFailedChunkJobs(db: Database): Promise<number> {
+  const result = await db.execute<{ sweep_id: string; chunk: number; output: string | null }>(sql`
+    select c.sweep_id, c.chunk, j.output::text as output
+    from sweep_chunk c
+    join sweep s on s.id = c.sweep_id and s.status in ('queued', 'running')
+    join pgboss.job j on j.name = ${SWEEP_CHUNK_QUEUE} and j.state = 'failed'
+      and j.data->>'sweepId' = c.sweep_id::text and (j.data->>'chunk')::int = c.chunk
+    where c.status = 'pending'`);
+  for (const row of result.rows) {
+    const detail = row.output && row.output !== "null" ? `: ${row.output.slice(0, 300)}` : "";
+    await failChunk(db, row.sweep_id, row.chunk, `the chunk's job failed after its last retry (its worker stopped or timed out)${detail}`, "reconcile");
+  }
+  return result.rows.length;
+}
+
 /** Enqueues what every queued or running sweep still needs (start-up of a server or worker); returns how many sweeps. */
 export async function resumeSweepJobs(db: Database, boss: PgBoss): Promise<number> {
+  await reconcileFailedChunkJobs(db).catch((error: unknown) => console.error("[loopyard] could not check failed chunk jobs:", error));
   const ids = await listUnfinishedSweepIds(db);
   for (const id of ids) {
     try {

@@ -6,6 +6,7 @@ import { createEvaluationPool, type EvaluationPool } from "@loopyard/core/pool";
 import type { Database } from "../db/database.js";
 import { enqueueSearchGeneration, SWEEP_CHUNK_QUEUE, SWEEP_SEARCH_QUEUE, type ChunkJobData, type SearchJobData } from "../jobs/job-queue.js";
 import { runSearchGeneration } from "../sweeps/sweep-search-job.js";
+import { reconcileFailedChunkJobs } from "../sweeps/sweep-jobs.js";
 import { chunkStatus, completeChunk, countChunkAttempt, failChunk } from "../sweeps/sweep-chunk-repository.js";
 import { evaluateRange, loadEvaluationContext, SweepDefinitionError, type BatchEvaluator, type SweepEvaluationContext } from "../sweeps/sweep-evaluation.js";
 import { findSweepForRun, markSweepFailed } from "../sweeps/sweep-repository.js";
@@ -13,6 +14,8 @@ import { heartbeatWorker, pruneWorkers, registerWorker, removeWorker } from "./w
 
 /** Seconds between heartbeats of a worker row. */
 export const HEARTBEAT_SECONDS = 5;
+/** Seconds between checks for chunk jobs that failed without their worker marking the chunk. */
+export const RECONCILE_SECONDS = 60;
 /** Sweeps whose evaluation context a worker keeps (their candidate lists can be large). */
 const CONTEXT_CACHE_SIZE = 4;
 
@@ -48,6 +51,11 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     heartbeatWorker(db, id).catch((error: unknown) => console.error(`[loopyard] worker heartbeat failed: ${String(error)}`));
   }, HEARTBEAT_SECONDS * 1000);
   heartbeat.unref();
+  // Chunks whose job failed for good while no worker could say so (see reconcileFailedChunkJobs).
+  const reconcile = setInterval(() => {
+    reconcileFailedChunkJobs(db).catch((error: unknown) => console.error(`[loopyard] checking failed chunk jobs failed: ${String(error)}`));
+  }, RECONCILE_SECONDS * 1000);
+  reconcile.unref();
 
   const contexts = new Map<string, Promise<SweepEvaluationContext>>();
   const contextOf = (sweepId: string, definition: Parameters<typeof loadEvaluationContext>[2]) => {
@@ -175,6 +183,7 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     close() {
       closing ??= (async () => {
         clearInterval(heartbeat);
+        clearInterval(reconcile);
         await boss.offWork(SWEEP_CHUNK_QUEUE).catch(() => undefined);
         await boss.offWork(SWEEP_SEARCH_QUEUE).catch(() => undefined);
         await pool?.close();
