@@ -105,6 +105,10 @@ export async function failChunk(db: Database, sweepId: string, chunk: number, er
 
 /** Adds `inserted` to sweep.done; finishes a queued or running sweep once no chunk is pending. */
 async function settleSweep(tx: Database, sweepId: string, inserted: number, now: Date): Promise<void> {
+  // Lock the sweep row before counting: two chunks of one sweep finishing at the same moment would
+  // otherwise each see the other still pending, and neither would finish the sweep. Under READ
+  // COMMITTED the second transaction waits here and its count then sees the first one's chunk done.
+  await tx.select({ id: sweep.id }).from(sweep).where(eq(sweep.id, sweepId)).for("update");
   const [pending] = await tx
     .select({ n: count() })
     .from(sweepChunk)
