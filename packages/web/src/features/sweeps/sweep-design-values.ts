@@ -125,7 +125,8 @@ export function designCandidateCount(values: DesignValues, gridCount: number | n
     case "nelder-mead":
       return whole(values.starts, values.iterations) ? values.starts * values.iterations : null;
     case "nsga2":
-      return whole(values.population, values.generations) ? values.population * values.generations : null;
+      // The initial population is evaluated too: population × (generations + 1), as sweepCandidateCount counts it.
+      return whole(values.population, values.generations) ? values.population * (values.generations + 1) : null;
     default:
       return whole(values.count) ? values.count : null;
   }

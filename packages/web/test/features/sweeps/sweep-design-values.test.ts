@@ -29,13 +29,14 @@ describe("toDesign and fromDesign", () => {
     expect(fromDesign(undefined, "ise").kind).toBe("grid");
   });
 
-  it("designCandidateCount: the grid product, the design's count, starts × iterations, population × generations", () => {
+  it("designCandidateCount: the grid product, the design's count, starts × iterations, population × (generations + 1)", () => {
     const base = defaultDesign();
     expect(designCandidateCount({ ...base, kind: "grid" }, 75)).toBe(75);
     expect(designCandidateCount({ ...base, kind: "sobol", count: 4096 }, 75)).toBe(4096);
     // 8 starts × 200 iterations = 1600 (closed form)
     expect(designCandidateCount({ ...base, kind: "nelder-mead", starts: 8, iterations: 200 }, 75)).toBe(1600);
-    expect(designCandidateCount({ ...base, kind: "nsga2", population: 60, generations: 40 }, 75)).toBe(2400);
+    // NSGA-II evaluates the initial population and 40 offspring generations: 60 × 41 = 2460, as core's sweepCandidateCount
+    expect(designCandidateCount({ ...base, kind: "nsga2", population: 60, generations: 40 }, 75)).toBe(2460);
     expect(designCandidateCount({ ...base, kind: "random", count: Number.NaN }, 75)).toBeNull();
   });
 });
