@@ -1,4 +1,4 @@
-// One vitest run over every project (see DEVELOPERS.md, "Tests"):
+// Every test project (see DEVELOPERS.md, "Tests"; npm test runs browser in a pass of its own):
 //   core, server, web  — unit tests inside each package (its own vitest.config.ts when it has one);
 //   integration        — tests/integration, real PostgreSQL over real HTTP (one file at a time);
 //   browser            — tests/browser, headless Debian chromium against the built app, after all others.

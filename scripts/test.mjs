@@ -1,7 +1,9 @@
 #!/usr/bin/env node
 // npm test: the same set-up as npm start on a fresh `loopyard_test` database, Debian chromium when
-// missing, then ONE vitest run over every project (core, server, web, integration, browser).
-// Extra arguments go to vitest, e.g. `npm test -- --project core`.
+// missing, then vitest over every project in two passes: core, server, web and integration first,
+// then browser. The browser project's app server runs an embedded sweep worker; in a pass of its
+// own it cannot take the integration tests' sweep jobs (they count and kill their own workers).
+// Extra arguments go to ONE vitest run, e.g. `npm test -- --project core`.
 import { spawn } from "node:child_process";
 import { existsSync, rmSync } from "node:fs";
 import { join } from "node:path";
@@ -27,16 +29,21 @@ async function ensureChromium() {
   });
 }
 
-function runVitest(env) {
-  rmSync(TEST_RESULTS_FILE, { force: true });
-  const args = [
-    "run",
-    "--reporter=default",
-    "--reporter=json",
-    `--outputFile.json=${TEST_RESULTS_FILE}`,
-    ...process.argv.slice(2),
+/** The passes of a plain `npm test`; extra arguments make one pass of their own. */
+function passes() {
+  const extra = process.argv.slice(2);
+  if (extra.length > 0) return [{ names: PROJECTS.map((p) => p.name), args: extra, report: TEST_RESULTS_FILE }];
+  const first = PROJECTS.filter((p) => p.name !== "browser").map((p) => p.name);
+  return [
+    { names: first, args: first.flatMap((name) => ["--project", name]), report: TEST_RESULTS_FILE },
+    { names: ["browser"], args: ["--project", "browser"], report: TEST_RESULTS_FILE.replace(/\.json$/, "-browser.json") },
   ];
-  say(`Running vitest (projects: ${PROJECTS.map((p) => p.name).join(", ")}) …`);
+}
+
+function runVitest(pass, env) {
+  rmSync(pass.report, { force: true });
+  const args = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${pass.report}`, ...pass.args];
+  say(`Running vitest (projects: ${pass.names.join(", ")}) …`);
   return new Promise((resolve, reject) => {
     const child = spawn(join(REPO_ROOT, "node_modules", ".bin", "vitest"), args, {
       cwd: REPO_ROOT,
@@ -56,16 +63,18 @@ async function main() {
   const authSecret = ensureAuthSecret();
   await migrateAndSeed(databaseUrl, authSecret);
 
-  const vitestCode = await runVitest({
-    DATABASE_URL: databaseUrl,
-    LOOPYARD_AUTH_SECRET: authSecret,
-    LOOPYARD_WEB_DIST: WEB_DIST_DIR,
-  });
-
-  if (!existsSync(TEST_RESULTS_FILE)) {
-    throw new StepError(`vitest exited with code ${vitestCode} and wrote no report to ${rel(TEST_RESULTS_FILE)}.`, "Read vitest's output above (a config error, most likely).");
+  const env = { DATABASE_URL: databaseUrl, LOOPYARD_AUTH_SECRET: authSecret, LOOPYARD_WEB_DIST: WEB_DIST_DIR };
+  let vitestCode = 0;
+  const reports = [];
+  for (const pass of passes()) {
+    const code = await runVitest(pass, env);
+    if (!existsSync(pass.report)) {
+      throw new StepError(`vitest exited with code ${code} and wrote no report to ${rel(pass.report)}.`, "Read vitest's output above (a config error, most likely).");
+    }
+    if (code !== 0) vitestCode = code;
+    reports.push(pass.report);
   }
-  const { total, perProject } = summarize(TEST_RESULTS_FILE);
+  const { total, perProject } = summarize(...reports);
   process.stdout.write("\n");
   for (const project of [...PROJECTS, { name: "other", kind: "other" }]) {
     const counts = perProject.get(project.name);

@@ -21,11 +21,11 @@ function projectOf(file) {
  * { total: {passed, failed, skipped}, perProject: Map<name, {passed, failed, skipped, files, brokenFiles}> }.
  * A test file that failed without any failed test (it did not load, or a hook threw) counts as one failure.
  */
-export function summarize(reportPath) {
-  const report = JSON.parse(readFileSync(reportPath, "utf8"));
+export function summarize(...reportPaths) {
+  const files = reportPaths.flatMap((path) => JSON.parse(readFileSync(path, "utf8")).testResults ?? []);
   const perProject = new Map();
   const total = { passed: 0, failed: 0, skipped: 0 };
-  for (const file of report.testResults ?? []) {
+  for (const file of files) {
     const name = projectOf(file.name);
     const counts = perProject.get(name) ?? { passed: 0, failed: 0, skipped: 0, files: 0, brokenFiles: [] };
     counts.files += 1;
