@@ -4,48 +4,35 @@
 // effort. Settling time is a step-response figure: under a load step alone it does not apply (core criteria
 // return NaN, the API null), so the front is drawn on IAE against effort and settling time reads "—".
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { launchChromium, saveScreenshot } from "../support/chromium.js";
+import type { Page } from "playwright-core";
+import { saveScreenshot } from "../support/chromium.js";
+import { DEMO_WORKSPACE, openBrowserSession, signIn } from "../support/browser-session.js";
+import type { BrowserSession } from "../support/browser-session.js";
 
-const WORKSPACE = "halvard-thermal";
-const PASSWORD = "ember-demo-2026";
+const WORKSPACE = DEMO_WORKSPACE;
 const ENGINEER = "priya@halvard.example";
 /** A 16-candidate sweep of a one-state nonlinear loop plus the lazy plot bundle. */
 const RESULT_TIMEOUT_MS = 120_000;
 
 const appUrl = inject("appUrl");
 
-let browser: Browser;
-let context: BrowserContext;
+let session: BrowserSession;
 let page: Page;
-const externalRequests: string[] = [];
-const pageErrors: string[] = [];
 
 beforeAll(async () => {
-  browser = await launchChromium();
-  context = await browser.newContext({ viewport: { width: 1360, height: 900 } });
-  page = await context.newPage();
-  page.on("request", (request) => {
-    const url = request.url();
-    if (!url.startsWith(appUrl) && !url.startsWith("data:") && !url.startsWith("blob:")) externalRequests.push(url);
-  });
-  page.on("pageerror", (error) => pageErrors.push(error.message));
+  session = await openBrowserSession(appUrl, { width: 1360, height: 900 });
+  page = session.page;
 });
 
 afterAll(async () => {
-  await context?.close();
-  await browser?.close();
+  await session?.close();
 });
 
 describe("engine choices: a nonlinear tank, its poles, and a PI sweep under a load step", () => {
   const plantName = `Ember drain tank ${Date.now().toString(36)}`;
 
   it("when the demo engineer types the tank with sqr(h), then the refusal names the token next to dh/dt; fixed, the plant is saved", async () => {
-    await page.goto(`${appUrl}/sign-in`);
-    await page.fill("#email", ENGINEER);
-    await page.fill("#password", PASSWORD);
-    await page.click("[data-testid=sign-in-submit]");
-    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+    await signIn(page, appUrl, ENGINEER);
     await page.goto(`${appUrl}/w/${WORKSPACE}/plants/new`);
     await page.waitForSelector("[data-testid=plant-form]");
 
@@ -143,7 +130,7 @@ describe("engine choices: a nonlinear tank, its poles, and a PI sweep under a lo
   });
 
   it("then no page asked any host but the app, and no page threw", () => {
-    expect(externalRequests).toEqual([]);
-    expect(pageErrors).toEqual([]);
+    expect(session.externalRequests).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
   });
 });

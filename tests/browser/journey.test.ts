@@ -2,11 +2,12 @@
 // test database: the demo engineer enters a plant, sweeps a 5×5 PID grid and sees its front; the demo
 // viewer is refused plant creation both in the UI and by the API.
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { launchChromium, saveScreenshot } from "../support/chromium.js";
+import type { Page } from "playwright-core";
+import { saveScreenshot } from "../support/chromium.js";
+import { DEMO_WORKSPACE, openBrowserSession, signIn } from "../support/browser-session.js";
+import type { BrowserSession } from "../support/browser-session.js";
 
-const WORKSPACE = "halvard-thermal";
-const PASSWORD = "ember-demo-2026";
+const WORKSPACE = DEMO_WORKSPACE;
 const ENGINEER = "priya@halvard.example";
 const VIEWER = "jon@halvard.example";
 /** Long enough for a 25-candidate sweep of a first-order plant plus the lazy plot bundle. */
@@ -14,18 +15,12 @@ const RESULT_TIMEOUT_MS = 90_000;
 
 const appUrl = inject("appUrl");
 
-let browser: Browser;
-let context: BrowserContext;
+let session: BrowserSession;
 let page: Page;
-const externalRequests: string[] = [];
-const pageErrors: string[] = [];
 
-async function signIn(email: string): Promise<void> {
-  await page.goto(`${appUrl}/sign-in`);
-  await page.fill("#email", email);
-  await page.fill("#password", PASSWORD);
-  await page.click("[data-testid=sign-in-submit]");
-  await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+/** Signs in and opens the workspace home. */
+async function signInToHome(email: string): Promise<void> {
+  await signIn(page, appUrl, email);
   await page.goto(`${appUrl}/w/${WORKSPACE}`);
   await page.waitForSelector("[data-testid=workspace-home]");
 }
@@ -37,19 +32,12 @@ async function signOut(): Promise<void> {
 }
 
 beforeAll(async () => {
-  browser = await launchChromium();
-  context = await browser.newContext({ viewport: { width: 1360, height: 900 } });
-  page = await context.newPage();
-  page.on("request", (request) => {
-    const url = request.url();
-    if (!url.startsWith(appUrl) && !url.startsWith("data:") && !url.startsWith("blob:")) externalRequests.push(url);
-  });
-  page.on("pageerror", (error) => pageErrors.push(error.message));
+  session = await openBrowserSession(appUrl, { width: 1360, height: 900 });
+  page = session.page;
 });
 
 afterAll(async () => {
-  await context?.close();
-  await browser?.close();
+  await session?.close();
 });
 
 describe("journey: engineer runs a sweep, viewer is refused", () => {
@@ -63,7 +51,7 @@ describe("journey: engineer runs a sweep, viewer is refused", () => {
   });
 
   it("when the demo engineer signs in, then the workspace home shows her role and the demo library", async () => {
-    await signIn(ENGINEER);
+    await signInToHome(ENGINEER);
     expect(await page.textContent("[data-testid=user-role]")).toBe("engineer");
     expect(Number(await page.textContent("[data-testid=count-plants] .font-mono"))).toBeGreaterThanOrEqual(3);
     await saveScreenshot(page, "journey-02-home-engineer");
@@ -158,7 +146,7 @@ describe("journey: engineer runs a sweep, viewer is refused", () => {
 
   it("when the demo viewer signs in, then creating a plant is refused in the UI and by the API", async () => {
     await signOut();
-    await signIn(VIEWER);
+    await signInToHome(VIEWER);
     expect(await page.textContent("[data-testid=user-role]")).toBe("viewer");
     await saveScreenshot(page, "journey-12-home-viewer");
 
@@ -190,7 +178,7 @@ describe("journey: engineer runs a sweep, viewer is refused", () => {
   });
 
   it("then no page asked any host but the app, and no page threw", () => {
-    expect(externalRequests).toEqual([]);
-    expect(pageErrors).toEqual([]);
+    expect(session.externalRequests).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
   });
 });

@@ -3,38 +3,31 @@
 // through the legend list rendered from the references data), and a clicked candidate gets its
 // |S| and |T| plot.
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { launchChromium, saveScreenshot } from "../support/chromium.js";
+import type { Page } from "playwright-core";
+import { saveScreenshot } from "../support/chromium.js";
+import { DEMO_WORKSPACE, openBrowserSession, signIn } from "../support/browser-session.js";
+import type { BrowserSession } from "../support/browser-session.js";
 
-const WORKSPACE = "halvard-thermal";
+const WORKSPACE = DEMO_WORKSPACE;
 const DEMO_SWEEP = "Ember 200 — first PID grid";
 const RESULT_TIMEOUT_MS = 90_000;
 const appUrl = inject("appUrl");
 
-let browser: Browser;
-let context: BrowserContext;
+let session: BrowserSession;
 let page: Page;
-const pageErrors: string[] = [];
 
 beforeAll(async () => {
-  browser = await launchChromium();
-  context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-  page = await context.newPage();
-  page.on("pageerror", (error) => pageErrors.push(error.message));
+  session = await openBrowserSession(appUrl, { width: 1440, height: 1000 });
+  page = session.page;
 });
 
 afterAll(async () => {
-  await context?.close();
-  await browser?.close();
+  await session?.close();
 });
 
 describe("sweep page: bound, baselines and sensitivity", () => {
   it("when the viewer opens the seeded Ember 200 sweep, then the bound and the baselines are drawn on ISE against effort", async () => {
-    await page.goto(`${appUrl}/sign-in`);
-    await page.fill("#email", "jon@halvard.example");
-    await page.fill("#password", "ember-demo-2026");
-    await page.click("[data-testid=sign-in-submit]");
-    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+    await signIn(page, appUrl, "jon@halvard.example");
     const sweeps = await page.evaluate(async (slug) => (await fetch(`/api/workspaces/${slug}/sweeps`)).json(), WORKSPACE);
     const sweep = (sweeps as { id: string; name: string }[]).find((s) => s.name === DEMO_SWEEP);
     expect(sweep).toBeDefined();
@@ -64,6 +57,6 @@ describe("sweep page: bound, baselines and sensitivity", () => {
     expect(await page.textContent("[data-testid=sensitivity-section] h2")).toBe("Sensitivity |S| and complementary sensitivity |T|");
     expect(await page.textContent("[data-testid=caution-note]")).toContain("Simulated designs are not validated designs.");
     await saveScreenshot(page, "references-02-sensitivity");
-    expect(pageErrors).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
   });
 });

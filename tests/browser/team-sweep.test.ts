@@ -3,38 +3,31 @@
 // sees the front once it finishes with the scores of a candidate on each variant, and "Run again
 // with changes" opens the form filled from the sweep's definition.
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { Browser, BrowserContext, Page } from "playwright-core";
-import { launchChromium, saveScreenshot } from "../support/chromium.js";
+import type { Page } from "playwright-core";
+import { saveScreenshot } from "../support/chromium.js";
+import { DEMO_WORKSPACE, openBrowserSession, signIn } from "../support/browser-session.js";
+import type { BrowserSession } from "../support/browser-session.js";
 
-const WORKSPACE = "halvard-thermal";
+const WORKSPACE = DEMO_WORKSPACE;
 const RESULT_TIMEOUT_MS = 150_000;
 const appUrl = inject("appUrl");
 const sweepName = `Ember 200/400 family ${Date.now().toString(36)}`;
 
-let browser: Browser;
-let context: BrowserContext;
+let session: BrowserSession;
 let page: Page;
-const pageErrors: string[] = [];
 
 beforeAll(async () => {
-  browser = await launchChromium();
-  context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
-  page = await context.newPage();
-  page.on("pageerror", (error) => pageErrors.push(error.message));
+  session = await openBrowserSession(appUrl, { width: 1440, height: 1000 });
+  page = session.page;
 });
 
 afterAll(async () => {
-  await context?.close();
-  await browser?.close();
+  await session?.close();
 });
 
 describe("a family sweep with a Latin hypercube", () => {
   it("when the engineer starts 400 candidates on Ember 200 and Ember 400, then the progress panel shows and the sweep finishes with a front", async () => {
-    await page.goto(`${appUrl}/sign-in`);
-    await page.fill("#email", "priya@halvard.example");
-    await page.fill("#password", "ember-demo-2026");
-    await page.click("[data-testid=sign-in-submit]");
-    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+    await signIn(page, appUrl, "priya@halvard.example");
 
     await page.goto(`${appUrl}/w/${WORKSPACE}/sweeps/new`);
     await page.waitForSelector("[data-testid=sweep-form]");
@@ -88,6 +81,6 @@ describe("a family sweep with a Latin hypercube", () => {
     expect(await page.inputValue("[data-testid=variant-0-label]")).toBe("Ember 400");
     expect(await page.inputValue("#sweep-revision")).not.toBe("");
     await saveScreenshot(page, "team-04-run-again");
-    expect(pageErrors).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
   });
 });
