@@ -1,45 +1,19 @@
-import { spawn } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
-import { CLI_MAIN, CORE_DIR, ensureDist } from "../support/ensure-dist.js";
+import { CORE_DIR, ensureDist } from "../support/ensure-dist.js";
+import { expectOneSentence, runLoopyard as loopyard } from "../support/run-loopyard.js";
 import { expectClose } from "../support/expect-close.js";
 
 // These tests spawn the built CLI (node packages/core/dist/cli/main.js), building dist first when it is stale.
 beforeAll(() => ensureDist(), 200_000);
-
-interface Run {
-  code: number | null;
-  stdout: string;
-  stderr: string;
-}
-
-function loopyard(args: string[], input?: string): Promise<Run> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, [CLI_MAIN, ...args], { cwd: CORE_DIR, stdio: ["pipe", "pipe", "pipe"] });
-    let stdout = "";
-    let stderr = "";
-    child.stdout.on("data", (d: Buffer) => (stdout += d.toString()));
-    child.stderr.on("data", (d: Buffer) => (stderr += d.toString()));
-    child.on("error", reject);
-    child.on("close", (code) => resolve({ code, stdout, stderr }));
-    child.stdin.end(input ?? "");
-  });
-}
 
 const dir = mkdtempSync(join(tmpdir(), "loopyard-baselines-"));
 function specFile(name: string, spec: unknown): string {
   const path = join(dir, name);
   writeFileSync(path, JSON.stringify(spec));
   return path;
-}
-
-function expectOneSentence(stderr: string, field: string): void {
-  const lines = stderr.trimEnd().split("\n");
-  expect(lines).toHaveLength(1);
-  expect(lines[0]).toMatch(/^loopyard: .*\.$/);
-  expect(lines[0]).toContain(field);
 }
 
 const EXAMPLE = join(CORE_DIR, "examples", "baselines-ember-800.json");
