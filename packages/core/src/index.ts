@@ -97,7 +97,6 @@ export {
   BANDWIDTH_LEVEL,
   PHASE_CROSSOVER_MIN_GAIN,
   POINTS_PER_DECADE,
-  assertValidLoop,
   frequencyResponse,
   sensitivityTail,
 } from "./frequency/frequency-response.js";
@@ -121,6 +120,7 @@ export { EXPRESSION_FUNCTIONS, EXPRESSION_FUNCTION_NAMES, isExpressionFunctionNa
 export { ROUTH_EPSILON, ROUTH_ZERO_TOLERANCE, routhHurwitz } from "./stability/routh-hurwitz.js";
 export { isHurwitz } from "./stability/is-hurwitz.js";
 export { evaluateLoop } from "./stability/evaluate-loop.js";
+export { assertValidLoop } from "./stability/assert-valid-loop.js";
 export { nyquistStability } from "./stability/nyquist-stability.js";
 
 // Sweeps and fronts.

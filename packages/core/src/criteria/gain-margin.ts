@@ -1,4 +1,4 @@
-import { assertValidLoop } from "../frequency/frequency-response.js";
+import { assertValidLoop } from "../stability/assert-valid-loop.js";
 import { loopFrequencyResponse } from "../frequency/frequency-response-cache.js";
 import { evaluateLoop, type LoopTransferFunction } from "../stability/evaluate-loop.js";
 import type { CriterionDefinition } from "./criterion-definition.js";

@@ -1,4 +1,4 @@
-import { assertFiniteCoefficients, trimLeadingZeros } from "../linear-algebra/polynomial-trim.js";
+import { assertValidLoop } from "../stability/assert-valid-loop.js";
 import { loopValueAt, type LoopTransferFunction } from "../stability/evaluate-loop.js";
 import { bisectSignChange } from "./bisect-sign-change.js";
 import { frequencySpan } from "./frequency-span.js";
@@ -372,22 +372,4 @@ function changesTooMuch(ar: number, ai: number, br: number, bi: number, maxPhase
   if (Math.abs(phase) > maxPhaseStep) return true;
   const ratio = abs2(br, bi) / abs2(ar, ai);
   return !(Math.abs(Math.log(ratio)) <= MAX_LOG_STEP);
-}
-
-/** Checks the loop as nyquistStability does and returns it trimmed. */
-export function assertValidLoop(loop: LoopTransferFunction): { num: number[]; den: number[]; delay: number } {
-  if (loop === null || typeof loop !== "object") throw new TypeError("loop must be { num, den, delay }");
-  assertFiniteCoefficients(loop.num, "loop.num");
-  assertFiniteCoefficients(loop.den, "loop.den");
-  const delay = loop.delay ?? 0;
-  if (typeof delay !== "number" || !Number.isFinite(delay) || delay < 0) {
-    throw new RangeError(`loop.delay: the dead time must be a finite number ≥ 0 s, got ${String(loop.delay)}`);
-  }
-  const num = trimLeadingZeros(loop.num);
-  const den = trimLeadingZeros(loop.den);
-  if (den.length === 0) throw new RangeError("loop.den: the denominator must not be all zeros");
-  if (num.length > den.length) {
-    throw new RangeError(`loop.num: the loop must be proper, numerator degree ${num.length - 1} exceeds denominator degree ${den.length - 1}`);
-  }
-  return { num, den, delay };
 }

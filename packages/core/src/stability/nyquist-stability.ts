@@ -1,6 +1,6 @@
 import type { Complex } from "../linear-algebra/complex.js";
 import { polynomialRoots } from "../linear-algebra/polynomial-roots.js";
-import { assertFiniteCoefficients, trimLeadingZeros } from "../linear-algebra/polynomial-trim.js";
+import { assertValidLoop } from "./assert-valid-loop.js";
 import { loopValueAt, type LoopTransferFunction } from "./evaluate-loop.js";
 import { nyquistTailFrequency } from "./nyquist-tail-frequency.js";
 import { nyquistContour } from "./nyquist-contour.js";
@@ -78,19 +78,7 @@ export interface NyquistVerdict {
  * 1993, ch. 9.
  */
 export function nyquistStability(loop: LoopTransferFunction): NyquistVerdict {
-  if (loop === null || typeof loop !== "object") throw new TypeError("loop must be { num, den, delay }");
-  assertFiniteCoefficients(loop.num, "loop.num");
-  assertFiniteCoefficients(loop.den, "loop.den");
-  const delay = loop.delay ?? 0;
-  if (typeof delay !== "number" || !Number.isFinite(delay) || delay < 0) {
-    throw new RangeError(`loop.delay: the dead time must be a finite number ≥ 0 s, got ${String(loop.delay)}`);
-  }
-  const num = trimLeadingZeros(loop.num);
-  const den = trimLeadingZeros(loop.den);
-  if (den.length === 0) throw new RangeError("loop.den: the denominator must not be all zeros");
-  if (num.length > den.length) {
-    throw new RangeError(`loop.num: the loop must be proper, numerator degree ${num.length - 1} exceeds denominator degree ${den.length - 1}`);
-  }
+  const { num, den, delay } = assertValidLoop(loop);
 
   const poles = polynomialRoots(den);
   const zeros = num.length > 1 ? polynomialRoots(num) : [];
