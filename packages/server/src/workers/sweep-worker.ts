@@ -69,6 +69,19 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     return context;
   };
 
+  /** The sweep's evaluation context, or null once a definition that cannot run has failed the sweep. */
+  async function contextOrFail(sweepId: string, definition: Parameters<typeof loadEvaluationContext>[2]): Promise<SweepEvaluationContext | null> {
+    try {
+      return await contextOf(sweepId, definition);
+    } catch (error) {
+      if (error instanceof SweepDefinitionError) {
+        await markSweepFailed(db, sweepId, `The sweep could not run: ${error.message}.`);
+        return null;
+      }
+      throw error;
+    }
+  }
+
   const evaluate: BatchEvaluator = async (context, candidates) => {
     const batch = {
       family: context.family,
@@ -91,16 +104,8 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     if ((await chunkStatus(db, sweepId, chunk)) !== "pending") return;
     await countChunkAttempt(db, sweepId, chunk);
     try {
-      let context: SweepEvaluationContext;
-      try {
-        context = await contextOf(sweepId, record.definition);
-      } catch (error) {
-        if (error instanceof SweepDefinitionError) {
-          await markSweepFailed(db, sweepId, `The sweep could not run: ${error.message}.`);
-          return;
-        }
-        throw error;
-      }
+      const context = await contextOrFail(sweepId, record.definition);
+      if (!context) return;
       const rows = await evaluateRange(context, start, end, evaluate);
       await completeChunk(db, sweepId, chunk, rows, id);
     } catch (error) {
@@ -120,16 +125,8 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     const record = await findSweepForRun(db, sweepId);
     if (!record || (record.status !== "queued" && record.status !== "running")) return;
     try {
-      let context: SweepEvaluationContext;
-      try {
-        context = await contextOf(sweepId, record.definition);
-      } catch (error) {
-        if (error instanceof SweepDefinitionError) {
-          await markSweepFailed(db, sweepId, `The sweep could not run: ${error.message}.`);
-          return;
-        }
-        throw error;
-      }
+      const context = await contextOrFail(sweepId, record.definition);
+      if (!context) return;
       const next = await runSearchGeneration(db, context, evaluate);
       if (next !== null) await enqueueSearchGeneration(boss, sweepId, next);
     } catch (error) {
