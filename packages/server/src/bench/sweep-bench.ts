@@ -4,18 +4,23 @@
 // scratch database created and dropped here (on DATABASE_URL's server). Prints the total time,
 // candidate·variants per second, the ratio to the bare engine rate measured in the same run
 // (evaluateBatch in process and on the same pool size), the time to load the front and the
-// candidate list, and the bytes stored per candidate (pg_total_relation_size).
+// candidate list, the time for the sweep's page to load and draw its front in headless chromium
+// (front-page-timing.ts; skipped when chromium or the built web app is missing), and the bytes stored
+// per candidate (pg_total_relation_size).
 import { randomBytes } from "node:crypto";
+import { existsSync } from "node:fs";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
 import { availableParallelism, cpus } from "node:os";
+import { join as joinPath, resolve as resolvePath } from "node:path";
 import pg from "pg";
 import { evaluateBatch, seededRandomDesign, sweepInputSchema, sweepStructure } from "@loopyard/core";
 import type { Plant, Scenario, SweepDetailDto } from "@loopyard/core";
 import { createEvaluationPool } from "@loopyard/core/pool";
 import { createApp } from "../app.js";
-import { DEFAULT_DATABASE_URL, defaultMigrationsFolder } from "../config.js";
+import { DEFAULT_DATABASE_URL, REPO_ROOT, defaultMigrationsFolder } from "../config.js";
 import { runMigrations } from "../db/migrate.js";
+import { timeFrontPage } from "./front-page-timing.js";
 
 const CANDIDATES = Number(process.env.LOOPYARD_BENCH_SWEEP_CANDIDATES ?? 100_000);
 const SEED = 20_000;
@@ -33,6 +38,12 @@ const VARIANTS: { label: string; model: Plant }[] = [
 const RANGES = { kp: { min: 0.2, max: 3 }, ki: { min: 0.05, max: 1.5 }, kd: { min: 0, max: 2 } };
 const SCENARIO = { horizon: 30, dt: 0.01 };
 const CRITERIA = ["iae", "ise", "itae", "effort"] as const;
+
+/** The issue's target for the sweep page: load and draw the front in under 2 s. */
+const PAGE_TARGET_MS = 2000;
+const WEB_DIST = process.env.LOOPYARD_WEB_DIST ? resolvePath(process.env.LOOPYARD_WEB_DIST) : joinPath(REPO_ROOT, "packages", "web", "dist");
+const BENCH_EMAIL = "bench@halvard.example";
+const BENCH_PASSWORD = "ember-bench-2026";
 
 const fmt = (n: number, digits = 0) => n.toLocaleString("en-US", { maximumFractionDigits: digits, minimumFractionDigits: digits });
 
@@ -108,13 +119,14 @@ async function main(): Promise<void> {
       databaseUrl: databaseUrl.toString(),
       authSecret: randomBytes(32).toString("hex"),
       publicUrl: base,
-      webDist: null,
+      // The built web app, so the sweep's page can be timed in chromium at the end.
+      webDist: existsSync(joinPath(WEB_DIST, "index.html")) ? WEB_DIST : null,
       limits: { maxCandidates: 1_000_000, maxConcurrentSweeps: 3 },
     });
     http.on("request", app.app);
     await app.jobs.ready;
     const call = client(base);
-    const signUp = await call("POST", "/api/auth/sign-up/email", { name: "Bench Runner", email: "bench@halvard.example", password: "ember-bench-2026" });
+    const signUp = await call("POST", "/api/auth/sign-up/email", { name: "Bench Runner", email: BENCH_EMAIL, password: BENCH_PASSWORD });
     if (signUp.status !== 200) throw new Error(`sign-up answered ${signUp.status}`);
     const workspace = await call("POST", "/api/workspaces", { name: "Halvard Thermoworks — bench" });
     const slug: string = workspace.body.slug;
@@ -163,6 +175,21 @@ async function main(): Promise<void> {
     const list = await call("GET", `${path}/candidates`);
     const listMs = performance.now() - t;
     console.log(`front endpoint: ${fmt(frontMs)} ms (${front.body.indices.length} on the front); candidate list: ${fmt(listMs)} ms (${fmt(list.body.candidates.length)} candidates, sampled ${list.body.sampled})`);
+
+    if (!existsSync(joinPath(WEB_DIST, "index.html"))) {
+      console.log(`front page: skipped the page timing (no built web app at ${WEB_DIST}; build it with npx vite build in packages/web)`);
+    } else {
+      const page = await timeFrontPage({ base, email: BENCH_EMAIL, password: BENCH_PASSWORD, sweepPath: `/w/${slug}/sweeps/${created.body.id}` });
+      if ("skipped" in page) {
+        console.log(`front page: skipped the page timing (${page.skipped})`);
+      } else {
+        console.log(
+          `front page: ${fmt(page.drawMs)} ms to load and draw (${fmt(page.points)} points, ${page.webgl ? "scattergl" : "svg scatter"}; ${page.frontSize} on the front; ` +
+            `${fmt(page.wallMs)} ms as seen from the driver) — ${page.drawMs < PAGE_TARGET_MS ? "under" : "NOT under"} the ${fmt(PAGE_TARGET_MS / 1000)} s target; ` +
+            `reloaded with plotly cached: ${fmt(page.warmDrawMs)} ms`,
+        );
+      }
+    }
 
     const db = new pg.Client({ connectionString: databaseUrl.toString() });
     await db.connect();
