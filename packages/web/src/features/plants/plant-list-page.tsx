@@ -2,15 +2,22 @@ import { Link } from "react-router";
 import { usePlants } from "../../api/use-plants.js";
 import { ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
-import { RoleNote } from "../../components/role-note.js";
-import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
-import { Loading } from "../../components/loading.js";
-import { PageHeader } from "../../components/page-header.js";
+import { ListPage } from "../../components/list-page.js";
+import { ListTable } from "../../components/list-table.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { formatCoefficient } from "./format-transfer-function.js";
 import { plantKindShort } from "./plant-kind.js";
 import { plantDelay, plantModelSummary } from "./plant-summary.js";
+
+const PLANT_COLUMNS = [
+  { label: "Name" },
+  { label: "Kind" },
+  { label: "Model" },
+  { label: "Dead time [s]", align: "right" },
+  { label: "Revision", align: "right" },
+  { label: "Last change" },
+] as const;
 
 /** /w/:slug/plants — the library. */
 export function PlantListPage() {
@@ -25,14 +32,16 @@ export function PlantListPage() {
   );
 
   return (
-    <div data-testid="plant-list-page">
-      <PageHeader title="Library" subtitle="The workspace's plant models. Every edit makes a new revision; sweeps point at revisions." actions={newButton} />
-      {refusal ? <RoleNote sentence={refusal} /> : null}
-      {plants.isPending ? (
-        <Loading label="Loading the library…" />
-      ) : plants.isError ? (
-        <ErrorNote error={plants.error} title="Could not load the library" />
-      ) : plants.data.length === 0 ? (
+    <ListPage
+      testId="plant-list-page"
+      title="Library"
+      subtitle="The workspace's plant models. Every edit makes a new revision; sweeps point at revisions."
+      actions={newButton}
+      refusal={refusal}
+      query={plants}
+      loadingLabel="Loading the library…"
+      errorTitle="Could not load the library"
+      empty={
         <EmptyState
           title="The library is empty"
           action={
@@ -48,50 +57,38 @@ export function PlantListPage() {
             ? "Add a plant: a transfer function, a state-space model or nonlinear equations. Then sweep controller gains on it."
             : "An engineer of this workspace can add the first plant; you will see it here."}
         </EmptyState>
-      ) : (
-        <div className="overflow-x-auto rounded-lg border border-line bg-sheet">
-          <table className="w-full text-sm" data-testid="plant-table">
-            <thead>
-              <tr className="border-b border-line text-left text-xs uppercase tracking-wide text-ink-soft">
-                <th className="px-4 py-2 font-medium">Name</th>
-                <th className="px-4 py-2 font-medium">Kind</th>
-                <th className="px-4 py-2 font-medium">Model</th>
-                <th className="px-4 py-2 text-right font-medium">Dead time [s]</th>
-                <th className="px-4 py-2 text-right font-medium">Revision</th>
-                <th className="px-4 py-2 font-medium">Last change</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-line-soft">
-              {plants.data.map((p) => (
-                <tr key={p.id} className="hover:bg-paper">
-                  <td className="px-4 py-2.5">
-                    <Link to={`${base}/plants/${p.id}`} className="font-medium hover:text-moss" data-testid="plant-link">
-                      {p.name}
-                    </Link>
-                    {p.latestRevision.unitsNote ? <div className="max-w-xs truncate text-xs text-ink-soft">{p.latestRevision.unitsNote}</div> : null}
-                  </td>
-                  <td className="whitespace-nowrap px-4 py-2.5 text-xs text-ink-soft" data-testid="plant-kind-cell">
-                    {plantKindShort(p.latestRevision.model.kind)}
-                  </td>
-                  <td className="max-w-xs truncate px-4 py-2.5 font-mono text-[13px]" title={plantModelSummary(p.latestRevision.model)}>
-                    {plantModelSummary(p.latestRevision.model)}
-                  </td>
-                  <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
-                    {plantDelay(p.latestRevision.model) === null ? <span className="text-ink-faint">—</span> : formatCoefficient(plantDelay(p.latestRevision.model) ?? 0)}
-                  </td>
-                  <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
-                    {p.latestRevision.number}
-                    <span className="text-ink-faint"> / {p.revisionCount}</span>
-                  </td>
-                  <td className="min-w-40 px-4 py-2.5 text-xs text-ink-soft">
-                    {formatDateTime(p.latestRevision.createdAt)} · {p.latestRevision.createdBy.name}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+      }
+    >
+      {(rows) => (
+        <ListTable testId="plant-table" columns={PLANT_COLUMNS}>
+          {rows.map((p) => (
+            <tr key={p.id} className="hover:bg-paper">
+              <td className="px-4 py-2.5">
+                <Link to={`${base}/plants/${p.id}`} className="font-medium hover:text-moss" data-testid="plant-link">
+                  {p.name}
+                </Link>
+                {p.latestRevision.unitsNote ? <div className="max-w-xs truncate text-xs text-ink-soft">{p.latestRevision.unitsNote}</div> : null}
+              </td>
+              <td className="whitespace-nowrap px-4 py-2.5 text-xs text-ink-soft" data-testid="plant-kind-cell">
+                {plantKindShort(p.latestRevision.model.kind)}
+              </td>
+              <td className="max-w-xs truncate px-4 py-2.5 font-mono text-[13px]" title={plantModelSummary(p.latestRevision.model)}>
+                {plantModelSummary(p.latestRevision.model)}
+              </td>
+              <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
+                {plantDelay(p.latestRevision.model) === null ? <span className="text-ink-faint">—</span> : formatCoefficient(plantDelay(p.latestRevision.model) ?? 0)}
+              </td>
+              <td className="px-4 py-2.5 text-right font-mono text-[13px] tabular">
+                {p.latestRevision.number}
+                <span className="text-ink-faint"> / {p.revisionCount}</span>
+              </td>
+              <td className="min-w-40 px-4 py-2.5 text-xs text-ink-soft">
+                {formatDateTime(p.latestRevision.createdAt)} · {p.latestRevision.createdBy.name}
+              </td>
+            </tr>
+          ))}
+        </ListTable>
       )}
-    </div>
+    </ListPage>
   );
 }

@@ -2,15 +2,15 @@ import { Link } from "react-router";
 import { isSweepActive, useSweeps } from "../../api/use-sweeps.js";
 import { ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
-import { RoleNote } from "../../components/role-note.js";
-import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
-import { Loading } from "../../components/loading.js";
-import { PageHeader } from "../../components/page-header.js";
+import { ListPage } from "../../components/list-page.js";
+import { ListTable } from "../../components/list-table.js";
 import { ProgressBar } from "../../components/progress-bar.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { formatEta, formatRate, sweepProgress } from "./sweep-progress.js";
 import { SweepStatusBadge } from "./sweep-status.js";
+
+const SWEEP_COLUMNS = [{ label: "Name" }, { label: "Plant" }, { label: "State" }, { label: "Progress", className: "w-80" }, { label: "Started" }] as const;
 
 /** /w/:slug/sweeps — every sweep, newest first, with its state and progress. */
 export function SweepListPage() {
@@ -25,14 +25,16 @@ export function SweepListPage() {
   );
 
   return (
-    <div data-testid="sweep-list-page">
-      <PageHeader title="Sweeps" subtitle="Controller candidates tried on one plant or a family of variants; every candidate scored on the chosen criteria, the front drawn from them." actions={newButton} />
-      {refusal ? <RoleNote sentence={refusal} /> : null}
-      {sweeps.isPending ? (
-        <Loading label="Loading sweeps…" />
-      ) : sweeps.isError ? (
-        <ErrorNote error={sweeps.error} title="Could not load the sweeps" />
-      ) : sweeps.data.length === 0 ? (
+    <ListPage
+      testId="sweep-list-page"
+      title="Sweeps"
+      subtitle="Controller candidates tried on one plant or a family of variants; every candidate scored on the chosen criteria, the front drawn from them."
+      actions={newButton}
+      refusal={refusal}
+      query={sweeps}
+      loadingLabel="Loading sweeps…"
+      errorTitle="Could not load the sweeps"
+      empty={
         <EmptyState
           title="No sweeps yet"
           action={
@@ -48,48 +50,37 @@ export function SweepListPage() {
             ? "Start one: pick a plant revision, give ranges for kp, ki and kd, and Loopyard scores every candidate of the grid and draws the front."
             : "An engineer of this workspace can start a sweep; its front will show here."}
         </EmptyState>
-      ) : (
-        <div className="overflow-x-auto rounded-lg border border-line bg-sheet">
-          <table className="w-full text-sm" data-testid="sweep-table">
-            <thead>
-              <tr className="border-b border-line text-left text-xs uppercase tracking-wide text-ink-soft">
-                <th className="px-4 py-2 font-medium">Name</th>
-                <th className="px-4 py-2 font-medium">Plant</th>
-                <th className="px-4 py-2 font-medium">State</th>
-                <th className="w-80 px-4 py-2 font-medium">Progress</th>
-                <th className="px-4 py-2 font-medium">Started</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-line-soft">
-              {sweeps.data.map((s) => (
-                <tr key={s.id} className="hover:bg-paper">
-                  <td className="px-4 py-2.5">
-                    <Link to={`${base}/sweeps/${s.id}`} className="font-medium hover:text-moss" data-testid="sweep-link">
-                      {s.name}
-                    </Link>
-                  </td>
-                  <td className="px-4 py-2.5">
-                    <Link to={`${base}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="hover:text-moss">
-                      {s.plant.name}
-                    </Link>{" "}
-                    <span className="font-mono text-xs text-ink-soft">rev {s.plant.revisionNumber}</span>
-                  </td>
-                  <td className="px-4 py-2.5">
-                    <SweepStatusBadge status={s.status} />
-                  </td>
-                  <td className="px-4 py-2.5">
-                    <SweepGlance sweep={s} />
-                  </td>
-                  <td className="px-4 py-2.5 text-xs text-ink-soft">
-                    {formatDateTime(s.createdAt)} · {s.createdBy.name}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+      }
+    >
+      {(rows) => (
+        <ListTable testId="sweep-table" columns={SWEEP_COLUMNS}>
+          {rows.map((s) => (
+            <tr key={s.id} className="hover:bg-paper">
+              <td className="px-4 py-2.5">
+                <Link to={`${base}/sweeps/${s.id}`} className="font-medium hover:text-moss" data-testid="sweep-link">
+                  {s.name}
+                </Link>
+              </td>
+              <td className="px-4 py-2.5">
+                <Link to={`${base}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="hover:text-moss">
+                  {s.plant.name}
+                </Link>{" "}
+                <span className="font-mono text-xs text-ink-soft">rev {s.plant.revisionNumber}</span>
+              </td>
+              <td className="px-4 py-2.5">
+                <SweepStatusBadge status={s.status} />
+              </td>
+              <td className="px-4 py-2.5">
+                <SweepGlance sweep={s} />
+              </td>
+              <td className="px-4 py-2.5 text-xs text-ink-soft">
+                {formatDateTime(s.createdAt)} · {s.createdBy.name}
+              </td>
+            </tr>
+          ))}
+        </ListTable>
       )}
-    </div>
+    </ListPage>
   );
 }
 
