@@ -108,7 +108,10 @@ async function settleSweep(tx: Database, sweepId: string, inserted: number, now:
   // Lock the sweep row before counting: two chunks of one sweep finishing at the same moment would
   // otherwise each see the other still pending, and neither would finish the sweep. Under READ
   // COMMITTED the second transaction waits here and its count then sees the first one's chunk done.
-  await tx.select({ id: sweep.id }).from(sweep).where(eq(sweep.id, sweepId)).for("update");
+  // FOR NO KEY UPDATE, not FOR UPDATE: the candidate rows just inserted hold FOR KEY SHARE on this
+  // row through their foreign key, which FOR UPDATE would conflict with (two such transactions
+  // deadlock); NO KEY UPDATE conflicts only with itself, as the UPDATE below does anyway.
+  await tx.select({ id: sweep.id }).from(sweep).where(eq(sweep.id, sweepId)).for("no key update");
   const [pending] = await tx
     .select({ n: count() })
     .from(sweepChunk)
