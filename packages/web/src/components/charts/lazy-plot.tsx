@@ -1,7 +1,18 @@
 import { Component, Suspense, lazy, type ReactNode } from "react";
 import type { PlotParams } from "react-plotly.js/factory";
 
-const PlotlyPlot = lazy(() => import("./plotly-plot.js"));
+let plotlyModule: Promise<typeof import("./plotly-plot.js")> | undefined;
+
+/**
+ * Starts loading the plotting bundle (once) without waiting for it. Pages that will draw call it on
+ * mount, so the bundle downloads and compiles while their data is still being fetched.
+ */
+export function preloadPlot(): Promise<typeof import("./plotly-plot.js")> {
+  plotlyModule ??= import("./plotly-plot.js");
+  return plotlyModule;
+}
+
+const PlotlyPlot = lazy(preloadPlot);
 
 class ChartBoundary extends Component<{ children: ReactNode }, { failed: Error | null }> {
   override state = { failed: null as Error | null };

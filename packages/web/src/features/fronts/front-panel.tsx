@@ -35,12 +35,13 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
     () => (candidates.data ? plottableCriteria(candidates.data.candidates, candidates.data.criteria) : [...sweep.criteria]),
     [candidates.data, sweep.criteria],
   );
-  const front = useFront(slug, sweep.id, x, y, candidates.isSuccess);
+  // The front and the references do not wait for the candidates: all three load side by side.
+  const front = useFront(slug, sweep.id, x, y, true);
   const points = useMemo(
     () => (candidates.data ? frontPoints(candidates.data.candidates, candidates.data.criteria, x, y) : []),
     [candidates.data, x, y],
   );
-  const references = useReferences(slug, sweep.id, candidates.isSuccess);
+  const references = useReferences(slug, sweep.id, true);
   const baselines = useMemo(() => baselinePoints(references.data?.baselines, sweep.criteria, x, y), [references.data, sweep.criteria, x, y]);
   const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points, baselines]);
   const byIndex = useMemo(() => new Map(candidates.data?.candidates.map((c) => [c.index, c]) ?? []), [candidates.data]);
@@ -115,6 +116,9 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           <Section title={`${criterionShortLabel(y)} against ${criterionShortLabel(x)}`} aside={frontSenseNote(x, y)}>
             {front.isError ? (
               <ErrorNote error={front.error} title="Could not compute the front" />
+            ) : front.isPending ? (
+              // Draw once, with the front: a large cloud drawn twice costs a second WebGL pass.
+              <Loading label="Computing the front…" />
             ) : points.length === 0 ? (
               <p className="py-16 text-center text-sm text-ink-soft" data-testid="front-no-points">
                 No stable candidate has a finite {[x, y].filter((c) => !plottable.includes(c)).map(criterionShortLabel).join(" or ") || "score"} here:

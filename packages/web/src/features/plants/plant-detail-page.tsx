@@ -1,6 +1,8 @@
+import { useEffect } from "react";
 import { Link, useParams, useSearchParams } from "react-router";
 import { usePlant } from "../../api/use-plants.js";
 import { ButtonLink } from "../../components/button.js";
+import { preloadPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS } from "../../components/charts/chart-theme.js";
 import { TimeChart } from "../../components/charts/time-chart.js";
 import { ErrorNote } from "../../components/error-note.js";
@@ -16,6 +18,8 @@ import { PolesTable } from "./poles-table.js";
 
 /** /w/:slug/plants/:plantId[?revision=N] — one revision of a plant: model, poles, open-loop step, revisions. */
 export function PlantDetailPage() {
+  // The step-response chart needs the plotting bundle: fetch it alongside the plant's data.
+  useEffect(() => void preloadPlot(), []);
   const { slug, workspace, role, canEdit } = useWorkspaceRole();
   const { plantId = "" } = useParams();
   const [params] = useSearchParams();

@@ -1,8 +1,9 @@
-import type { ReactNode } from "react";
+import { useEffect, type ReactNode } from "react";
 import { Link, useParams } from "react-router";
 import type { SweepDetailDto } from "@loopyard/core";
 import { isSweepActive, useCancelSweep, useSweep } from "../../api/use-sweeps.js";
 import { ButtonLink } from "../../components/button.js";
+import { preloadPlot } from "../../components/charts/lazy-plot.js";
 import { CautionNote } from "../../components/caution-note.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
@@ -23,6 +24,8 @@ import { aggregateName } from "../fronts/variant-scores-table.js";
 
 /** /w/:slug/sweeps/:sweepId — progress while the sweep runs; then the front. */
 export function SweepDetailPage() {
+  // The front chart needs the plotting bundle: fetch it alongside the sweep's data, not after.
+  useEffect(() => void preloadPlot(), []);
   const { slug, workspace, role, canEdit } = useWorkspaceRole();
   const { sweepId = "" } = useParams();
   const sweep = useSweep(slug, sweepId);
