@@ -126,6 +126,42 @@ describe("a 3 × 3 × 2 sweep", () => {
     expect(otherAxis.body.error.field).toBe("y");
   });
 
+  it("when the points of IAE against effort are asked, then they equal the candidate list's stable scores and swept parameters to 6 significant digits", async () => {
+    const response = await team.viewer.get(`${sweepsPath()}/${sweepId}/points?x=iae&y=effort`);
+    expect(response.status).toBe(200);
+    const points = response.body as { x: string; y: string; total: number; sampled: boolean; indices: number[]; xs: number[]; ys: number[]; params: number[][]; plottable: string[] };
+    expect(points).toMatchObject({ x: "iae", y: "effort", total: 18, sampled: false });
+    const list = await team.viewer.get(`${sweepsPath()}/${sweepId}/candidates`);
+    const stable = (list.body.candidates as { index: number; params: number[]; status: string; scores: unknown[] | null }[]).filter(
+      (c) => c.status === "stable" && typeof c.scores?.[0] === "number" && typeof c.scores?.[3] === "number",
+    );
+    expect(stable.length).toBeGreaterThan(0);
+    expect(points.indices).toEqual(stable.map((c) => c.index));
+    // Rounding tolerance (closed form): a value rounded to 6 significant digits is within half a unit of its 6th digit, |v̂ − v| ≤ 5·10⁻⁶·|v|.
+    const close = (rounded: number, exact: number) => expect(Math.abs(rounded - exact)).toBeLessThanOrEqual(5e-6 * Math.abs(exact));
+    stable.forEach((c, i) => {
+      close(points.xs[i] as number, c.scores?.[0] as number);
+      close(points.ys[i] as number, c.scores?.[3] as number);
+      // Swept kp, ki, kd are the first three of parameters (kp, ki, kd, tf).
+      [0, 1, 2].forEach((k) => close(points.params[k]?.[i] as number, c.params[k] as number));
+    });
+    expect(points.params).toHaveLength(finished.swept.length);
+    expect(points.plottable).toEqual(["iae", "ise", "itae", "effort"]);
+
+    // The front of the same axes lists its candidates in full, in the order of its indices.
+    const front = await team.viewer.get(`${sweepsPath()}/${sweepId}/front?x=iae&y=effort`);
+    expect((front.body.candidates as { index: number }[]).map((c) => c.index)).toEqual(front.body.indices);
+  });
+
+  it("when the points name a criterion the sweep did not score, then the answer is 400 naming the parameter", async () => {
+    const response = await team.viewer.get(`${sweepsPath()}/${sweepId}/points?x=overshoot&y=effort`);
+    expect(response.status).toBe(400);
+    expect(response.body.error.field).toBe("x");
+    const otherAxis = await team.viewer.get(`${sweepsPath()}/${sweepId}/points?x=iae&y=nonsense`);
+    expect(otherAxis.status).toBe(400);
+    expect(otherAxis.body.error.field).toBe("y");
+  });
+
   it("when a candidate's response is asked, then a unit setpoint step is simulated and thinned to at most 2000 points", async () => {
     const response = await team.viewer.get(`${sweepsPath()}/${sweepId}/candidates/4/response`);
     expect(response.status).toBe(200);

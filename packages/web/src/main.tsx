@@ -11,6 +11,11 @@ import { QueryClientProvider } from "@tanstack/react-query";
 import { RouterProvider } from "react-router/dom";
 import { createQueryClient } from "./api/query-client.js";
 import { router } from "./router.js";
+import { preloadPlot } from "./components/charts/lazy-plot.js";
+
+// Opened straight on a page that draws (a sweep's or a plant's): start the plotting bundle now, while
+// the app signs in and fetches its data, instead of once the page has mounted.
+if (/\/(sweeps|plants)\/[^/]+/.test(window.location.pathname)) void preloadPlot();
 
 const root = document.getElementById("root");
 if (!root) throw new Error("index.html has no #root element");

@@ -218,6 +218,32 @@ export interface FrontDto {
    * ranks.ranks[i]; candidates without finite aggregate scores are left out.
    */
   ranks?: { indices: number[]; ranks: number[] };
+  /** The candidates of `indices`, in full (per-variant scores included), in the order of `indices`. */
+  candidates?: CandidateDto[];
+}
+
+/**
+ * GET /api/workspaces/:slug/sweeps/:sweepId/points?x=iae&y=effort — the cloud of a front chart in
+ * columns: the stable candidates with finite aggregate x and y scores, by index. Over 100,000 stored
+ * candidates, the same deterministic sample as the candidate list (every ⌈total / 100,000⌉-th index)
+ * plus every candidate of the front on these axes. xs, ys and params are ROUNDED to 6 significant
+ * digits, enough to draw; exact values come from the candidate endpoints.
+ */
+export interface PointsDto {
+  x: CriterionId;
+  y: CriterionId;
+  /** Candidates stored for the sweep. */
+  total: number;
+  /** True when the candidates were sampled (more than 100,000 stored). */
+  sampled: boolean;
+  /** CandidateDto.index of each point, ascending. */
+  indices: number[];
+  xs: number[];
+  ys: number[];
+  /** One array per swept parameter (SweepDetailDto.swept order), aligned with `indices`. */
+  params: number[][];
+  /** The sweep's criteria with at least one finite aggregate score among its stable candidates. */
+  plottable: CriterionId[];
 }
 
 /** GET /api/workspaces/:slug/sweeps/:sweepId/candidates/:index/response */

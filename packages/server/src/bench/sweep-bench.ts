@@ -175,6 +175,10 @@ async function main(): Promise<void> {
     const list = await call("GET", `${path}/candidates`);
     const listMs = performance.now() - t;
     console.log(`front endpoint: ${fmt(frontMs)} ms (${front.body.indices.length} on the front); candidate list: ${fmt(listMs)} ms (${fmt(list.body.candidates.length)} candidates, sampled ${list.body.sampled})`);
+    t = performance.now();
+    const cloud = await call("GET", `${path}/points?x=iae&y=effort`);
+    const pointsMs = performance.now() - t;
+    console.log(`points endpoint: ${fmt(pointsMs)} ms (${fmt(cloud.body.indices.length)} points, ${fmt(JSON.stringify(cloud.body).length / 2 ** 20, 1)} MB of JSON, sampled ${cloud.body.sampled})`);
 
     if (!existsSync(joinPath(WEB_DIST, "index.html"))) {
       console.log(`front page: skipped the page timing (no built web app at ${WEB_DIST}; build it with npx vite build in packages/web)`);

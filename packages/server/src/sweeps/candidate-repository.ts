@@ -123,3 +123,14 @@ export async function findCandidate(db: Database, sweepId: string, index: number
     .limit(1);
   return rows[0] ? toDto(rows[0], criteria) : null;
 }
+
+/** The stored candidates with the given indices, in the order of `indices` (missing ones left out). */
+export async function findCandidates(db: Database, sweepId: string, indices: readonly number[], criteria = 0): Promise<CandidateDto[]> {
+  if (indices.length === 0) return [];
+  const rows = await db
+    .select(candidateColumns)
+    .from(candidate)
+    .where(and(eq(candidate.sweepId, sweepId), sql`${candidate.index} = any(${`{${indices.join(",")}}`}::int[])`));
+  const byIndex = new Map(rows.map((row) => [row.index, toDto(row, criteria)]));
+  return indices.map((i) => byIndex.get(i)).filter((c): c is CandidateDto => c !== undefined);
+}

@@ -19,6 +19,7 @@ import {
   type SweepJobControl,
 } from "./sweep-service.js";
 import { getCandidateFrequency, getReferences } from "./sweep-reference-service.js";
+import { getPointsJson } from "./sweep-points-service.js";
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
@@ -71,6 +72,12 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   router.get("/:sweepId/front", canRead, async (req, res) => {
     const query = parseQuery(frontQuerySchema, req);
     res.json(await getFront(db, accessOf(req), sweepIdOf(req.params.sweepId), query));
+  });
+
+  // PointsDto: the chart's cloud in columns, a few MB for 10⁵ candidates instead of the full list.
+  router.get("/:sweepId/points", canRead, async (req, res) => {
+    const { x, y } = parseQuery(frontQuerySchema, req);
+    res.type("application/json").send(await getPointsJson(db, accessOf(req), sweepIdOf(req.params.sweepId), { x, y }));
   });
 
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {

@@ -13,10 +13,11 @@ import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
-import { findCandidate } from "./candidate-repository.js";
+import { findCandidate, findCandidates } from "./candidate-repository.js";
 import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "./candidate-list-json.js";
 import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
+import { pointColumns } from "./points-repository.js";
 import { structureProblem, sweepPlan, tunableFromParams } from "./sweep-plan.js";
 import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
@@ -133,7 +134,7 @@ export async function listCandidatesJson(db: Database, access: MemberAccess, swe
     return `${head},"candidates":${json},"sampled":false,"total":${count}}`;
   }
   const stride = Math.ceil(sweep.done / CANDIDATE_LIST_LIMIT);
-  const front = await getFront(db, access, sweepId, {});
+  const front = await frontOf(db, sweep, {});
   const { json } = await candidateListJson(db, sweepId, { criteria: nc, withVariants, stride, extra: front.indices });
   return `${head},"candidates":${json},"sampled":true,"total":${sweep.done}}`;
 }
@@ -147,7 +148,7 @@ export async function getCandidate(db: Database, access: MemberAccess, sweepId: 
 }
 
 /** Checks that a front axis names one of the sweep's criteria; otherwise a 400 naming the parameter. */
-function frontAxis(parameter: "x" | "y" | "criteria", value: string | undefined, criteria: readonly CriterionId[], fallback: CriterionId): CriterionId {
+export function frontAxis(parameter: "x" | "y" | "criteria", value: string | undefined, criteria: readonly CriterionId[], fallback: CriterionId): CriterionId {
   if (value === undefined || value === "") return fallback;
   if ((criteria as readonly string[]).includes(value)) return value as CriterionId;
   const known = (CRITERION_IDS as readonly string[]).includes(value);
@@ -169,11 +170,18 @@ export async function getFront(
   query: { x?: string; y?: string; criteria?: string },
 ): Promise<FrontDto> {
   const sweep = await getSweep(db, access, sweepId);
+  const front = await frontOf(db, sweep, query);
+  return { ...front, candidates: await findCandidates(db, sweep.id, front.indices, sweep.criteria.length) };
+}
+
+/** The front of a sweep (see getFront) without its candidates. */
+export async function frontOf(db: Database, sweep: SweepDetailDto, query: { x?: string; y?: string; criteria?: string }): Promise<FrontDto> {
+  const sweepId = sweep.id;
   const { criteria } = sweep;
   const x = frontAxis("x", query.x, criteria, criteria[0] as CriterionId);
   const y = frontAxis("y", query.y, criteria, criteria[criteria.length - 1] as CriterionId);
-  const scored = await stableScoresFast(db, sweepId);
   if (query.criteria !== undefined && query.criteria !== "") {
+    const scored = await stableScoresFast(db, sweepId);
     const chosen = query.criteria.split(",").map((id) => frontAxis("criteria", id.trim(), criteria, criteria[0] as CriterionId));
     if (chosen.length < 2 || new Set(chosen).size !== chosen.length) {
       throw badRequest("criteria: list two or more different criteria of the sweep, separated by commas", "criteria");
@@ -195,13 +203,12 @@ export async function getFront(
       ranks: { indices: kept.map((i) => (scored[i] as { index: number }).index), ranks: Array.from(rank) },
     };
   }
-  const xi = criteria.indexOf(x);
-  const yi = criteria.indexOf(y);
-  // Only finite scores count; paretoFront ignores the rest (NaN, ±inf).
-  const xs = orientForMinimisation(Float64Array.from(scored, (c) => c.scores[xi] ?? Number.NaN), x);
-  const ys = orientForMinimisation(Float64Array.from(scored, (c) => c.scores[yi] ?? Number.NaN), y);
+  // Only finite scores count: read just the stable candidates finite on both axes, and only those two scores.
+  const columns = await pointColumns(db, sweepId, { xAt: criteria.indexOf(x), yAt: criteria.indexOf(y), paramAt: [] });
+  const xs = orientForMinimisation(Float64Array.from(columns.xs), x);
+  const ys = orientForMinimisation(Float64Array.from(columns.ys), y);
   const positions = paretoFront(xs, ys);
-  return { x, y, indices: positions.map((p) => (scored[p] as { index: number }).index) };
+  return { x, y, indices: positions.map((p) => columns.indices[p] as number) };
 }
 
 /**

@@ -9,7 +9,9 @@ export const queryKeys = {
     ["workspace", slug, "plants", plantId, revision ?? "latest"] as const,
   sweeps: (slug: string) => ["workspace", slug, "sweeps"] as const,
   sweep: (slug: string, sweepId: string) => ["workspace", slug, "sweeps", sweepId] as const,
-  candidates: (slug: string, sweepId: string) => ["workspace", slug, "sweeps", sweepId, "candidates"] as const,
+  candidate: (slug: string, sweepId: string, index: number) => ["workspace", slug, "sweeps", sweepId, "candidate", index] as const,
+  points: (slug: string, sweepId: string, x: CriterionId, y: CriterionId) =>
+    ["workspace", slug, "sweeps", sweepId, "points", x, y] as const,
   front: (slug: string, sweepId: string, x: CriterionId, y: CriterionId) =>
     ["workspace", slug, "sweeps", sweepId, "front", x, y] as const,
   response: (slug: string, sweepId: string, index: number) =>

@@ -1,22 +1,34 @@
 import { useQuery } from "@tanstack/react-query";
-import type { CandidateListDto, CriterionId, FrontDto, ResponseDto } from "@loopyard/core";
+import type { CandidateDto, CriterionId, FrontDto, PointsDto, ResponseDto } from "@loopyard/core";
 import { apiFetch } from "./client.js";
 import { queryKeys } from "./query-keys.js";
 
 const sweepPath = (slug: string, sweepId: string) =>
   `/workspaces/${encodeURIComponent(slug)}/sweeps/${encodeURIComponent(sweepId)}`;
 
-/** GET …/sweeps/:sweepId/candidates — every candidate's parameters and scores; only once the sweep finished. */
-export function useCandidates(slug: string, sweepId: string, enabled: boolean) {
+/** GET …/sweeps/:sweepId/points?x=&y= — the chart's cloud in columns (rounded for drawing); only once the sweep finished. */
+export function usePoints(slug: string, sweepId: string, x: CriterionId, y: CriterionId, enabled: boolean) {
   return useQuery({
-    queryKey: queryKeys.candidates(slug, sweepId),
-    queryFn: () => apiFetch<CandidateListDto>(`${sweepPath(slug, sweepId)}/candidates`),
+    queryKey: queryKeys.points(slug, sweepId, x, y),
+    queryFn: () => apiFetch<PointsDto>(`${sweepPath(slug, sweepId)}/points?x=${x}&y=${y}`),
     enabled,
+    staleTime: Infinity,
+    // Keep the cloud on screen while other axes load.
+    placeholderData: (previous) => previous,
+  });
+}
+
+/** GET …/sweeps/:sweepId/candidates/:index — one candidate in full, with its per-variant scores. */
+export function useCandidate(slug: string, sweepId: string, index: number | null, enabled = true) {
+  return useQuery({
+    queryKey: queryKeys.candidate(slug, sweepId, index ?? -1),
+    queryFn: () => apiFetch<CandidateDto>(`${sweepPath(slug, sweepId)}/candidates/${index}`),
+    enabled: enabled && index !== null,
     staleTime: Infinity,
   });
 }
 
-/** GET …/sweeps/:sweepId/front?x=&y= — indices of the non-dominated candidates for two criteria. */
+/** GET …/sweeps/:sweepId/front?x=&y= — the non-dominated candidates for two criteria (indices and the candidates in full). */
 export function useFront(slug: string, sweepId: string, x: CriterionId, y: CriterionId, enabled: boolean) {
   return useQuery({
     queryKey: queryKeys.front(slug, sweepId, x, y),

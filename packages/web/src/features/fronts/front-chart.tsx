@@ -22,6 +22,7 @@ export function FrontChart({
   bound = null,
   baselines = [],
   describe,
+  cloudParams,
 }: {
   points: readonly FrontPoint[];
   /** Candidate indices on the front, sorted by x ascending. */
@@ -37,6 +38,11 @@ export function FrontChart({
   baselines?: readonly BaselinePoint[];
   /** The parameters of a candidate for its hover text, e.g. "kp = 1.2, ki = 0.3". */
   describe?: (index: number) => string;
+  /**
+   * The swept parameters of the cloud, one column per name aligned with `points`: then the cloud's
+   * hover text is formatted by plotly on hover (customdata) instead of one string per point up front.
+   */
+  cloudParams?: { names: readonly string[]; columns: readonly (readonly number[])[] };
 }) {
   const byIndex = new Map(points.map((p) => [p.index, p]));
   const frontPoints = front.map((i) => byIndex.get(i)).filter((p): p is FrontPoint => p !== undefined);
@@ -51,8 +57,12 @@ export function FrontChart({
       name: "stable candidates",
       x: points.map((p) => p.x),
       y: points.map((p) => p.y),
-      customdata: points.map((p) => p.index),
-      text: text(points),
+      ...(cloudParams
+        ? {
+            customdata: points.map((p, i) => [p.index, ...cloudParams.columns.map((column) => column[i])]),
+            hovertemplate: `candidate #%{customdata[0]}<br>${cloudParams.names.map((name, k) => `${name} = %{customdata[${k + 1}]:.4g}`).join(", ")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
+          }
+        : { customdata: points.map((p) => p.index), text: text(points), hovertemplate: hover }),
       // Dense clouds get smaller, fainter dots so that the front stays readable above them.
       marker: {
         color: CHART_COLORS.cloud,
@@ -60,7 +70,6 @@ export function FrontChart({
         opacity: webgl ? 0.35 : points.length > 1000 ? 0.4 : 0.55,
         line: { width: 0 },
       },
-      hovertemplate: hover,
     },
     {
       // WebGL draws above every SVG trace, so over a WebGL cloud the front is WebGL too (later traces on top).
@@ -140,7 +149,9 @@ export function FrontChart({
         })}
         config={CHART_CONFIG}
         onClick={(event: { points?: { customdata?: unknown }[] }) => {
-          const index = event.points?.[0]?.customdata;
+          const data = event.points?.[0]?.customdata;
+          // The cloud's customdata is [index, ...params] with cloudParams, the index alone otherwise.
+          const index = Array.isArray(data) ? data[0] : data;
           if (typeof index === "number") onSelect(index);
         }}
       />

@@ -1,6 +1,6 @@
 import { useMemo, useState } from "react";
 import type { CriterionId, SweepDetailDto } from "@loopyard/core";
-import { useCandidateResponse, useCandidates, useFront } from "../../api/use-fronts.js";
+import { useCandidate, useCandidateResponse, useFront, usePoints } from "../../api/use-fronts.js";
 import { useCandidateFrequency, useReferences } from "../../api/use-references.js";
 import { EmptyState } from "../../components/empty-state.js";
 import { ErrorNote } from "../../components/error-note.js";
@@ -10,7 +10,7 @@ import { Loading } from "../../components/loading.js";
 import { Section } from "../../components/section.js";
 import { criterionAxisTitle, criterionDescription, criterionShortLabel, frontSenseNote } from "./criterion-label.js";
 import { FrontChart } from "./front-chart.js";
-import { defaultAxes, frontPoints, plottableCriteria } from "./front-points.js";
+import { columnPoints, defaultAxes, pointDescriber } from "./front-points.js";
 import { FrontTable } from "./front-table.js";
 import { ReferenceLegend } from "./reference-legend.js";
 import { baselinePoints, boundTrace } from "./reference-points.js";
@@ -26,36 +26,29 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const [logAxes, setLogAxes] = useState(false);
   const [selected, setSelected] = useState<number | null>(null);
 
-  const candidates = useCandidates(slug, sweep.id, true);
-  // Until the user picks, plot two criteria that have finite scores in this sweep.
-  const auto = useMemo(() => defaultAxes(sweep.criteria, candidates.data?.candidates), [sweep.criteria, candidates.data]);
+  const family = sweep.family ?? [];
+  // Until the user picks, plot two criteria that have finite scores in this sweep (PointsDto.plottable;
+  // before the first points arrive, ISE against effort or the first two).
+  const [plottableSeen, setPlottableSeen] = useState<CriterionId[] | null>(null);
+  const auto = useMemo(() => defaultAxes(sweep.criteria, plottableSeen ?? undefined), [sweep.criteria, plottableSeen]);
   const x = chosenX ?? auto.x;
   const y = chosenY ?? auto.y;
-  const plottable = useMemo(
-    () => (candidates.data ? plottableCriteria(candidates.data.candidates, candidates.data.criteria) : [...sweep.criteria]),
-    [candidates.data, sweep.criteria],
-  );
-  // The front and the references do not wait for the candidates: all three load side by side.
+  // The cloud (compact columns), the front (with its candidates) and the references load side by side.
+  const cloud = usePoints(slug, sweep.id, x, y, true);
   const front = useFront(slug, sweep.id, x, y, true);
-  const points = useMemo(
-    () => (candidates.data ? frontPoints(candidates.data.candidates, candidates.data.criteria, x, y) : []),
-    [candidates.data, x, y],
-  );
+  const plottable = cloud.data?.plottable ?? plottableSeen ?? [...sweep.criteria];
+  if (cloud.data && !cloud.isPlaceholderData && plottableSeen === null) setPlottableSeen(cloud.data.plottable);
+  const points = useMemo(() => (cloud.data ? columnPoints(cloud.data) : []), [cloud.data]);
   const references = useReferences(slug, sweep.id, true);
   const baselines = useMemo(() => baselinePoints(references.data?.baselines, sweep.criteria, x, y), [references.data, sweep.criteria, x, y]);
   const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points, baselines]);
-  const byIndex = useMemo(() => new Map(candidates.data?.candidates.map((c) => [c.index, c]) ?? []), [candidates.data]);
-  const frontRows = (front.data?.indices ?? []).map((i) => byIndex.get(i)).filter((c) => c !== undefined);
-  // Hover text: the swept parameters of a candidate (fixed ones are the same for all).
-  const describe = useMemo(() => {
-    const positions = sweep.swept.map((name) => [name, sweep.parameters.indexOf(name)] as const);
-    return (index: number) => {
-      const c = byIndex.get(index);
-      return c ? positions.map(([name, i]) => `${name} = ${formatNumber(c.params[i])}`).join(", ") : "";
-    };
-  }, [byIndex, sweep.swept, sweep.parameters]);
-  const family = sweep.family ?? [];
-  const chosenCandidate = selected === null ? undefined : byIndex.get(selected);
+  const frontRows = front.data?.candidates ?? [];
+  // Hover text: the swept parameters of a candidate (fixed ones are the same for all); the cloud's by plotly on hover.
+  const describe = useMemo(() => (cloud.data ? pointDescriber(cloud.data, sweep.swept, formatNumber) : undefined), [cloud.data, sweep.swept]);
+  const cloudParams = useMemo(() => (cloud.data ? { names: sweep.swept, columns: cloud.data.params } : undefined), [cloud.data, sweep.swept]);
+  // The clicked candidate in full (per-variant scores), only for a family of variants.
+  const chosen = useCandidate(slug, sweep.id, selected, family.length > 1);
+  const chosenCandidate = selected !== null && chosen.data?.index === selected ? chosen.data : undefined;
 
   const select = (label: string, value: CriterionId, onChange: (c: CriterionId) => void, testId: string) => (
     <label className="flex items-center gap-2 whitespace-nowrap text-sm">
@@ -71,11 +64,12 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
     </label>
   );
 
-  if (candidates.isPending) return <Loading label="Loading candidates…" />;
-  if (candidates.isError) return <ErrorNote error={candidates.error} title="Could not load the candidates" />;
+  if (cloud.isPending) return <Loading label="Loading candidates…" />;
+  if (cloud.isError) return <ErrorNote error={cloud.error} title="Could not load the candidates" />;
 
-  const stableCount = candidates.data.candidates.filter((c) => c.status === "stable").length;
-  const divergedCount = sweep.divergedCount ?? candidates.data.candidates.filter((c) => c.status === "diverged").length;
+  const { sampled, total } = cloud.data;
+  const divergedCount = sweep.divergedCount ?? 0;
+  const stableCount = Math.max(0, total - sweep.unstableCount - divergedCount);
   if (stableCount === 0) {
     return (
       <EmptyState title="No stable candidate in this grid" testId="front-empty">
@@ -95,18 +89,18 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           log axes
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
-          {formatCount(stableCount)} stable of {candidates.data.sampled ? `${formatCount(candidates.data.candidates.length)} shown` : formatCount(candidates.data.candidates.length)}
-          {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable${candidates.data.sampled ? " in the whole sweep" : ""}` : ""}
+          {formatCount(stableCount)} stable of {formatCount(total)}
+          {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable` : ""}
           {divergedCount > 0 ? ` · ${formatCount(divergedCount)} diverged` : ""}
           {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
-          {points.length < stableCount ? ` · ${stableCount - points.length} without a finite score on these axes` : ""}
+          {!sampled && !cloud.isPlaceholderData && points.length < stableCount ? ` · ${stableCount - points.length} without a finite score on these axes` : ""}
           {front.data ? ` · ${formatCount(front.data.indices.length)} on the front` : ""}
         </span>
       </div>
 
-      {candidates.data.sampled ? (
+      {sampled ? (
         <p className="-mt-3 text-xs text-ink-soft" data-testid="sample-note">
-          Showing a sample of {formatCount(candidates.data.candidates.length)} of {formatCount(candidates.data.total ?? sweep.total)} candidates, so
+          Showing a sample of {formatCount(points.length)} stable candidates of {formatCount(total)}, so
           the page stays quick; the front is exact, computed on the server over all of them.
         </p>
       ) : null}
@@ -116,7 +110,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           <Section title={`${criterionShortLabel(y)} against ${criterionShortLabel(x)}`} aside={frontSenseNote(x, y)}>
             {front.isError ? (
               <ErrorNote error={front.error} title="Could not compute the front" />
-            ) : front.isPending ? (
+            ) : front.isPending || cloud.isPlaceholderData ? (
               // Draw once, with the front: a large cloud drawn twice costs a second WebGL pass.
               <Loading label="Computing the front…" />
             ) : points.length === 0 ? (
@@ -134,6 +128,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                 logAxes={logAxes}
                 onSelect={setSelected}
                 describe={describe}
+                cloudParams={cloudParams}
                 bound={bound}
                 baselines={baselines}
               />

@@ -1,28 +1,26 @@
 import { describe, expect, it } from "vitest";
-import type { CandidateDto } from "@loopyard/core";
-import { defaultAxes, frontPoints, plottableCriteria } from "../../../src/features/fronts/front-points.js";
+import { columnPoints, defaultAxes, pointDescriber } from "../../../src/features/fronts/front-points.js";
 
-// A load-step sweep as the API sends it: settling time does not apply (null), an infinite IAE is "inf" (shapes of ScoreValue in core api/dto.ts).
-const candidates: CandidateDto[] = [
-  { index: 0, params: [1], status: "stable", scores: [2, null, 0.5] },
-  { index: 1, params: [2], status: "stable", scores: ["inf", null, 0.4] },
-  { index: 2, params: [3], status: "unstable", scores: null },
-  { index: 3, params: [4], status: "diverged", scores: null },
-];
-const criteria = ["iae", "settlingTime", "effort"] as const;
+// A PointsDto's columns as the server sends them (shape in core api/dto.ts): aligned by position.
+const columns = { indices: [0, 4, 9], xs: [2, 1.5, 3], ys: [0.5, 0.7, 0.1], params: [[1, 2, 3], [0.1, 0.2, 0.3]] };
 
 describe("front points", () => {
-  it("frontPoints keeps stable candidates with finite scores on both axes only", () => {
-    expect(frontPoints(candidates, criteria, "iae", "effort")).toEqual([{ index: 0, x: 2, y: 0.5 }]);
-    expect(frontPoints(candidates, criteria, "iae", "settlingTime")).toEqual([]);
+  it("columnPoints pairs the columns position by position", () => {
+    expect(columnPoints(columns)).toEqual([
+      { index: 0, x: 2, y: 0.5 },
+      { index: 4, x: 1.5, y: 0.7 },
+      { index: 9, x: 3, y: 0.1 },
+    ]);
   });
 
-  it("plottableCriteria leaves out a criterion no candidate has a finite score for", () => {
-    expect(plottableCriteria(candidates, criteria)).toEqual(["iae", "effort"]);
+  it("pointDescriber names the swept parameters of a candidate by its index, and nothing for an unknown one", () => {
+    const describe = pointDescriber(columns, ["kp", "ki"], String);
+    expect(describe(4)).toBe("kp = 2, ki = 0.2");
+    expect(describe(5)).toBe("");
   });
 
-  it("defaultAxes passes over a criterion that does not apply, and keeps ISE against effort when both are scored", () => {
-    expect(defaultAxes(criteria, candidates)).toEqual({ x: "iae", y: "effort" });
+  it("defaultAxes passes over a criterion that cannot be plotted, and keeps ISE against effort when both are scored", () => {
+    expect(defaultAxes(["iae", "settlingTime", "effort"], ["iae", "effort"])).toEqual({ x: "iae", y: "effort" });
     expect(defaultAxes(["iae", "ise", "itae", "effort"])).toEqual({ x: "ise", y: "effort" });
   });
 });
