@@ -1,4 +1,4 @@
-import type { SweepSummaryDto } from "@loopyard/core";
+import type { SweepProgressDto, SweepSummaryDto } from "@loopyard/core";
 
 /**
  * Progress of a sweep as the page shows it: candidates done of total, the rate of the last
@@ -19,19 +19,7 @@ export interface SweepProgressView {
 }
 
 /** The progress fields of a sweep summary as the server sends them (SweepSummaryDto.progress, optional for older servers). */
-type ProgressSource = Pick<SweepSummaryDto, "done" | "total"> & {
-  progress?: {
-    done: number;
-    total: number;
-    ratePerSecond: number | null;
-    etaSeconds: number | null;
-    workersActive: number;
-    chunksTotal: number;
-    chunksDone: number;
-    chunksFailed: number;
-    failures: { chunk: number; error: string }[];
-  } | null;
-};
+type ProgressSource = Pick<SweepSummaryDto, "done" | "total"> & { progress?: SweepProgressDto | null };
 
 /** The progress of a sweep summary or detail, falling back to done/total when the server sends no progress block. */
 export function sweepProgress(sweep: ProgressSource): SweepProgressView {
