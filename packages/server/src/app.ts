@@ -6,6 +6,7 @@ import { requireSession } from "./auth/session-middleware.js";
 import { createDatabase, type RootDatabase } from "./db/database.js";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware.js";
 import { apiHeaders, securityHeaders } from "./http/security-headers.js";
+import { BackgroundTasks } from "./http/background-tasks.js";
 import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
@@ -42,6 +43,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   const { db } = database;
   const auth = createAuth(db, config);
   const runner = new SweepRunner(db);
+  const background = new BackgroundTasks();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
@@ -66,7 +68,10 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth));
   app.use("/api/me", meRoutes(db));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db));
-  app.use("/api/workspaces/:slug/sweeps", sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS));
+  app.use(
+    "/api/workspaces/:slug/sweeps",
+    sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background),
+  );
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -88,6 +93,7 @@ export function createApp(config: AppConfig): LoopyardApp {
       closing ??= (async () => {
         await jobs.close();
         await runner.close();
+        await background.settle();
         await database.close();
       })();
       return closing;

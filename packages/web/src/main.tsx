@@ -12,17 +12,23 @@ import { RouterProvider } from "react-router/dom";
 import { createQueryClient } from "./api/query-client.js";
 import { router } from "./router.js";
 import { preloadPlot } from "./components/charts/lazy-plot.js";
+import { prefetchSweepPage, sweepPagePath } from "./api/sweep-page-prefetch.js";
+
+const queryClient = createQueryClient();
 
 // Opened straight on a page that draws (a sweep's or a plant's): start the plotting bundle now, while
-// the app signs in and fetches its data, instead of once the page has mounted.
+// the app signs in and fetches its data, instead of once the page has mounted. A sweep's page also
+// starts fetching its data now (see prefetchSweepPage).
 if (/\/(sweeps|plants)\/[^/]+/.test(window.location.pathname)) void preloadPlot();
+const sweepPage = sweepPagePath(window.location.pathname);
+if (sweepPage) prefetchSweepPage(queryClient, sweepPage.slug, sweepPage.sweepId);
 
 const root = document.getElementById("root");
 if (!root) throw new Error("index.html has no #root element");
 
 createRoot(root).render(
   <StrictMode>
-    <QueryClientProvider client={createQueryClient()}>
+    <QueryClientProvider client={queryClient}>
       <RouterProvider router={router} />
     </QueryClientProvider>
   </StrictMode>,

@@ -84,7 +84,11 @@ export async function timeFrontPage(options: {
     await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
 
     // First visit (plotly's chunk not yet in the cache, as for someone opening a sweep after signing in), then a reload.
+    // LOOPYARD_BENCH_TRACE=file.json records a chromium performance trace of the first visit (open it in the browser's devtools).
+    const tracePath = process.env.LOOPYARD_BENCH_TRACE;
+    if (tracePath) await browser.startTracing(page, { path: tracePath, screenshots: false });
     const cold = await measure(page, `${options.base}${options.sweepPath}`);
+    if (tracePath) await browser.stopTracing();
     const warm = await measure(page, `${options.base}${options.sweepPath}`);
     if (pageErrors.length > 0) throw new Error(`the sweep page raised: ${pageErrors.join("; ")}`);
     await context.close();

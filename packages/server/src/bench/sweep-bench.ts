@@ -44,6 +44,8 @@ const PAGE_TARGET_MS = 2000;
 const WEB_DIST = process.env.LOOPYARD_WEB_DIST ? resolvePath(process.env.LOOPYARD_WEB_DIST) : joinPath(REPO_ROOT, "packages", "web", "dist");
 const BENCH_EMAIL = "bench@halvard.example";
 const BENCH_PASSWORD = "ember-bench-2026";
+/** LOOPYARD_BENCH_KEEP=1 keeps the scratch database (to profile the page on it afterwards); drop it by hand. */
+const KEEP_DATABASE = process.env.LOOPYARD_BENCH_KEEP === "1";
 
 const fmt = (n: number, digits = 0) => n.toLocaleString("en-US", { maximumFractionDigits: digits, minimumFractionDigits: digits });
 
@@ -211,7 +213,8 @@ async function main(): Promise<void> {
     http.close();
     const open = await maintenance.query("select application_name, state from pg_stat_activity where datname = $1", [scratch]);
     if (open.rows.length > 0) console.log(`(${open.rows.length} connections still open at the end: ${JSON.stringify(open.rows)})`);
-    await maintenance.query(`drop database if exists "${scratch}" with (force)`);
+    if (KEEP_DATABASE) console.log(`kept the scratch database ${scratch} (LOOPYARD_BENCH_KEEP=1); sign in as ${BENCH_EMAIL} / ${BENCH_PASSWORD}`);
+    else await maintenance.query(`drop database if exists "${scratch}" with (force)`);
     await maintenance.end();
   }
 }

@@ -197,6 +197,12 @@ export const sweep = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
     finishedAt: timestamp("finished_at", { withTimezone: true }),
+    /**
+     * The ReferencesDto drawn beside the front (bound curve and scored tuning-rule baselines): it
+     * follows from the definition alone, so it is computed once, after the sweep is created or on
+     * the first request, and read from here afterwards. Null until then.
+     */
+    storedReferences: jsonb("stored_references"),
   },
   (table) => [
     index("sweep_workspace_created_idx").on(table.workspaceId, table.createdAt),

@@ -2,14 +2,11 @@ import { assertValidStructure, controllerFromVector, linearPlantModel, sweepCand
 import type { Controller, EvaluationOptions, Plant, Scenario, Structure, SweepInputParsed } from "@loopyard/core";
 
 /**
- * What a sweep evaluates, derived once from its definition with core's shared helpers: the
- * structure, the grid of tunable values (n × d, row-major), the names of the stored parameters,
- * the scenario and the evaluation options.
+ * How a sweep evaluates a candidate, derived from its definition with core's shared helpers: the
+ * structure, the names of the stored parameters, the scenario and the evaluation options.
  */
-export interface SweepPlan {
+export interface SweepSetup {
   structure: Structure;
-  /** Tunable values, candidate i at i·d … i·d + d − 1 (sweepCandidates). */
-  candidates: Float64Array;
   /** Number of tunable parameters per candidate. */
   d: number;
   /** Names of CandidateDto.params (sweepParameterNames). */
@@ -18,21 +15,31 @@ export interface SweepPlan {
   evaluation: EvaluationOptions;
 }
 
-export function sweepPlan(definition: SweepInputParsed): SweepPlan {
+/** What a sweep evaluates: its setup and the grid of tunable values (n × d, row-major). */
+export interface SweepPlan extends SweepSetup {
+  /** Tunable values, candidate i at i·d … i·d + d − 1 (sweepCandidates). */
+  candidates: Float64Array;
+}
+
+/** The setup alone, for readers of stored results (no candidate list is generated: 10⁶ × d values for a large design). */
+export function sweepSetup(definition: SweepInputParsed): SweepSetup {
   const structure = sweepStructure(definition);
-  // Search designs choose their candidates as they run (sweep-search-job.ts): no fixed list.
-  const values = definition.design?.kind === "search" ? new Float64Array(0) : sweepCandidates(definition).values;
   const evaluation: EvaluationOptions = { poles: false };
   // Without options the loop keeps core's fast scoring path.
   if (definition.criterionOptions !== undefined) evaluation.criterion = definition.criterionOptions;
   return {
     structure,
-    candidates: values,
     d: structure.tunable.length,
     parameters: sweepParameterNames(definition),
     scenario: definition.scenario as Scenario,
     evaluation,
   };
+}
+
+export function sweepPlan(definition: SweepInputParsed): SweepPlan {
+  // Search designs choose their candidates as they run (sweep-search-job.ts): no fixed list.
+  const values = definition.design?.kind === "search" ? new Float64Array(0) : sweepCandidates(definition).values;
+  return { ...sweepSetup(definition), candidates: values };
 }
 
 /** Number of states a state-feedback controller sees on this plant (its gains k[0] … k[n−1]). */
@@ -76,6 +83,6 @@ export function candidateParams(plan: SweepPlan, controller: Controller): number
  * The tunable vector of a stored candidate, read by name from its stored params (in the order of
  * `parameters`), so that a stored candidate rebuilds exactly its controller.
  */
-export function tunableFromParams(plan: SweepPlan, parameters: readonly string[], params: readonly number[]): Float64Array {
+export function tunableFromParams(plan: SweepSetup, parameters: readonly string[], params: readonly number[]): Float64Array {
   return Float64Array.from(plan.structure.tunable, (name) => params[parameters.indexOf(name)] ?? Number.NaN);
 }

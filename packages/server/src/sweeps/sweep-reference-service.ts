@@ -15,7 +15,8 @@ import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate } from "./candidate-repository.js";
 import { toScoreValue } from "./score-value.js";
-import { sweepPlan, tunableFromParams } from "./sweep-plan.js";
+import { findStoredReferences, findSweepDetail, storeReferences } from "./sweep-repository.js";
+import { sweepSetup, tunableFromParams, type SweepSetup } from "./sweep-plan.js";
 import { getSweep } from "./sweep-service.js";
 
 /** Most frequencies sent per curve: the adaptive grid thinned to about this many log-spaced points. */
@@ -26,8 +27,8 @@ export const MAX_FREQUENCY_POINTS = 600;
  */
 export const PLOT_TAIL_GAIN = 1e-4;
 
-async function sweepPlant(db: Database, access: MemberAccess, sweep: SweepDetailDto): Promise<Plant> {
-  const revision = await findRevisionInWorkspace(db, access.workspace.id, sweep.plant.revisionId);
+async function sweepPlant(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<Plant> {
+  const revision = await findRevisionInWorkspace(db, workspaceId, sweep.plant.revisionId);
   if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
   return revision.model;
 }
@@ -39,19 +40,54 @@ function refusal(error: unknown): string {
 }
 
 /**
- * The references drawn beside a sweep's front: the bound curve on the (ISE, effort) plane from core
- * boundCurve (linear plants; infinite horizon, the sweep's scenario) and every published tuning rule
- * of core scoreBaselines, scored with the sweep's scenario, criteria and criterion options.
- * Computed per request (a few milliseconds).
+ * Version of the stored references: raise it when what computeReferences returns changes (a new
+ * rule, another bound grid), so that references stored by an earlier version are computed again.
+ */
+export const REFERENCES_VERSION = 1;
+
+interface StoredReferences {
+  version: number;
+  references: ReferencesDto;
+}
+
+/**
+ * The references drawn beside a sweep's front (see computeReferences). They follow from the sweep's
+ * definition alone, so they are computed once (usually just after the sweep was created, by
+ * prepareReferences) and stored with the sweep; a request reads them from there.
  */
 export async function getReferences(db: Database, access: MemberAccess, sweepId: string): Promise<ReferencesDto> {
   const sweep = await getSweep(db, access, sweepId);
-  const plant = await sweepPlant(db, access, sweep);
-  const plan = sweepPlan(sweep.definition);
-  return { bound: boundOf(plant, plan.scenario), ...baselinesOf(plant, plan, sweep.criteria) };
+  const stored = (await findStoredReferences(db, sweep.id)) as StoredReferences | null;
+  if (stored?.version === REFERENCES_VERSION) return stored.references;
+  const references = await computeReferences(db, access.workspace.id, sweep);
+  await storeReferences(db, sweep.id, { version: REFERENCES_VERSION, references } satisfies StoredReferences);
+  return references;
 }
 
-function boundOf(plant: Plant, scenario: ReturnType<typeof sweepPlan>["scenario"]): ReferencesDto["bound"] {
+/**
+ * Computes and stores a new sweep's references (a few hundred milliseconds of Riccati solves and
+ * baseline simulations), so that its page finds them ready. Called without waiting for it after the
+ * sweep was created; if it fails, the first request computes them and says why.
+ */
+export async function prepareReferences(db: Database, workspaceId: string, sweepId: string): Promise<void> {
+  const sweep = await findSweepDetail(db, workspaceId, sweepId);
+  if (!sweep) return;
+  const references = await computeReferences(db, workspaceId, sweep);
+  await storeReferences(db, sweepId, { version: REFERENCES_VERSION, references } satisfies StoredReferences);
+}
+
+/**
+ * The bound curve on the (ISE, effort) plane from core boundCurve (linear plants; infinite horizon,
+ * the sweep's scenario) and every published tuning rule of core scoreBaselines, scored with the
+ * sweep's scenario, criteria and criterion options.
+ */
+async function computeReferences(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<ReferencesDto> {
+  const plant = await sweepPlant(db, workspaceId, sweep);
+  const setup = sweepSetup(sweep.definition);
+  return { bound: boundOf(plant, setup.scenario), ...baselinesOf(plant, setup, sweep.criteria) };
+}
+
+function boundOf(plant: Plant, scenario: SweepSetup["scenario"]): ReferencesDto["bound"] {
   if (plant.kind === "nonlinear") {
     return { ok: false, reason: "The bound needs a linear plant; this plant is nonlinear.", points: [] };
   }
@@ -64,7 +100,7 @@ function boundOf(plant: Plant, scenario: ReturnType<typeof sweepPlan>["scenario"
   }
 }
 
-function baselinesOf(plant: Plant, plan: ReturnType<typeof sweepPlan>, criteria: SweepDetailDto["criteria"]): Pick<ReferencesDto, "baselines" | "skipped"> {
+function baselinesOf(plant: Plant, plan: SweepSetup, criteria: SweepDetailDto["criteria"]): Pick<ReferencesDto, "baselines" | "skipped"> {
   let scored: ReturnType<typeof scoreBaselines>;
   try {
     scored = scoreBaselines(plant, plan.scenario, criteria, { evaluation: plan.evaluation });
@@ -102,13 +138,13 @@ function baselinesOf(plant: Plant, plan: ReturnType<typeof sweepPlan>, criteria:
  */
 export async function getCandidateFrequency(db: Database, access: MemberAccess, sweepId: string, index: number): Promise<FrequencyDto> {
   const sweep = await getSweep(db, access, sweepId);
-  const plant = await sweepPlant(db, access, sweep);
+  const plant = await sweepPlant(db, access.workspace.id, sweep);
   if (plant.kind === "nonlinear") {
     throw badRequest("The frequency response needs a linear plant; this sweep's plant is nonlinear, so only its time response can be shown.");
   }
   const stored = await findCandidate(db, sweepId, index);
   if (!stored) throw notFound(`This sweep has no evaluated candidate ${index}.`);
-  const plan = sweepPlan(sweep.definition);
+  const plan = sweepSetup(sweep.definition);
   const controller = controllerFromVector(plan.structure, tunableFromParams(plan, sweep.parameters, stored.params));
   const weight = sweepWeight(sweep);
   let response: FrequencyResponse;

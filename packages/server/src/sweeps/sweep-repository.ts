@@ -174,6 +174,17 @@ export async function insertSweep(
   return row.id;
 }
 
+/** The stored references of a sweep (sweep.stored_references, as written by storeReferences), or null. */
+export async function findStoredReferences(db: Database, sweepId: string): Promise<unknown> {
+  const [row] = await db.select({ stored: sweep.storedReferences }).from(sweep).where(eq(sweep.id, sweepId));
+  return row?.stored ?? null;
+}
+
+/** Stores the references of a sweep (any earlier value is replaced: they follow from the definition alone). */
+export async function storeReferences(db: Database, sweepId: string, stored: unknown): Promise<void> {
+  await db.update(sweep).set({ storedReferences: stored }).where(eq(sweep.id, sweepId));
+}
+
 /** What the runner needs to evaluate a sweep. */
 export interface SweepRunRecord {
   id: string;

@@ -18,7 +18,8 @@ import {
   type SweepLimits,
   type SweepJobControl,
 } from "./sweep-service.js";
-import { getCandidateFrequency, getReferences } from "./sweep-reference-service.js";
+import { getCandidateFrequency, getReferences, prepareReferences } from "./sweep-reference-service.js";
+import type { BackgroundTasks } from "../http/background-tasks.js";
 import { getPointsJson } from "./sweep-points-service.js";
 
 const frontQuerySchema = z.object({
@@ -37,7 +38,7 @@ function candidateIndex(param: string | string[] | undefined): number {
 }
 
 /** /api/workspaces/:slug/sweeps */
-export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits): Router {
+export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits, background: BackgroundTasks): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading sweeps");
   const sweepIdOf = (value: unknown) => parseIdParam(value, SWEEP_NOT_FOUND);
@@ -48,7 +49,11 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
 
   router.post("/", memberOf(db, "engineer", "Starting sweeps"), async (req, res) => {
     const input = parseBody(sweepInputSchema, req);
-    res.status(201).json(await createSweep(db, jobs.start, accessOf(req), input, limits));
+    const access = accessOf(req);
+    const created = await createSweep(db, jobs.start, access, input, limits);
+    res.status(201).json(created);
+    // The bound and the baselines follow from the definition: ready by the time the sweep has results.
+    background.run(`computing the references of sweep ${created.id}`, () => prepareReferences(db, access.workspace.id, created.id));
   });
 
   router.post("/:sweepId/cancel", memberOf(db, "engineer", "Cancelling sweeps"), async (req, res) => {

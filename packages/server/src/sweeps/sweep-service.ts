@@ -18,7 +18,7 @@ import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "
 import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
 import { pointColumns } from "./points-repository.js";
-import { structureProblem, sweepPlan, tunableFromParams } from "./sweep-plan.js";
+import { structureProblem, sweepSetup, tunableFromParams } from "./sweep-plan.js";
 import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
 export const SWEEP_NOT_FOUND = "There is no such sweep in this workspace.";
@@ -71,7 +71,7 @@ export async function createSweep(
       `This sweep has ${total} candidates, more than the ${limits.maxCandidates} one sweep may hold in this workspace; lower the counts (or the design's count), or ask an admin to raise LOOPYARD_MAX_CANDIDATES.`,
     );
   }
-  const structure = sweepPlan(input).structure;
+  const structure = sweepSetup(input).structure;
   const variants = definitionVariants(input);
   for (const [i, variant] of variants.entries()) {
     const field = input.family ? `family.variants.${i}.plantRevisionId` : "plantRevisionId";
@@ -233,7 +233,7 @@ export async function getCandidateResponse(
   }
   const revision = await findRevisionInWorkspace(db, access.workspace.id, sweep.plant.revisionId);
   if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
-  const plan = sweepPlan(sweep.definition);
+  const plan = sweepSetup(sweep.definition);
   const controller = controllerFromVector(plan.structure, tunableFromParams(plan, sweep.parameters, stored.params));
   const trace = simulateOrExplain(() => simulateLoop(revision.model, controller, plan.scenario));
   const indices = downsampleIndices(trace.t.length);

@@ -1,4 +1,4 @@
-import { useQuery } from "@tanstack/react-query";
+import { queryOptions, useQuery } from "@tanstack/react-query";
 import type { CandidateDto, CriterionId, FrontDto, PointsDto, ResponseDto } from "@loopyard/core";
 import { apiFetch } from "./client.js";
 import { queryKeys } from "./query-keys.js";
@@ -6,13 +6,20 @@ import { queryKeys } from "./query-keys.js";
 const sweepPath = (slug: string, sweepId: string) =>
   `/workspaces/${encodeURIComponent(slug)}/sweeps/${encodeURIComponent(sweepId)}`;
 
+/** GET …/sweeps/:sweepId/points?x=&y=, as query options (for usePoints and for prefetching). */
+export function pointsQuery(slug: string, sweepId: string, x: CriterionId, y: CriterionId) {
+  return queryOptions({
+    queryKey: queryKeys.points(slug, sweepId, x, y),
+    queryFn: () => apiFetch<PointsDto>(`${sweepPath(slug, sweepId)}/points?x=${x}&y=${y}`),
+    staleTime: Infinity,
+  });
+}
+
 /** GET …/sweeps/:sweepId/points?x=&y= — the chart's cloud in columns (rounded for drawing); only once the sweep finished. */
 export function usePoints(slug: string, sweepId: string, x: CriterionId, y: CriterionId, enabled: boolean) {
   return useQuery({
-    queryKey: queryKeys.points(slug, sweepId, x, y),
-    queryFn: () => apiFetch<PointsDto>(`${sweepPath(slug, sweepId)}/points?x=${x}&y=${y}`),
+    ...pointsQuery(slug, sweepId, x, y),
     enabled,
-    staleTime: Infinity,
     // Keep the cloud on screen while other axes load.
     placeholderData: (previous) => previous,
   });
@@ -28,14 +35,18 @@ export function useCandidate(slug: string, sweepId: string, index: number | null
   });
 }
 
-/** GET …/sweeps/:sweepId/front?x=&y= — the non-dominated candidates for two criteria (indices and the candidates in full). */
-export function useFront(slug: string, sweepId: string, x: CriterionId, y: CriterionId, enabled: boolean) {
-  return useQuery({
+/** GET …/sweeps/:sweepId/front?x=&y=, as query options (for useFront and for prefetching). */
+export function frontQuery(slug: string, sweepId: string, x: CriterionId, y: CriterionId) {
+  return queryOptions({
     queryKey: queryKeys.front(slug, sweepId, x, y),
     queryFn: () => apiFetch<FrontDto>(`${sweepPath(slug, sweepId)}/front?x=${x}&y=${y}`),
-    enabled,
     staleTime: Infinity,
   });
+}
+
+/** GET …/sweeps/:sweepId/front?x=&y= — the non-dominated candidates for two criteria (indices and the candidates in full). */
+export function useFront(slug: string, sweepId: string, x: CriterionId, y: CriterionId, enabled: boolean) {
+  return useQuery({ ...frontQuery(slug, sweepId, x, y), enabled });
 }
 
 /** GET …/candidates/:index/response — the closed-loop step response, simulated on demand. */

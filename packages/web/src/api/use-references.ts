@@ -1,4 +1,4 @@
-import { useQuery } from "@tanstack/react-query";
+import { queryOptions, useQuery } from "@tanstack/react-query";
 import type { FrequencyDto, ReferencesDto } from "@loopyard/core";
 import { apiFetch } from "./client.js";
 import { queryKeys } from "./query-keys.js";
@@ -6,14 +6,18 @@ import { queryKeys } from "./query-keys.js";
 const sweepPath = (slug: string, sweepId: string) =>
   `/workspaces/${encodeURIComponent(slug)}/sweeps/${encodeURIComponent(sweepId)}`;
 
-/** GET …/sweeps/:sweepId/references — the bound curve and the scored tuning-rule baselines. */
-export function useReferences(slug: string, sweepId: string, enabled: boolean) {
-  return useQuery({
+/** GET …/sweeps/:sweepId/references, as query options (for useReferences and for prefetching). */
+export function referencesQuery(slug: string, sweepId: string) {
+  return queryOptions({
     queryKey: [...queryKeys.sweep(slug, sweepId), "references"] as const,
     queryFn: () => apiFetch<ReferencesDto>(`${sweepPath(slug, sweepId)}/references`),
-    enabled,
     staleTime: Infinity,
   });
+}
+
+/** GET …/sweeps/:sweepId/references — the bound curve and the scored tuning-rule baselines. */
+export function useReferences(slug: string, sweepId: string, enabled: boolean) {
+  return useQuery({ ...referencesQuery(slug, sweepId), enabled });
 }
 
 /** GET …/candidates/:index/frequency — |S|, |T| (and 1/|W|) of one candidate's loop; linear plants only. */

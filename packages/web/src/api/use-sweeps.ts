@@ -1,4 +1,4 @@
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { SweepDetailDto, SweepInput, SweepStatus, SweepSummaryDto } from "@loopyard/core";
 import { apiFetch } from "./client.js";
 import { queryKeys } from "./query-keys.js";
@@ -21,11 +21,18 @@ export function useSweeps(slug: string) {
   });
 }
 
+/** GET /api/workspaces/:slug/sweeps/:sweepId, as query options (for useSweep and for prefetching). */
+export function sweepQuery(slug: string, sweepId: string) {
+  return queryOptions({
+    queryKey: queryKeys.sweep(slug, sweepId),
+    queryFn: () => apiFetch<SweepDetailDto>(`${sweepsPath(slug)}/${encodeURIComponent(sweepId)}`),
+  });
+}
+
 /** GET /api/workspaces/:slug/sweeps/:sweepId — polls every second while queued or running. */
 export function useSweep(slug: string, sweepId: string, enabled = true) {
   return useQuery({
-    queryKey: queryKeys.sweep(slug, sweepId),
-    queryFn: () => apiFetch<SweepDetailDto>(`${sweepsPath(slug)}/${encodeURIComponent(sweepId)}`),
+    ...sweepQuery(slug, sweepId),
     enabled: enabled && sweepId !== "",
     refetchInterval: (query) => (query.state.data && isSweepActive(query.state.data.status) ? SWEEP_POLL_MS : false),
   });

@@ -1,14 +1,21 @@
 import { Component, Suspense, lazy, type ReactNode } from "react";
 import type { PlotParams } from "react-plotly.js/factory";
 
-let plotlyModule: Promise<typeof import("./plotly-plot.js")> | undefined;
+type PlotModule = typeof import("./plotly-plot.js");
+
+let plotlyModule: Promise<PlotModule> | undefined;
+/** The plotting component once its bundle has loaded. */
+let loadedPlot: PlotModule["default"] | undefined;
 
 /**
  * Starts loading the plotting bundle (once) without waiting for it. Pages that will draw call it on
  * mount, so the bundle downloads and compiles while their data is still being fetched.
  */
-export function preloadPlot(): Promise<typeof import("./plotly-plot.js")> {
-  plotlyModule ??= import("./plotly-plot.js");
+export function preloadPlot(): Promise<PlotModule> {
+  plotlyModule ??= import("./plotly-plot.js").then((module) => {
+    loadedPlot = module.default;
+    return module;
+  });
   return plotlyModule;
 }
 
@@ -31,8 +38,20 @@ class ChartBoundary extends Component<{ children: ReactNode }, { failed: Error |
   }
 }
 
-/** A plotly figure, loaded on first use; shows a placeholder of the same height meanwhile. */
+/**
+ * A plotly figure, loaded on first use; shows a placeholder of the same height meanwhile. Once the
+ * bundle is in, the figure renders straight away: a lazy component suspends on its first render even
+ * when its module has loaded, and React holds a revealed Suspense boundary back for up to 300 ms.
+ */
 export function LazyPlot({ height, ...props }: PlotParams & { height: number }) {
+  if (loadedPlot) {
+    const Loaded = loadedPlot;
+    return (
+      <ChartBoundary>
+        <Loaded useResizeHandler style={{ width: "100%", height }} {...props} />
+      </ChartBoundary>
+    );
+  }
   return (
     <ChartBoundary>
       <Suspense

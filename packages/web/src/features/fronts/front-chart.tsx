@@ -1,6 +1,7 @@
+import { useMemo } from "react";
 import { LazyPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
-import type { FrontPoint } from "./front-points.js";
+import { cloudPoints, positionFinder, type FrontPoint, type PlotCloud } from "./front-points.js";
 import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, type BaselinePoint } from "./reference-points.js";
 
 /** Above this many candidates the cloud is drawn with WebGL (plotly scattergl); SVG stays sharper and clickable below it. */
@@ -9,10 +10,12 @@ export const WEBGL_POINTS = 5000;
 /**
  * Every stable candidate as a dimmed dot (WebGL above WEBGL_POINTS), the non-dominated ones in the accent colour joined by a
  * staircase (each front point holds its y until the next one's x), and the chosen candidate ringed.
- * Takes plain data; calls onSelect with the candidate index of a clicked point.
+ * Takes plain data; calls onSelect with the candidate index of a clicked point. The cloud's columns go
+ * to plotly as they are (no array of 10⁵ point objects), and its traces are rebuilt only when the cloud
+ * or the axes change, not on a click.
  */
 export function FrontChart({
-  points,
+  cloud,
   front,
   selected,
   xTitle,
@@ -24,7 +27,8 @@ export function FrontChart({
   describe,
   cloudParams,
 }: {
-  points: readonly FrontPoint[];
+  /** Every plotted candidate: index, x and y columns aligned by position (PointsDto, by index). */
+  cloud: PlotCloud;
   /** Candidate indices on the front, sorted by x ascending. */
   front: readonly number[];
   selected: number | null;
@@ -39,38 +43,47 @@ export function FrontChart({
   /** The parameters of a candidate for its hover text, e.g. "kp = 1.2, ki = 0.3". */
   describe?: (index: number) => string;
   /**
-   * The swept parameters of the cloud, one column per name aligned with `points`: then the cloud's
+   * The swept parameters of the cloud, one column per name aligned with `cloud`: then the cloud's
    * hover text is formatted by plotly on hover (customdata) instead of one string per point up front.
    */
   cloudParams?: { names: readonly string[]; columns: readonly (readonly number[])[] };
 }) {
-  const byIndex = new Map(points.map((p) => [p.index, p]));
-  const frontPoints = front.map((i) => byIndex.get(i)).filter((p): p is FrontPoint => p !== undefined);
-  const chosen = selected === null ? undefined : byIndex.get(selected);
+  const find = useMemo(() => positionFinder(cloud.indices), [cloud.indices]);
+  const frontPoints = useMemo(() => cloudPoints(cloud, find, front), [cloud, find, front]);
+  const chosen = selected === null ? undefined : cloudPoints(cloud, find, [selected])[0];
+  const count = cloud.xs.length;
   const hover = `candidate #%{customdata}${describe ? "<br>%{text}" : ""}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`;
-  const webgl = points.length > WEBGL_POINTS;
+  const webgl = count > WEBGL_POINTS;
   const text = (list: readonly FrontPoint[]) => (describe ? list.map((p) => describe(p.index)) : undefined);
-  const data: Record<string, unknown>[] = [
-    {
+  const cloudTrace = useMemo(
+    () => ({
       type: webgl ? "scattergl" : "scatter",
       mode: "markers",
       name: "stable candidates",
-      x: points.map((p) => p.x),
-      y: points.map((p) => p.y),
+      x: cloud.xs,
+      y: cloud.ys,
       ...(cloudParams
         ? {
-            customdata: points.map((p, i) => [p.index, ...cloudParams.columns.map((column) => column[i])]),
+            customdata: cloud.indices.map((index, i) => {
+              const row = [index];
+              for (const column of cloudParams.columns) row.push(column[i] as number);
+              return row;
+            }),
             hovertemplate: `candidate #%{customdata[0]}<br>${cloudParams.names.map((name, k) => `${name} = %{customdata[${k + 1}]:.4g}`).join(", ")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
           }
-        : { customdata: points.map((p) => p.index), text: text(points), hovertemplate: hover }),
+        : { customdata: cloud.indices, text: describe ? cloud.indices.map((index) => describe(index)) : undefined, hovertemplate: hover }),
       // Dense clouds get smaller, fainter dots so that the front stays readable above them.
       marker: {
         color: CHART_COLORS.cloud,
-        size: webgl ? 3 : points.length > 1000 ? 4 : 6,
-        opacity: webgl ? 0.35 : points.length > 1000 ? 0.4 : 0.55,
+        size: webgl ? 3 : count > 1000 ? 4 : 6,
+        opacity: webgl ? 0.35 : count > 1000 ? 0.4 : 0.55,
         line: { width: 0 },
       },
-    },
+    }),
+    [cloud, cloudParams, describe, hover, xTitle, yTitle, webgl, count],
+  );
+  const data: Record<string, unknown>[] = [
+    cloudTrace,
     {
       // WebGL draws above every SVG trace, so over a WebGL cloud the front is WebGL too (later traces on top).
       type: webgl ? "scattergl" : "scatter",
@@ -134,10 +147,10 @@ export function FrontChart({
   const type = logAxes ? "log" : "linear";
   // With references drawn, the axes fit the candidates, so the bound's tail or a far baseline does not squeeze them.
   const fit = bound !== null || baselines.length > 0;
-  const xRange = fit ? fittedRange(points.map((p) => p.x), logAxes) : null;
-  const yRange = fit ? fittedRange(points.map((p) => p.y), logAxes) : null;
+  const xRange = useMemo(() => (fit ? fittedRange(cloud.xs, logAxes) : null), [fit, cloud.xs, logAxes]);
+  const yRange = useMemo(() => (fit ? fittedRange(cloud.ys, logAxes) : null), [fit, cloud.ys, logAxes]);
   return (
-    <div data-testid="front-chart" data-webgl={webgl ? "true" : "false"} data-points={points.length} data-front-size={frontPoints.length} data-bound-points={bound?.x.length ?? 0} data-baselines={baselines.length}>
+    <div data-testid="front-chart" data-webgl={webgl ? "true" : "false"} data-points={count} data-front-size={frontPoints.length} data-bound-points={bound?.x.length ?? 0} data-baselines={baselines.length}>
       <LazyPlot
         height={400}
         data={data}

@@ -10,7 +10,7 @@ import { Loading } from "../../components/loading.js";
 import { Section } from "../../components/section.js";
 import { criterionAxisTitle, criterionDescription, criterionShortLabel, frontSenseNote } from "./criterion-label.js";
 import { FrontChart } from "./front-chart.js";
-import { columnPoints, defaultAxes, pointDescriber } from "./front-points.js";
+import { defaultAxes, pointDescriber, type PlotCloud } from "./front-points.js";
 import { FrontTable } from "./front-table.js";
 import { ReferenceLegend } from "./reference-legend.js";
 import { baselinePoints, boundTrace } from "./reference-points.js";
@@ -18,6 +18,8 @@ import { ResponseChart } from "./response-chart.js";
 import { SensitivityChart } from "./sensitivity-chart.js";
 import { VariantScoresTable, aggregateName } from "./variant-scores-table.js";
 import { formatCount } from "../sweeps/sweep-progress.js";
+
+const NO_POINTS: PlotCloud = { indices: [], xs: [], ys: [] };
 
 /** The results of a finished sweep: two criteria chosen, every candidate plotted, the front drawn and listed, one candidate's response. */
 export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDto }) {
@@ -38,10 +40,10 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const front = useFront(slug, sweep.id, x, y, true);
   const plottable = cloud.data?.plottable ?? plottableSeen ?? [...sweep.criteria];
   if (cloud.data && !cloud.isPlaceholderData && plottableSeen === null) setPlottableSeen(cloud.data.plottable);
-  const points = useMemo(() => (cloud.data ? columnPoints(cloud.data) : []), [cloud.data]);
+  const points: PlotCloud = cloud.data ?? NO_POINTS;
   const references = useReferences(slug, sweep.id, true);
   const baselines = useMemo(() => baselinePoints(references.data?.baselines, sweep.criteria, x, y), [references.data, sweep.criteria, x, y]);
-  const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points, baselines]);
+  const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points]);
   const frontRows = front.data?.candidates ?? [];
   // Hover text: the swept parameters of a candidate (fixed ones are the same for all); the cloud's by plotly on hover.
   const describe = useMemo(() => (cloud.data ? pointDescriber(cloud.data, sweep.swept, formatNumber) : undefined), [cloud.data, sweep.swept]);
@@ -93,14 +95,14 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
           {sweep.unstableCount > 0 ? ` · ${formatCount(sweep.unstableCount)} unstable` : ""}
           {divergedCount > 0 ? ` · ${formatCount(divergedCount)} diverged` : ""}
           {sweep.unstableCount + divergedCount > 0 ? ", not drawn" : ""}
-          {!sampled && !cloud.isPlaceholderData && points.length < stableCount ? ` · ${stableCount - points.length} without a finite score on these axes` : ""}
+          {!sampled && !cloud.isPlaceholderData && points.xs.length < stableCount ? ` · ${stableCount - points.xs.length} without a finite score on these axes` : ""}
           {front.data ? ` · ${formatCount(front.data.indices.length)} on the front` : ""}
         </span>
       </div>
 
       {sampled ? (
         <p className="-mt-3 text-xs text-ink-soft" data-testid="sample-note">
-          Showing a sample of {formatCount(points.length)} stable candidates of {formatCount(total)}, so
+          Showing a sample of {formatCount(points.xs.length)} stable candidates of {formatCount(total)}, so
           the page stays quick; the front is exact, computed on the server over all of them.
         </p>
       ) : null}
@@ -113,14 +115,14 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
             ) : front.isPending || cloud.isPlaceholderData ? (
               // Draw once, with the front: a large cloud drawn twice costs a second WebGL pass.
               <Loading label="Computing the front…" />
-            ) : points.length === 0 ? (
+            ) : points.xs.length === 0 ? (
               <p className="py-16 text-center text-sm text-ink-soft" data-testid="front-no-points">
                 No stable candidate has a finite {[x, y].filter((c) => !plottable.includes(c)).map(criterionShortLabel).join(" or ") || "score"} here:
                 it does not apply to this scenario or was never reached. Choose another criterion above.
               </p>
             ) : (
               <FrontChart
-                points={points}
+                cloud={points}
                 front={front.data?.indices ?? []}
                 selected={selected}
                 xTitle={criterionAxisTitle(x)}
@@ -133,7 +135,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                 baselines={baselines}
               />
             )}
-            <ReferenceLegend references={references.data} error={references.error} bound={bound} baselines={baselines} points={points} logAxes={logAxes} x={x} y={y} />
+            <ReferenceLegend references={references.data} error={references.error} bound={bound} baselines={baselines} cloud={points} logAxes={logAxes} x={x} y={y} />
             <p className="mt-2 text-xs text-ink-faint">
               {criterionShortLabel(x)}: {criterionDescription(x)} {x !== y ? `${criterionShortLabel(y)}: ${criterionDescription(y)}` : ""}
             </p>

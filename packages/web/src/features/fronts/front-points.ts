@@ -6,14 +6,43 @@ export interface FrontPoint {
   y: number;
 }
 
+/** The cloud of a front chart in columns aligned by position, as PointsDto carries it. */
+export type PlotCloud = Pick<PointsDto, "indices" | "xs" | "ys">;
+
 /**
- * The points of a PointsDto (columns aligned by position) as plot points. The server already left
- * out unstable and diverged candidates and scores that are not finite on either axis.
+ * Finds the position of a candidate index among `indices`, or −1. The server sends the cloud by
+ * index, so a sorted column is searched by bisection (no map of 10⁵ entries to build); any other
+ * order falls back to a map.
  */
-export function columnPoints(points: Pick<PointsDto, "indices" | "xs" | "ys">): FrontPoint[] {
-  const n = Math.min(points.indices.length, points.xs.length, points.ys.length);
-  const out: FrontPoint[] = new Array(n);
-  for (let i = 0; i < n; i++) out[i] = { index: points.indices[i] as number, x: points.xs[i] as number, y: points.ys[i] as number };
+export function positionFinder(indices: readonly number[]): (index: number) => number {
+  let sorted = true;
+  for (let i = 1; i < indices.length && sorted; i++) sorted = (indices[i] as number) > (indices[i - 1] as number);
+  if (!sorted) {
+    const position = new Map<number, number>();
+    indices.forEach((index, i) => position.set(index, i));
+    return (index) => position.get(index) ?? -1;
+  }
+  return (index) => {
+    let lo = 0;
+    let hi = indices.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >>> 1;
+      const at = indices[mid] as number;
+      if (at === index) return mid;
+      if (at < index) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return -1;
+  };
+}
+
+/** The plot points of the given candidate indices that are in the cloud, in the given order. */
+export function cloudPoints(cloud: PlotCloud, find: (index: number) => number, wanted: readonly number[]): FrontPoint[] {
+  const out: FrontPoint[] = [];
+  for (const index of wanted) {
+    const at = find(index);
+    if (at >= 0) out.push({ index, x: cloud.xs[at] as number, y: cloud.ys[at] as number });
+  }
   return out;
 }
 
@@ -22,11 +51,10 @@ export function columnPoints(points: Pick<PointsDto, "indices" | "xs" | "ys">): 
  * (fixed ones are the same for all); "" for an index not among the points.
  */
 export function pointDescriber(points: Pick<PointsDto, "indices" | "params">, swept: readonly string[], format: (v: number) => string): (index: number) => string {
-  const position = new Map<number, number>();
-  points.indices.forEach((index, i) => position.set(index, i));
+  const find = positionFinder(points.indices);
   return (index) => {
-    const at = position.get(index);
-    if (at === undefined) return "";
+    const at = find(index);
+    if (at < 0) return "";
     return swept.map((name, k) => `${name} = ${format(points.params[k]?.[at] ?? Number.NaN)}`).join(", ");
   };
 }

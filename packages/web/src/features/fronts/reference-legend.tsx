@@ -1,6 +1,6 @@
 import { CHART_COLORS } from "../../components/charts/chart-theme.js";
 import type { CriterionId, ReferencesDto } from "@loopyard/core";
-import type { FrontPoint } from "./front-points.js";
+import type { PlotCloud } from "./front-points.js";
 import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, inRange, type BaselinePoint } from "./reference-points.js";
 
 /**
@@ -12,7 +12,7 @@ export function ReferenceLegend({
   error,
   bound,
   baselines,
-  points,
+  cloud,
   logAxes,
   x,
   y,
@@ -22,7 +22,7 @@ export function ReferenceLegend({
   bound: { x: number[]; y: number[] } | null;
   baselines: readonly BaselinePoint[];
   /** The plotted candidates: the axes fit them (front-chart.tsx), so a baseline beyond is said to be off the chart. */
-  points: readonly FrontPoint[];
+  cloud: PlotCloud;
   logAxes: boolean;
   x: CriterionId;
   y: CriterionId;
@@ -31,8 +31,8 @@ export function ReferenceLegend({
   if (!references) return null;
   const onBoundAxes = (x === "ise" && y === "effort") || (x === "effort" && y === "ise");
   const hidden = references.baselines.length - baselines.length;
-  const xRange = fittedRange(points.map((p) => p.x), logAxes);
-  const yRange = fittedRange(points.map((p) => p.y), logAxes);
+  const xRange = fittedRange(cloud.xs, logAxes);
+  const yRange = fittedRange(cloud.ys, logAxes);
   const offChart = (b: BaselinePoint) => !inRange(b.x, xRange, logAxes) || !inRange(b.y, yRange, logAxes);
   return (
     <ul className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-ink-soft" data-testid="reference-legend">

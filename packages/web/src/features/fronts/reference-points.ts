@@ -19,7 +19,7 @@ export interface BaselinePoint {
 
 /**
  * The bound curve on the chosen axes: (ISE, effort) or (effort, ISE), else null (the bound is a curve in
- * that plane only). Points outside the box of `within` (the plotted candidates, widened
+ * that plane only). Points outside the box of `within` (the plotted candidates' columns, widened
  * by a quarter of its span) are dropped, except the nearest one beyond each end, so the dashed line
  * reaches the plot's edges without stretching its axes.
  */
@@ -27,20 +27,20 @@ export function boundTrace(
   bound: ReferencesDto["bound"] | undefined,
   x: CriterionId,
   y: CriterionId,
-  within: readonly { x: number; y: number }[] = [],
+  within: { xs: ArrayLike<number>; ys: ArrayLike<number> } = { xs: [], ys: [] },
 ): { x: number[]; y: number[] } | null {
   if (!bound?.ok || bound.points.length === 0) return null;
   const swap = x === "effort" && y === "ise";
   if (!swap && !(x === "ise" && y === "effort")) return null;
   const pts = bound.points.map((p) => (swap ? { x: p.effort, y: p.ise } : { x: p.ise, y: p.effort }));
-  if (within.length === 0) return { x: pts.map((p) => p.x), y: pts.map((p) => p.y) };
-  const span = (v: number[]) => {
-    const [lo, hi] = [Math.min(...v), Math.max(...v)];
+  if (within.xs.length === 0) return { x: pts.map((p) => p.x), y: pts.map((p) => p.y) };
+  const span = (v: ArrayLike<number>) => {
+    const [lo, hi] = extent(v);
     const pad = (hi - lo) * 0.25;
     return [lo - pad, hi + pad] as const;
   };
-  const [x0, x1] = span(within.map((p) => p.x));
-  const [y0, y1] = span(within.map((p) => p.y));
+  const [x0, x1] = span(within.xs);
+  const [y0, y1] = span(within.ys);
   const inside = pts.map((p) => p.x >= x0 && p.x <= x1 && p.y >= y0 && p.y <= y1);
   const keep = pts.filter((_, i) => inside[i] || inside[i - 1] || inside[i + 1]);
   if (keep.length < 2) return null;
@@ -71,12 +71,13 @@ export const RANGE_PADDING = 0.06;
  * log10 units on a log axis (plotly's convention for log ranges); null when there is nothing to fit
  * (or a non-positive value on a log axis: plotly's autorange handles that).
  */
-export function fittedRange(values: readonly number[], log: boolean): [number, number] | null {
+export function fittedRange(values: ArrayLike<number>, log: boolean): [number, number] | null {
   if (values.length === 0) return null;
-  if (log && values.some((v) => !(v > 0))) return null;
-  const scaled = log ? values.map(Math.log10) : values;
-  const lo = Math.min(...scaled);
-  const hi = Math.max(...scaled);
+  let [lo, hi] = extent(values);
+  if (log) {
+    if (!(lo > 0)) return null;
+    [lo, hi] = [Math.log10(lo), Math.log10(hi)];
+  }
   const pad = (hi - lo) * RANGE_PADDING || (log ? 0.5 : Math.abs(lo) * 0.1 || 1);
   return [lo - pad, hi + pad];
 }
@@ -86,4 +87,17 @@ export function inRange(value: number, range: [number, number] | null, log: bool
   if (range === null) return true;
   const v = log ? Math.log10(value) : value;
   return v >= range[0] && v <= range[1];
+}
+
+/** [min, max] of the values (a loop: spreading 10⁵ values into Math.min overflows the stack); NaN makes both NaN. */
+export function extent(values: ArrayLike<number>): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i] as number;
+    if (Number.isNaN(v)) return [Number.NaN, Number.NaN];
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  return [lo, hi];
 }

@@ -24,10 +24,7 @@ describe("reference points", () => {
 
   it("boundTrace keeps the points near the plotted box and one beyond each end", () => {
     // Box x ∈ [1.5, 3] widened by 0.375, y ∈ [0.5, 2] widened by 0.375: only (2, 1) inside; (1, 10) and (4, 0.1) are its neighbours.
-    const trace = boundTrace(bound, "ise", "effort", [
-      { x: 1.5, y: 2 },
-      { x: 3, y: 0.5 },
-    ]);
+    const trace = boundTrace(bound, "ise", "effort", { xs: [1.5, 3], ys: [2, 0.5] });
     expect(trace).toEqual({ x: [1, 2, 4], y: [10, 1, 0.1] });
   });
 
@@ -55,5 +52,16 @@ describe("fitted axis ranges", () => {
     expect(fittedRange([0, 1], true)).toBeNull();
     expect(inRange(2000, linear, false)).toBe(false);
     expect(inRange(50, log, true)).toBe(true);
+  });
+
+  it("fits 200 000 values (more than Math.min(...values) can take as arguments) and NaN gives no range", async () => {
+    const { extent, fittedRange } = await import("../../../src/features/fronts/reference-points.js");
+    const many = Float64Array.from({ length: 200_000 }, (_, i) => Math.sin(i));
+    const [lo, hi] = extent(many);
+    expect(lo).toBeGreaterThanOrEqual(-1);
+    expect(lo).toBeLessThan(-0.9999);
+    expect(hi).toBeGreaterThan(0.9999);
+    expect(fittedRange(many, false)?.[1]).toBeCloseTo(hi + 0.06 * (hi - lo), 12);
+    expect(extent([1, Number.NaN, 2]).every(Number.isNaN)).toBe(true);
   });
 });

@@ -1,0 +1,1 @@
+ALTER TABLE "sweep" ADD COLUMN "stored_references" jsonb;
