@@ -1,9 +1,10 @@
+import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { exactQuadraticCosts, lqrBound } from "@loopyard/core";
 import type { CandidateListDto, FrequencyDto, ReferencesDto, SweepDetailDto } from "@loopyard/core";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient } from "./api-client.js";
-import { waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 // Reads the seeded demo sweep on Ember 200, G = 1/((8s+1)(2s+1)) = 1/(16s² + 10s + 1), PID grid, setpoint
 // step (400 s at 2.5 ms since the infinite-horizon work; databases seeded earlier keep 60 s at 50 ms).
@@ -81,6 +82,46 @@ describe("GET …/sweeps/:sweepId/references", () => {
         expect((b.scores[ise] as number) + p.ratio * (b.scores[effort] as number)).toBeGreaterThanOrEqual(cost * (1 - 1e-6));
       }
     }
+  });
+
+  it("when a sweep is created, then its references are computed in the background and stored, and a read answers the stored ones", async () => {
+    const team = await workspaceWithTeam(server.url, "References stored");
+    const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Ember 90 element"));
+    expect(plant.status).toBe(201);
+    const created = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, {
+      name: "stored references",
+      plantRevisionId: plant.body.revision.id,
+      structure: "pi",
+      ranges: { kp: { min: 0.5, max: 2, count: 3 }, ki: { min: 0.2, max: 1, count: 3 } },
+      scenario: { horizon: 20, dt: 0.01 },
+      criteria: ["ise", "effort"],
+    });
+    expect(created.status).toBe(201);
+    const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await db.connect();
+    try {
+      const stored = async () => (await db.query("select stored_references as s from sweep where id = $1", [created.body.id])).rows[0]?.s;
+      // Nobody has asked for them yet: the create request started their computation.
+      const deadline = Date.now() + 20_000;
+      while ((await stored()) == null && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 50));
+      const first = await stored();
+      expect(first?.version).toBe(1);
+      expect(first.references.bound.ok).toBe(true);
+      const path = `/api/workspaces/${team.slug}/sweeps/${created.body.id}/references`;
+      const read = await team.viewer.get(path);
+      expect(read.status).toBe(200);
+      expect(read.body).toEqual(first.references);
+
+      // References stored by another version of the computation (here: a marker) are computed again and replaced.
+      await db.query("update sweep set stored_references = $2 where id = $1", [created.body.id, { version: 0, references: { marker: true } }]);
+      const again = await team.viewer.get(path);
+      expect(again.status).toBe(200);
+      expect(again.body).toEqual(first.references);
+      expect((await stored()).version).toBe(1);
+    } finally {
+      await db.end();
+    }
+    await waitForSweep(team.viewer, team.slug, created.body.id);
   });
 
   it("when a non-member asks, then the answer is 403; signed out, 401", async () => {
