@@ -23,5 +23,7 @@ export default defineConfig({
     outDir: "dist",
     emptyOutDir: true,
     chunkSizeWarningLimit: 5000,
+    // dist/.vite/manifest.json: the server reads the plotting bundle's file name from it (http/web-app.ts).
+    manifest: true,
   },
 });

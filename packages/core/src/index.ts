@@ -28,6 +28,7 @@ export {
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
+export { isDrawingPage } from "./api/page-paths.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";

@@ -9,6 +9,7 @@ import { StrictMode } from "react";
 import { createRoot } from "react-dom/client";
 import { QueryClientProvider } from "@tanstack/react-query";
 import { RouterProvider } from "react-router/dom";
+import { isDrawingPage } from "@loopyard/core";
 import { createQueryClient } from "./api/query-client.js";
 import { router } from "./router.js";
 import { preloadPlot } from "./components/charts/lazy-plot.js";
@@ -19,7 +20,7 @@ const queryClient = createQueryClient();
 // Opened straight on a page that draws (a sweep's or a plant's): start the plotting bundle now, while
 // the app signs in and fetches its data, instead of once the page has mounted. A sweep's page also
 // starts fetching its data now (see prefetchSweepPage).
-if (/\/(sweeps|plants)\/[^/]+/.test(window.location.pathname)) void preloadPlot();
+if (isDrawingPage(window.location.pathname)) void preloadPlot();
 const sweepPage = sweepPagePath(window.location.pathname);
 if (sweepPage) prefetchSweepPage(queryClient, sweepPage.slug, sweepPage.sweepId);
 
