@@ -20,6 +20,14 @@ export class ApiClient {
     return [...this.#cookies.keys()].some((name) => name.includes("session_token"));
   }
 
+  /** GET with an Accept header, the body as bytes (for binary answers). */
+  async getBytes(path: string, accept: string): Promise<{ status: number; bytes: ArrayBuffer; headers: Headers }> {
+    const headers: Record<string, string> = { origin: this.#baseUrl, accept };
+    if (this.#cookies.size > 0) headers.cookie = [...this.#cookies].map(([name, value]) => `${name}=${value}`).join("; ");
+    const response = await fetch(`${this.#baseUrl}${path}`, { headers, redirect: "manual" });
+    return { status: response.status, bytes: await response.arrayBuffer(), headers: response.headers };
+  }
+
   async request<T = any>(method: string, path: string, options: { json?: unknown; rawBody?: string; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { origin: this.#baseUrl, ...options.headers };
     if (this.#cookies.size > 0) headers.cookie = [...this.#cookies].map(([name, value]) => `${name}=${value}`).join("; ");

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { POINTS_BINARY_TYPE, decodePointsBinary } from "@loopyard/core";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import type { ApiClient } from "./api-client.js";
 import { twoLagPlant, workspaceWithTeam } from "./fixtures.js";
@@ -151,6 +152,29 @@ describe("a 3 × 3 × 2 sweep", () => {
     // The front of the same axes lists its candidates in full, in the order of its indices.
     const front = await team.viewer.get(`${sweepsPath()}/${sweepId}/front?x=iae&y=effort`);
     expect((front.body.candidates as { index: number }[]).map((c) => c.index)).toEqual(front.body.indices);
+  });
+
+  it("when the points are asked in binary, then they hold the same points with the stored scores exactly, and a bad axis still gets a JSON 400", async () => {
+    const path = `${sweepsPath()}/${sweepId}/points?x=iae&y=effort`;
+    const binary = await team.viewer.getBytes(path, POINTS_BINARY_TYPE);
+    expect(binary.status).toBe(200);
+    expect(binary.headers.get("content-type")).toContain(POINTS_BINARY_TYPE);
+    const { header, columns } = decodePointsBinary(binary.bytes);
+    const json = (await team.viewer.get(path)).body;
+    expect(header).toEqual({ x: "iae", y: "effort", total: 18, sampled: false, plottable: json.plottable, count: json.indices.length, paramCount: json.params.length });
+    expect([...columns.indices]).toEqual(json.indices);
+    // Exact: the stored doubles themselves (float8send), not printed digits.
+    const list = await team.viewer.get(`${sweepsPath()}/${sweepId}/candidates`);
+    const byIndex = new Map((list.body.candidates as { index: number; params: number[]; scores: number[] }[]).map((c) => [c.index, c]));
+    [...columns.indices].forEach((index, i) => {
+      const stored = byIndex.get(index);
+      expect(columns.xs[i]).toBe(stored?.scores[0]);
+      expect(columns.ys[i]).toBe(stored?.scores[3]);
+      [0, 1, 2].forEach((k) => expect(columns.params[k]?.[i]).toBe(stored?.params[k]));
+    });
+    const refused = await team.viewer.getBytes(`${sweepsPath()}/${sweepId}/points?x=overshoot&y=effort`, POINTS_BINARY_TYPE);
+    expect(refused.status).toBe(400);
+    expect(JSON.parse(new TextDecoder().decode(refused.bytes)).error.field).toBe("x");
   });
 
   it("when the points name a criterion the sweep did not score, then the answer is 400 naming the parameter", async () => {

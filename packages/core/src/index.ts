@@ -29,6 +29,8 @@ export {
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
 export { isDrawingPage } from "./api/page-paths.js";
+export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
+export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";

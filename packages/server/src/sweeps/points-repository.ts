@@ -47,16 +47,13 @@ export async function pointColumns(
   };
 }
 
+type PointQuery = { xAt: number; yAt: number; paramAt: readonly number[]; stride?: number; extra?: readonly number[] };
+
 /**
- * pointColumns as PostgreSQL's text of the arrays, no number parsed. With `digits` (1–15), floats are
- * printed with that many significant digits (extra_float_digits = digits − 15 for this transaction:
- * PostgreSQL then prints like C's %.{digits}g, e.g. 1.23457e-07, which is also valid JSON).
+ * The stable candidates with finite scores at `xAt` and `yAt`, by index, as a subquery with columns
+ * index, x, y, p0, p1, … (the parameters at `paramAt`); with `stride`, the indices ≡ 0 mod stride plus `extra`.
  */
-export async function pointColumnsText(
-  db: Database,
-  sweepId: string,
-  options: { xAt: number; yAt: number; paramAt: readonly number[]; stride?: number; extra?: readonly number[]; digits?: number },
-): Promise<PointColumnsText> {
+function pointRows(sweepId: string, options: PointQuery): SQL {
   const subscript = (position: number) => {
     if (!Number.isInteger(position) || position < 0) throw new RangeError(`bad array position ${position}`);
     return sql.raw(String(position + 1));
@@ -72,15 +69,24 @@ export async function pointColumnsText(
         ? sql` and (index % ${stride} = 0 or index = any(${`{${extra.join(",")}}`}::int[]))`
         : sql` and index % ${stride} = 0`;
   const paramSelect = options.paramAt.map((at, k) => sql`, params[${subscript(at)}] as ${sql.raw(`p${k}`)}`);
-  const paramColumns = options.paramAt.map((_, k) => sql`, array_agg(${sql.raw(`p${k}`)})::text as ${sql.raw(`p${k}`)}`);
-  // One sort in the subquery (rows come by index from the (sweep_id, index) key), then every column aggregated in that order.
-  const query = sql`select array_agg(index)::text as indices, array_agg(x)::text as xs, array_agg(y)::text as ys${sql.join(paramColumns, sql``)}
-        from (
+  // One sort here (rows come by index from the (sweep_id, index) key); the aggregates above keep this order.
+  return sql`(
           select index, ${x} as x, ${y} as y${sql.join(paramSelect, sql``)}
           from candidate
           where sweep_id = ${sweepId} and status = 'stable' and scores is not null and ${finite(x)} and ${finite(y)}${sample}
           order by index
         ) as point`;
+}
+
+/**
+ * pointColumns as PostgreSQL's text of the arrays, no number parsed. With `digits` (1–15), floats are
+ * printed with that many significant digits (extra_float_digits = digits − 15 for this transaction:
+ * PostgreSQL then prints like C's %.{digits}g, e.g. 1.23457e-07, which is also valid JSON).
+ */
+export async function pointColumnsText(db: Database, sweepId: string, options: PointQuery & { digits?: number }): Promise<PointColumnsText> {
+  const paramColumns = options.paramAt.map((_, k) => sql`, array_agg(${sql.raw(`p${k}`)})::text as ${sql.raw(`p${k}`)}`);
+  const query = sql`select array_agg(index)::text as indices, array_agg(x)::text as xs, array_agg(y)::text as ys${sql.join(paramColumns, sql``)}
+        from ${pointRows(sweepId, options)}`;
   const digits = options.digits;
   const result =
     digits === undefined
@@ -97,6 +103,60 @@ export async function pointColumnsText(
     xs: text(row.xs),
     ys: text(row.ys),
     params: options.paramAt.map((_, k) => text(row[`p${k}`])),
+  };
+}
+
+/** A little-endian float64 column as a Float64Array (a view when the bytes are 8-byte aligned, else a copy). */
+export function float64Column(bytes: Buffer): Float64Array {
+  const count = bytes.length / 8;
+  if (bytes.byteOffset % 8 === 0) return new Float64Array(bytes.buffer, bytes.byteOffset, count);
+  const column = new Float64Array(count);
+  new Uint8Array(column.buffer).set(bytes);
+  return column;
+}
+
+/** A little-endian int32 column as an Int32Array (a view when 4-byte aligned, else a copy). */
+export function int32Column(bytes: Buffer): Int32Array {
+  const count = bytes.length / 4;
+  if (bytes.byteOffset % 4 === 0) return new Int32Array(bytes.buffer, bytes.byteOffset, count);
+  const column = new Int32Array(count);
+  new Uint8Array(column.buffer).set(bytes);
+  return column;
+}
+
+/** The same columns as raw little-endian bytes: int32 indices, float64 scores and parameters (exact, nothing printed). */
+export interface PointColumnsBytes {
+  count: number;
+  indices: Buffer;
+  xs: Buffer;
+  ys: Buffer;
+  params: Buffer[];
+}
+
+/**
+ * pointColumns as bytes: PostgreSQL writes each value in its binary send format (int4send, float8send:
+ * big-endian) and concatenates a column into one bytea; here each is turned little-endian in place.
+ * No number is printed or parsed on either side, which for 10⁵ points is most of the time a text answer costs.
+ */
+export async function pointColumnsBytes(db: Database, sweepId: string, options: PointQuery): Promise<PointColumnsBytes> {
+  const bytes = (column: SQL, name: string) => sql`, coalesce(string_agg(${column}, ''::bytea), ''::bytea) as ${sql.raw(name)}`;
+  const paramColumns = options.paramAt.map((_, k) => bytes(sql`float8send(${sql.raw(`p${k}`)})`, `p${k}`));
+  const result = await db.execute<Record<string, Buffer | number>>(
+    sql`select count(*)::int as count${bytes(sql`int4send(index)`, "indices")}${bytes(sql`float8send(x)`, "xs")}${bytes(sql`float8send(y)`, "ys")}${sql.join(paramColumns, sql``)}
+        from ${pointRows(sweepId, options)}`,
+  );
+  const row = result.rows[0] ?? {};
+  const column = (name: string, width: 4 | 8) => {
+    const value = row[name];
+    const buffer = Buffer.isBuffer(value) ? value : Buffer.alloc(0);
+    return width === 4 ? buffer.swap32() : buffer.swap64();
+  };
+  return {
+    count: Number(row.count ?? 0),
+    indices: column("indices", 4),
+    xs: column("xs", 8),
+    ys: column("ys", 8),
+    params: options.paramAt.map((_, k) => column(`p${k}`, 8)),
   };
 }
 

@@ -1,6 +1,6 @@
 import { Router } from "express";
 import { z } from "zod";
-import { sweepInputSchema } from "@loopyard/core";
+import { POINTS_BINARY_TYPE, sweepInputSchema } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
 import { parseBody, parseIdParam, parseQuery, pathParam } from "../http/validation.js";
@@ -20,7 +20,7 @@ import {
 } from "./sweep-service.js";
 import { getCandidateFrequency, getReferences, prepareReferences } from "./sweep-reference-service.js";
 import type { BackgroundTasks } from "../http/background-tasks.js";
-import { getPointsJson } from "./sweep-points-service.js";
+import { getPointsBinary, getPointsJson } from "./sweep-points-service.js";
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
@@ -80,9 +80,15 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   });
 
   // PointsDto: the chart's cloud in columns, a few MB for 10⁵ candidates instead of the full list.
+  // The same in binary (core POINTS_BINARY_TYPE) when the client asks for it first: exact numbers, nothing printed.
   router.get("/:sweepId/points", canRead, async (req, res) => {
     const { x, y } = parseQuery(frontQuerySchema, req);
-    res.type("application/json").send(await getPointsJson(db, accessOf(req), sweepIdOf(req.params.sweepId), { x, y }));
+    const sweepId = sweepIdOf(req.params.sweepId);
+    if (req.accepts(["application/json", POINTS_BINARY_TYPE]) === POINTS_BINARY_TYPE) {
+      res.type(POINTS_BINARY_TYPE).send(Buffer.from(await getPointsBinary(db, accessOf(req), sweepId, { x, y })));
+    } else {
+      res.type("application/json").send(await getPointsJson(db, accessOf(req), sweepId, { x, y }));
+    }
   });
 
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {

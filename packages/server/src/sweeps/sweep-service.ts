@@ -17,7 +17,7 @@ import { findCandidate, findCandidates } from "./candidate-repository.js";
 import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "./candidate-list-json.js";
 import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
-import { pointColumns } from "./points-repository.js";
+import { float64Column, int32Column, pointColumnsBytes } from "./points-repository.js";
 import { structureProblem, sweepSetup, tunableFromParams } from "./sweep-plan.js";
 import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
@@ -204,11 +204,12 @@ export async function frontOf(db: Database, sweep: SweepDetailDto, query: { x?: 
     };
   }
   // Only finite scores count: read just the stable candidates finite on both axes, and only those two scores.
-  const columns = await pointColumns(db, sweepId, { xAt: criteria.indexOf(x), yAt: criteria.indexOf(y), paramAt: [] });
-  const xs = orientForMinimisation(Float64Array.from(columns.xs), x);
-  const ys = orientForMinimisation(Float64Array.from(columns.ys), y);
+  const columns = await pointColumnsBytes(db, sweepId, { xAt: criteria.indexOf(x), yAt: criteria.indexOf(y), paramAt: [] });
+  const indices = int32Column(columns.indices);
+  const xs = orientForMinimisation(float64Column(columns.xs), x);
+  const ys = orientForMinimisation(float64Column(columns.ys), y);
   const positions = paretoFront(xs, ys);
-  return { x, y, indices: positions.map((p) => columns.indices[p] as number) };
+  return { x, y, indices: positions.map((p) => indices[p] as number) };
 }
 
 /**

@@ -37,14 +37,20 @@ export async function apiFetch<T>(path: string, options: { method?: Method; body
     throw new ApiError(0, { message: "Could not reach the Loopyard server." });
   }
   const text = await response.text();
-  let parsed: unknown = null;
-  if (text.length > 0) {
-    try {
-      parsed = JSON.parse(text);
-    } catch {
-      parsed = null;
-    }
+  if (!response.ok) throw apiErrorOf(response.status, text);
+  return parseJson(text) as T;
+}
+
+/** The ApiError of a failed response from its status and body text. */
+export function apiErrorOf(status: number, text: string): ApiError {
+  return new ApiError(status, errorBody(status, parseJson(text)));
+}
+
+function parseJson(text: string): unknown {
+  if (text.length === 0) return null;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
   }
-  if (!response.ok) throw new ApiError(response.status, errorBody(response.status, parsed));
-  return parsed as T;
 }

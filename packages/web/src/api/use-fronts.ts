@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import type { CandidateDto, CriterionId, FrontDto, PointsDto, ResponseDto } from "@loopyard/core";
+import type { CandidateDto, CriterionId, FrontDto, ResponseDto } from "@loopyard/core";
 import { apiFetch } from "./client.js";
+import { fetchPoints } from "./fetch-points.js";
 import { queryKeys } from "./query-keys.js";
 
 const sweepPath = (slug: string, sweepId: string) =>
@@ -10,7 +11,8 @@ const sweepPath = (slug: string, sweepId: string) =>
 export function pointsQuery(slug: string, sweepId: string, x: CriterionId, y: CriterionId) {
   return queryOptions({
     queryKey: queryKeys.points(slug, sweepId, x, y),
-    queryFn: () => apiFetch<PointsDto>(`${sweepPath(slug, sweepId)}/points?x=${x}&y=${y}`),
+    // Off the page's thread: the page is busy evaluating the plotting bundle while these megabytes arrive.
+    queryFn: () => fetchPoints(`${sweepPath(slug, sweepId)}/points?x=${x}&y=${y}`),
     staleTime: Infinity,
   });
 }

@@ -46,7 +46,7 @@ export function FrontChart({
    * The swept parameters of the cloud, one column per name aligned with `cloud`: then the cloud's
    * hover text is formatted by plotly on hover (customdata) instead of one string per point up front.
    */
-  cloudParams?: { names: readonly string[]; columns: readonly (readonly number[])[] };
+  cloudParams?: { names: readonly string[]; columns: readonly ArrayLike<number>[] };
 }) {
   const find = useMemo(() => positionFinder(cloud.indices), [cloud.indices]);
   const frontPoints = useMemo(() => cloudPoints(cloud, find, front), [cloud, find, front]);
@@ -64,14 +64,18 @@ export function FrontChart({
       y: cloud.ys,
       ...(cloudParams
         ? {
-            customdata: cloud.indices.map((index, i) => {
-              const row = [index];
+            customdata: Array.from({ length: count }, (_, i) => {
+              const row = [cloud.indices[i] as number];
               for (const column of cloudParams.columns) row.push(column[i] as number);
               return row;
             }),
             hovertemplate: `candidate #%{customdata[0]}<br>${cloudParams.names.map((name, k) => `${name} = %{customdata[${k + 1}]:.4g}`).join(", ")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
           }
-        : { customdata: cloud.indices, text: describe ? cloud.indices.map((index) => describe(index)) : undefined, hovertemplate: hover }),
+        : {
+            customdata: cloud.indices,
+            text: describe ? Array.from({ length: count }, (_, i) => describe(cloud.indices[i] as number)) : undefined,
+            hovertemplate: hover,
+          }),
       // Dense clouds get smaller, fainter dots so that the front stays readable above them.
       marker: {
         color: CHART_COLORS.cloud,

@@ -1,4 +1,4 @@
-import type { CriterionId, PointsDto } from "@loopyard/core";
+import type { CriterionId } from "@loopyard/core";
 
 export interface FrontPoint {
   index: number;
@@ -6,20 +6,24 @@ export interface FrontPoint {
   y: number;
 }
 
-/** The cloud of a front chart in columns aligned by position, as PointsDto carries it. */
-export type PlotCloud = Pick<PointsDto, "indices" | "xs" | "ys">;
+/** The cloud of a front chart in columns aligned by position (PointsDto's columns, as arrays or Float64Arrays). */
+export interface PlotCloud {
+  indices: ArrayLike<number>;
+  xs: ArrayLike<number>;
+  ys: ArrayLike<number>;
+}
 
 /**
  * Finds the position of a candidate index among `indices`, or −1. The server sends the cloud by
  * index, so a sorted column is searched by bisection (no map of 10⁵ entries to build); any other
  * order falls back to a map.
  */
-export function positionFinder(indices: readonly number[]): (index: number) => number {
+export function positionFinder(indices: ArrayLike<number>): (index: number) => number {
   let sorted = true;
   for (let i = 1; i < indices.length && sorted; i++) sorted = (indices[i] as number) > (indices[i - 1] as number);
   if (!sorted) {
     const position = new Map<number, number>();
-    indices.forEach((index, i) => position.set(index, i));
+    for (let i = 0; i < indices.length; i++) position.set(indices[i] as number, i);
     return (index) => position.get(index) ?? -1;
   }
   return (index) => {
@@ -50,7 +54,7 @@ export function cloudPoints(cloud: PlotCloud, find: (index: number) => number, w
  * Hover text of a candidate from PointsDto.params: its swept parameters, e.g. "kp = 1.2, ki = 0.3"
  * (fixed ones are the same for all); "" for an index not among the points.
  */
-export function pointDescriber(points: Pick<PointsDto, "indices" | "params">, swept: readonly string[], format: (v: number) => string): (index: number) => string {
+export function pointDescriber(points: { indices: ArrayLike<number>; params: readonly ArrayLike<number>[] }, swept: readonly string[], format: (v: number) => string): (index: number) => string {
   const find = positionFinder(points.indices);
   return (index) => {
     const at = find(index);
