@@ -102,6 +102,25 @@ async function withProgress<T extends SweepSummaryDto>(db: Database, summaries: 
   return summaries;
 }
 
+/**
+ * Candidate counts by status of finished sweeps, kept per process: once every chunk is stored they
+ * never change, and counting them reads every candidate (10⁶ rows for a large sweep) on each request.
+ */
+const finishedCounts = new Map<string, Map<string, number>>();
+const FINISHED_COUNTS_KEPT = 256;
+
+async function statusCounts(db: Database, sweepId: string, finished: boolean): Promise<Map<string, number>> {
+  const kept = finished ? finishedCounts.get(sweepId) : undefined;
+  if (kept) return kept;
+  const rows = await db.select({ status: candidate.status, n: count() }).from(candidate).where(eq(candidate.sweepId, sweepId)).groupBy(candidate.status);
+  const counts = new Map(rows.map((r) => [r.status as string, r.n]));
+  if (finished) {
+    if (finishedCounts.size >= FINISHED_COUNTS_KEPT) finishedCounts.delete(finishedCounts.keys().next().value as string);
+    finishedCounts.set(sweepId, counts);
+  }
+  return counts;
+}
+
 /** One sweep of a workspace with its definition and unstable count, or null. */
 export async function findSweepDetail(db: Database, workspaceId: string, sweepId: string): Promise<SweepDetailDto | null> {
   const rows = await summaryQuery(db)
@@ -109,12 +128,8 @@ export async function findSweepDetail(db: Database, workspaceId: string, sweepId
     .limit(1);
   const row = rows[0];
   if (!row) return null;
-  const counts = await db
-    .select({ status: candidate.status, n: count() })
-    .from(candidate)
-    .where(eq(candidate.sweepId, sweepId))
-    .groupBy(candidate.status);
-  const countOf = (status: string) => counts.find((c) => c.status === status)?.n ?? 0;
+  const counts = await statusCounts(db, sweepId, row.status === "finished");
+  const countOf = (status: string) => counts.get(status) ?? 0;
   const definition = storedDefinition(row.definition);
   const parameters = sweepParameterNames(definition);
   const variants = definition.family?.variants ?? [{ plantRevisionId: row.revisionId }];
