@@ -33,7 +33,7 @@ export function baseLayout(extra: Record<string, unknown> = {}): Record<string, 
     plot_bgcolor: "#ffffff",
     font: CHART_FONT,
     margin: { l: 56, r: 16, t: 12, b: 44 },
-    hoverlabel: { font: { family: "JetBrains Mono, ui-monospace, monospace", size: 11 }, bgcolor: "#ffffff", bordercolor: CHART_COLORS.line },
+    hoverlabel: { font: { family: "JetBrains Mono, ui-monospace, monospace", size: 11, color: CHART_COLORS.ink }, bgcolor: "#ffffff", bordercolor: CHART_COLORS.line },
     legend: { orientation: "h", x: 0, y: 1.08, font: { size: 11 } },
     ...extra,
   };

@@ -7,6 +7,9 @@ import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, type BaselinePoin
 /** Above this many candidates the cloud is drawn with WebGL (plotly scattergl); SVG stays sharper and clickable below it. */
 export const WEBGL_POINTS = 5000;
 
+/** Above this many front points their markers are drawn small and without rims. */
+export const DENSE_FRONT = 60;
+
 /**
  * Every stable candidate as a dimmed dot (WebGL above WEBGL_POINTS), the non-dominated ones in the accent colour joined by a
  * staircase (each front point holds its y until the next one's x), and the chosen candidate ringed.
@@ -98,7 +101,12 @@ export function FrontChart({
       customdata: frontPoints.map((p) => p.index),
       text: text(frontPoints),
       line: { color: CHART_COLORS.moss, width: 2, shape: "hv" },
-      marker: { color: CHART_COLORS.moss, size: 9, line: { color: "#ffffff", width: 1.5 } },
+      // A long front packs its points along the cloud's edge: small plain dots there, so the staircase stays visible
+      // (ringed 9 px markers would cover it and each other with their white rims).
+      marker:
+        frontPoints.length > DENSE_FRONT
+          ? { color: CHART_COLORS.moss, size: 4, line: { width: 0 } }
+          : { color: CHART_COLORS.moss, size: 9, line: { color: "#ffffff", width: 1.5 } },
       hovertemplate: hover,
     },
   ];
