@@ -4,19 +4,9 @@ import { fileURLToPath } from "node:url";
 import { chromium } from "playwright-core";
 import type { Browser, Page } from "playwright-core";
 
-export const CHROMIUM_PATH = "/usr/bin/chromium";
+import { CHROMIUM_ARGS, CHROMIUM_PATH } from "../../packages/server/src/bench/headless-chromium.js";
 
-/** Flags that keep chromium headless, sandbox-free (we run as root) and off every network but loopback. */
-export const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-  "--disable-dev-shm-usage",
-] as const;
+export { CHROMIUM_ARGS, CHROMIUM_PATH };
 
 /** Folder for screenshots taken by browser tests (ignored by git). */
 export const SCREENS_DIR = fileURLToPath(new URL("../../test-results/screens/", import.meta.url));

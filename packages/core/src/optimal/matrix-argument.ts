@@ -35,6 +35,27 @@ export function assertSymmetric(m: Matrix, name: string): void {
   }
 }
 
+/**
+ * The arguments every Riccati solver shares: A square (n × n), B with n rows, Q (n × n) and R (m × m, m
+ * the columns of B), Q and R symmetric. Definiteness is left to the caller (the solvers ask different things of Q).
+ */
+export function riccatiArguments(
+  A: readonly (readonly number[])[],
+  B: readonly (readonly number[])[],
+  Q: readonly (readonly number[])[],
+  R: readonly (readonly number[])[],
+): { n: number; a: Matrix; b: Matrix; q: Matrix; r: Matrix } {
+  const a = matrixArgument(A, "A");
+  const n = a.rows;
+  if (a.columns !== n) throw new RangeError(`A must be square, got ${n}×${a.columns}`);
+  const b = matrixArgument(B, "B", n);
+  const q = matrixArgument(Q, "Q", n, n);
+  const r = matrixArgument(R, "R", b.columns, b.columns);
+  assertSymmetric(q, "Q");
+  assertSymmetric(r, "R");
+  return { n, a, b, q, r };
+}
+
 /** Relative tolerance of the symmetry check (a little above the rounding of a typed matrix). */
 const SYMMETRY_TOLERANCE = 1e-10;
 

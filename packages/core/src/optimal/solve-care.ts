@@ -1,7 +1,7 @@
 import { CholeskyDecomposition, Matrix, inverse } from "ml-matrix";
 import type { Complex } from "../linear-algebra/complex.js";
 import { riccatiBySignFunction } from "./hamiltonian-sign.js";
-import { assertSymmetric, matrixArgument, matrixRows, symmetrize } from "./matrix-argument.js";
+import { matrixRows, riccatiArguments, symmetrize } from "./matrix-argument.js";
 import { HURWITZ_MARGIN, matrixEigenvalues } from "./matrix-eigenvalues.js";
 import { newtonKleinman } from "./newton-kleinman.js";
 import { undetectableMode, unstabilizableMode } from "./stabilizability.js";
@@ -54,14 +54,7 @@ export function solveCare(
   Q: readonly (readonly number[])[],
   R: readonly (readonly number[])[],
 ): CareResult {
-  const a = matrixArgument(A, "A");
-  const n = a.rows;
-  if (a.columns !== n) throw new RangeError(`A must be square, got ${n}×${a.columns}`);
-  const b = matrixArgument(B, "B", n);
-  const q = matrixArgument(Q, "Q", n, n);
-  const r = matrixArgument(R, "R", b.columns, b.columns);
-  assertSymmetric(q, "Q");
-  assertSymmetric(r, "R");
+  const { a, b, q, r } = riccatiArguments(A, B, Q, R);
   const qScale = Math.max(1e-300, q.norm());
   if (matrixEigenvalues(symmetrize(q)).some((l) => l.re < -1e-12 * qScale)) throw new RangeError("Q must be positive semidefinite (all eigenvalues ≥ 0)");
   if (!new CholeskyDecomposition(symmetrize(r)).isPositiveDefinite()) throw new RangeError("R must be positive definite (all eigenvalues > 0)");

@@ -1,6 +1,6 @@
 import { CholeskyDecomposition, Matrix, inverse, solve } from "ml-matrix";
 import { expm } from "../linear-algebra/expm.js";
-import { assertSymmetric, matrixArgument, matrixRows, symmetrize } from "./matrix-argument.js";
+import { assertSymmetric, matrixArgument, matrixRows, riccatiArguments, symmetrize } from "./matrix-argument.js";
 
 /** ‖M‖₁·h ≤ RDE_STEP_NORM for each Davison–Maki step (keeps e^(Mh) and the re-initialised inverse well conditioned). */
 export const RDE_STEP_NORM = 1;
@@ -48,15 +48,8 @@ export function solveRde(
   horizon: number,
   F?: readonly (readonly number[])[],
 ): RdeResult {
-  const a = matrixArgument(A, "A");
-  const n = a.rows;
-  if (a.columns !== n) throw new RangeError(`A must be square, got ${n}×${a.columns}`);
-  const b = matrixArgument(B, "B", n);
-  const q = matrixArgument(Q, "Q", n, n);
-  const r = matrixArgument(R, "R", b.columns, b.columns);
+  const { n, a, b, q, r } = riccatiArguments(A, B, Q, R);
   const f = F === undefined ? new Matrix(n, n) : matrixArgument(F, "F", n, n);
-  assertSymmetric(q, "Q");
-  assertSymmetric(r, "R");
   assertSymmetric(f, "F");
   if (typeof horizon !== "number" || !(horizon > 0) || !Number.isFinite(horizon)) throw new RangeError(`horizon must be a finite time > 0 s, got ${String(horizon)}`);
   if (!new CholeskyDecomposition(symmetrize(r)).isPositiveDefinite()) throw new RangeError("R must be positive definite (all eigenvalues > 0)");

@@ -1,10 +1,7 @@
 import { availableParallelism } from "node:os";
 import { Piscina } from "piscina";
-import type { BatchResult, EvaluationOptions } from "../batch/evaluate-batch.js";
-import { assertValidStructure, type Structure } from "../batch/structure.js";
-import type { CriterionId } from "../criteria/criterion-id.js";
-import type { Plant } from "../plants/plant.js";
-import type { Scenario } from "../simulation/scenario.js";
+import type { BatchResult } from "../batch/evaluate-batch.js";
+import { assertValidStructure } from "../batch/structure.js";
 import { chunkResultViews, type ChunkTask } from "./chunk-task.js";
 
 /** Most candidates per chunk: small enough for smooth progress, large enough to amortise a message. */
@@ -28,15 +25,8 @@ export interface EvaluationPoolConfig {
   workers?: number;
 }
 
-/** One batch for the pool: the arguments of evaluateBatch. */
-export interface PoolBatch {
-  family: readonly Plant[];
-  structure: Structure;
-  candidates: Float64Array;
-  scenario: Scenario;
-  criteria: readonly CriterionId[];
-  evaluation?: EvaluationOptions;
-}
+/** One batch for the pool: the arguments of evaluateBatch, the same shape as the slices it sends its workers. */
+export type PoolBatch = ChunkTask;
 
 /** Options of one pool run. */
 export interface PoolRunOptions {

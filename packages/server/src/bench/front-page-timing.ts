@@ -5,19 +5,8 @@
 // (plotly sets _fullLayout._replotting back to false at the end of drawing, just before it emits
 // plotly_afterplot), holds a scattergl trace with the page's point count, and has its WebGL canvas.
 import { existsSync } from "node:fs";
+import { CHROMIUM_ARGS, CHROMIUM_PATH } from "./headless-chromium.js";
 
-const CHROMIUM_PATH = "/usr/bin/chromium";
-/** The same flags as tests/support/chromium.ts: headless, sandbox-free, no network but loopback. */
-const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-  "--disable-dev-shm-usage",
-];
 const DRAW_TIMEOUT_MS = 60_000;
 
 /**
@@ -98,7 +87,7 @@ export async function timeFrontPage(options: {
   } catch (error) {
     return { skipped: `playwright-core not installed (${(error as Error).message})` };
   }
-  const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: CHROMIUM_ARGS });
+  const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: [...CHROMIUM_ARGS] });
   const url = `${options.base}${options.sweepPath}`;
   try {
     // First visits (plotly's bundle in no cache, as for someone opening a sweep after signing in), each in a fresh
