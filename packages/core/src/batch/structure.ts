@@ -1,5 +1,7 @@
 import type { AntiWindup, Controller, ControllerKind } from "../controllers/controller.js";
-import type { DerivativeFilter } from "../sweeps/sweep-input.js";
+import { CONTROLLER_PARAMETERS, type FixedParameterKind } from "../controllers/controller-parameters.js";
+import type { DerivativeFilter } from "../controllers/derivative-filter.js";
+import { MAX_STATE_FEEDBACK_GAINS } from "../limits.js";
 
 /**
  * A controller structure with some parameters tuned by a sweep and the others held fixed:
@@ -20,22 +22,24 @@ export interface Structure {
   antiWindup?: AntiWindup;
 }
 
-/** Required parameter names of each controller kind (state feedback: see stateFeedbackNames). */
-export const STRUCTURE_PARAMETERS: Readonly<Record<Exclude<ControllerKind, "state-feedback">, readonly string[]>> = {
-  p: ["kp"],
-  pi: ["kp", "ki"],
-  pid: ["kp", "ki", "kd", "tf"],
-  pid2dof: ["kp", "ki", "kd", "tf", "b", "c"],
-  "lead-lag": ["k", "tLead", "tLag"],
-};
+/** Required parameter names of each controller kind, read from CONTROLLER_PARAMETERS (state feedback: see stateFeedbackNames). */
+export const STRUCTURE_PARAMETERS: Readonly<Record<FixedParameterKind, readonly string[]>> = Object.fromEntries(
+  Object.entries(CONTROLLER_PARAMETERS).map(([kind, table]) => [kind, table.map((p) => p.name)]),
+) as unknown as Record<FixedParameterKind, readonly string[]>;
 
 /** Optional parameter every kind accepts. */
 export const OPTIONAL_STRUCTURE_PARAMETERS: readonly string[] = ["sampleTime"];
 
 const STATE_GAIN = /^k\[(\d+)\]$/;
 
-/** Parameter names of state feedback on a plant with `states` states: k[0] … k[states−1], n. */
+/**
+ * Parameter names of state feedback on a plant with `states` states: k[0] … k[states−1], n.
+ * Throws a RangeError for more than MAX_STATE_FEEDBACK_GAINS states (before building any list).
+ */
 export function stateFeedbackNames(states: number): string[] {
+  if (!(Number.isInteger(states) && states >= 0 && states <= MAX_STATE_FEEDBACK_GAINS)) {
+    throw new RangeError(`structure: state feedback takes at most ${MAX_STATE_FEEDBACK_GAINS} gains k[0]…k[${MAX_STATE_FEEDBACK_GAINS - 1}], one per plant state`);
+  }
   return [...Array.from({ length: states }, (_, i) => `k[${i}]`), "n"];
 }
 
@@ -49,7 +53,8 @@ export function structureParameterNames(structure: Structure): string[] {
       .map((name) => STATE_GAIN.exec(name))
       .filter((m): m is RegExpExecArray => m !== null)
       .map((m) => Number(m[1]));
-    const m = indices.length === 0 ? 0 : Math.max(...indices) + 1;
+    // Checked before any list is built: k[999999999] must not allocate a billion names.
+    const m = indices.reduce((largest, i) => Math.max(largest, i + 1), 0);
     return stateFeedbackNames(m);
   }
   const names = STRUCTURE_PARAMETERS[structure.kind];
