@@ -35,6 +35,9 @@ export { evaluateSweepChunk, evaluateSweepChunkWith } from "./sweeps/evaluate-sw
 export { SweepPlanError } from "./sweeps/sweep-plan-error.js";
 export { dottedField, sweepIssues } from "./sweeps/sweep-issue.js";
 export { searchBudget } from "./sweeps/search-budget.js";
+export { searchObjectiveMatrix } from "./search/search-objectives.js";
+export { MAX_FREQUENCY_POINTS, PLOT_TAIL_GAIN, thinFrequencyResponse } from "./frequency/thin-frequency-response.js";
+export { MAX_TRACE_POINTS, downsampleIndices, pick } from "./traces/downsample-trace.js";
 export {
   DEFAULT_SWEEP_CRITERIA,
   checkSweepDefinition,
@@ -169,6 +172,7 @@ export { createNsga2Search } from "./search/nsga2-search.js";
 export {
   OPTIONAL_STRUCTURE_PARAMETERS,
   STRUCTURE_PARAMETERS,
+  StructureError,
   assertValidStructure,
   controllerFromVector,
   stateFeedbackNames,
@@ -247,6 +251,7 @@ export type { SweepPlan } from "./sweeps/plan-sweep.js";
 export type { SweepBatch, SweepBatchEvaluator, SweepChunk, SweepRow, SweepRowStatus, SweepSelection } from "./sweeps/evaluate-sweep-chunk.js";
 export type { SweepIssue } from "./sweeps/sweep-issue.js";
 export type { SearchBudgetDesign } from "./sweeps/search-budget.js";
+export type { ThinFrequencyResponse } from "./frequency/thin-frequency-response.js";
 export type {
   ParameterRange,
   SweepShape,

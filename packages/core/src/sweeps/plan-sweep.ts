@@ -1,7 +1,7 @@
 import type { Aggregate } from "../aggregates/aggregate-scores.js";
 import type { EvaluationOptions } from "../batch/evaluate-batch.js";
 import type { ParameterSpace } from "../batch/parameter-space.js";
-import { assertValidStructure, controllerFromVector, type Structure } from "../batch/structure.js";
+import { assertValidStructure, controllerFromVector, StructureError, type Structure } from "../batch/structure.js";
 import type { Controller } from "../controllers/controller.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import { linearPlantModel } from "../plants/linear-plant-model.js";
@@ -103,8 +103,8 @@ export function planSweep(definition: SweepShape, models: readonly Plant[]): Swe
     try {
       assertValidStructure(structure, structure.kind === "state-feedback" ? plantStateCount(plant) : undefined);
     } catch (error) {
-      if (!(error instanceof RangeError || error instanceof TypeError)) throw error;
-      throw new SweepPlanError("ranges", error.message.replace(/^structure\.[\w.[\]]+:? /, ""));
+      if (!(error instanceof StructureError)) throw error;
+      throw new SweepPlanError("ranges", error.reason);
     }
   }
   const parameters = sweepParameterNames(definition);

@@ -6,6 +6,7 @@ import { DEFAULT_DERIVATIVE_FILTER, derivativeFilterSchema } from "../controller
 import {
   assertValidStructure,
   OPTIONAL_STRUCTURE_PARAMETERS,
+  StructureError,
   STRUCTURE_PARAMETERS,
   structureParameterNames,
   type Structure,
@@ -284,8 +285,8 @@ export function checkSweepDefinition(s: SweepShape, ctx: z.RefinementCtx): void 
   try {
     required = structureParameterNames(structure);
   } catch (error) {
-    if (!(error instanceof RangeError)) throw error;
-    issue(["structure"], error.message.replace(/^structure(\.\w+)?: /, ""));
+    if (!(error instanceof StructureError)) throw error;
+    issue(["structure"], error.reason);
     return;
   }
   const allowed = new Set([...required, ...OPTIONAL_STRUCTURE_PARAMETERS]);
@@ -321,8 +322,8 @@ export function checkSweepDefinition(s: SweepShape, ctx: z.RefinementCtx): void 
     try {
       assertValidStructure(structure);
     } catch (error) {
-      if (!(error instanceof RangeError)) throw error;
-      issue(["ranges"], error.message.replace(/^structure\.[\w.[\]]+:? /, ""));
+      if (!(error instanceof StructureError)) throw error;
+      issue(["ranges"], error.reason);
     }
   }
 
