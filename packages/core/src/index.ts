@@ -33,7 +33,7 @@ export {
 export { planSweep, plantStateCount, variantPlant, controllerParameterValue } from "./sweeps/plan-sweep.js";
 export { evaluateSweepChunk, evaluateSweepChunkWith } from "./sweeps/evaluate-sweep-chunk.js";
 export { SweepPlanError } from "./sweeps/sweep-plan-error.js";
-export { dottedField, sweepIssues } from "./sweeps/sweep-issue.js";
+export { dottedField, firstSweepIssue, sweepIssues } from "./sweeps/sweep-issue.js";
 export { searchBudget } from "./sweeps/search-budget.js";
 export { searchObjectiveMatrix } from "./search/search-objectives.js";
 export { MAX_FREQUENCY_POINTS, PLOT_TAIL_GAIN, thinFrequencyResponse } from "./frequency/thin-frequency-response.js";

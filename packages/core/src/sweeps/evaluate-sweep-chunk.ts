@@ -24,6 +24,10 @@ export interface SweepRow {
   scores: number[] | null;
   /** With more than one variant: F × C per-variant scores, variant-major (NaN where not stable). */
   variantScores?: number[];
+  /** The verdict on each variant, in family order (length F). */
+  variantStatus: SweepRowStatus[];
+  /** Why a rejected candidate was rejected on each variant (null where it was not). */
+  variantReasons?: (string | null)[];
 }
 
 /** Rows of a chunk, with the aggregate matrix (n × C; NaN for candidates not stable on every variant). */
@@ -97,8 +101,10 @@ function sweepChunkRows(plan: SweepPlan, selection: SweepSelection, candidates: 
   for (let i = 0; i < n; i++) {
     let status: SweepRowStatus = "stable";
     let worstVariant = -1;
+    const variantStatus: SweepRowStatus[] = [];
     for (let f = 0; f < nf; f++) {
       const name = batchStatusName(result.status[i * nf + f] as number);
+      variantStatus.push(name);
       if (VERDICT_RANK[name] > VERDICT_RANK[status]) {
         status = name;
         worstVariant = f;
@@ -111,7 +117,9 @@ function sweepChunkRows(plan: SweepPlan, selection: SweepSelection, candidates: 
       status,
       reason: status === "stable" ? null : rowReason(status, result.reasons?.get(i * nf + worstVariant), nf > 1 ? labels[worstVariant] : undefined),
       scores: status === "stable" ? Array.from(aggregate.subarray(i * nc, (i + 1) * nc)) : null,
+      variantStatus,
     };
+    if (variantStatus.includes("invalid")) row.variantReasons = variantStatus.map((v, f) => (v === "invalid" ? (result.reasons?.get(i * nf + f) ?? null) : null));
     if (nf > 1) row.variantScores = Array.from(result.scores.subarray(i * nf * nc, (i + 1) * nf * nc));
     rows.push(row);
   }

@@ -24,7 +24,23 @@ export function sweepIssues(error: z.ZodError): SweepIssue[] {
     const field = dottedField(issue.path);
     let reason = issue.message;
     if (issue.code === "invalid_type" && /received undefined$/.test(reason)) reason = "missing; this field is required";
-    else if (issue.code === "unrecognized_keys") reason = `unknown field ${(issue as { keys: string[] }).keys.map((k) => `“${k}”`).join(", ")}; check its spelling`;
+    else if (issue.code === "invalid_type") reason = reason.replace(/^Invalid input: /, "");
+    if (issue.code === "unrecognized_keys") {
+      const key = (issue as { keys: string[] }).keys[0] as string;
+      const keyField = field === "" ? key : `${field}.${key}`;
+      return { field: keyField, reason: "unknown field; check its spelling against the sweep format", sentence: `${keyField}: unknown field; check its spelling against the sweep format` };
+    }
     return { field, reason, sentence: field === "" ? reason : `${field}: ${reason}` };
   });
+}
+
+/**
+ * The one problem to report first: an unknown field when there is one (a misspelt key explains the
+ * missing one), else zod's first issue. The server answers with its sentence, the CLI prints it and
+ * the web form shows its reason at its field.
+ */
+export function firstSweepIssue(error: z.ZodError): SweepIssue {
+  const issues = sweepIssues(error);
+  const unknown = error.issues.findIndex((i) => i.code === "unrecognized_keys");
+  return issues[unknown >= 0 ? unknown : 0] ?? { field: "", reason: "the sweep is not valid", sentence: "the sweep is not valid" };
 }
