@@ -4,6 +4,7 @@
 export { MAX_PLANT_ORDER, transferFunctionSchema } from "./plants/transfer-function.js";
 export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
+export { SLUG_PATTERN, memberInputSchema, workspaceInputSchema, workspaceNameSchema } from "./schemas/workspace-input.js";
 export { CRITERION_IDS } from "./criteria/criterion-id.js";
 export {
   DEFAULT_MAX_CONCURRENT_SWEEPS,
@@ -59,7 +60,6 @@ export {
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
-export { isDrawingPage } from "./api/page-paths.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 
@@ -243,6 +243,7 @@ export { scoreBaselines } from "./tuning/score-baselines.js";
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
+export type { MemberInput, WorkspaceInput } from "./schemas/workspace-input.js";
 export type { PidController } from "./controllers/pid.js";
 export type { CriterionId } from "./criteria/criterion-id.js";
 export type { DerivativeFilter } from "./controllers/derivative-filter.js";

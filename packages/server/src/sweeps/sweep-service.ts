@@ -24,7 +24,7 @@ import type {
 } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
-import { findRevisionInWorkspace } from "../plants/plant-repository.js";
+import { findPlantIdByName, findRevisionInWorkspace } from "../plants/plant-repository.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate, findCandidates } from "./candidate-repository.js";
 import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "./candidate-list-json.js";
@@ -81,6 +81,7 @@ export async function createSweep(
     const field = input.family ? `family.variants.${i}.plantRevisionId` : "plantRevisionId";
     const revision = await findRevisionInWorkspace(db, access.workspace.id, variant.plantRevisionId);
     if (!revision) throw badRequest(`${field}: there is no such plant revision in this workspace`, field);
+    await assertLabelFitsRevision(db, access.workspace.id, variant.label, revision, i);
     models.push(revision.model);
   }
   let plan;
@@ -112,6 +113,20 @@ export async function createSweep(
   });
   await startSweep(sweepId);
   return getSweep(db, access, sweepId);
+}
+
+/**
+ * A variant's label may not name another plant of the workspace: a label left from an earlier
+ * choice of plant ("Ember 200 plate" on an Ember 400 revision) would show wrong names against real
+ * numbers in the per-variant table. Labels that name no plant, or the revision's own, are fine.
+ */
+async function assertLabelFitsRevision(db: Database, workspaceId: string, label: string | undefined, revision: { plantId: string; name: string }, i: number): Promise<void> {
+  if (!label || label === revision.name) return;
+  const named = await findPlantIdByName(db, workspaceId, label);
+  if (named !== null && named !== revision.plantId) {
+    const field = `family.variants.${i}.label`;
+    throw badRequest(`${field}: “${label}” is the name of another plant; this variant is ${revision.name}, so change the label or leave it empty`, field);
+  }
 }
 
 /** Cancels a queued or running sweep: workers skip its remaining chunks; chunks already stored are kept. */
