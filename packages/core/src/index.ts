@@ -67,7 +67,7 @@ export { STABILITY_TOLERANCE, isStable } from "./simulation/is-stable.js";
 export { steadyStateInput, steadyStateOutput } from "./simulation/steady-state-input.js";
 export { IllPosedLoopError, WELL_POSEDNESS_TOLERANCE, isWellPosedLoop } from "./simulation/ill-posed-loop-error.js";
 export { simulateLoop } from "./simulation/simulate-loop.js";
-export { evaluateCandidate } from "./simulation/evaluate-candidate.js";
+export { evaluateCandidate } from "./evaluation/evaluate-candidate.js";
 
 // Criteria.
 export { iae, iaeCriterion } from "./criteria/iae.js";
@@ -177,7 +177,7 @@ export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulatio
 export { runGridLoop } from "./simulation/grid-loop.js";
 export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
 export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
-export { isLoopStable } from "./simulation/evaluate-candidate.js";
+export { isLoopStable } from "./evaluation/evaluate-candidate.js";
 
 
 // Optimal control: Lyapunov and Riccati solvers, exact quadratic costs, the LQR bound and its curve.
@@ -230,7 +230,7 @@ export type { NormalizedTransferFunction } from "./plants/normalize-transfer-fun
 export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";
 export type { LoopTrace } from "./simulation/loop-trace.js";
 export type { Scenario, ScenarioKind, SetpointStepScenario, LoadStep, MeasurementNoise } from "./simulation/scenario.js";
-export type { CandidateEvaluation } from "./simulation/evaluate-candidate.js";
+export type { CandidateEvaluation } from "./evaluation/evaluate-candidate.js";
 export type { CriterionDefinition, CriterionKind, CriterionOptions } from "./criteria/criterion-definition.js";
 export type { QuadraticWeights } from "./criteria/quadratic.js";
 export type { CompiledExpression } from "./expressions/compile-expression.js";
@@ -275,7 +275,7 @@ export type { ResolvedScenario } from "./simulation/resolve-scenario.js";
 export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
 export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
 export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
-export type { EvaluateCandidateOptions } from "./simulation/evaluate-candidate.js";
+export type { EvaluateCandidateOptions } from "./evaluation/evaluate-candidate.js";
 export type { ComplexSamples, FrequencyResponse, FrequencyResponseOptions } from "./frequency/frequency-response.js";
 export type { FrequencyPeak } from "./frequency/grid-peak.js";
 export type { FrequencySpan } from "./frequency/frequency-span.js";

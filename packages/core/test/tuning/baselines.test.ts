@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { Plant } from "../../src/plants/plant.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { BASELINE_RULES, baselines } from "../../src/tuning/baselines.js";
 import { scoreBaselines } from "../../src/tuning/score-baselines.js";
 import { expectClose } from "../support/expect-close.js";

@@ -11,15 +11,15 @@ import { linearPlantModel } from "../plants/linear-plant-model.js";
 import type { LinearPlant, Plant } from "../plants/plant.js";
 import { isHurwitz } from "../stability/is-hurwitz.js";
 import { nyquistStability } from "../stability/nyquist-stability.js";
-import { closedLoopPoles } from "./closed-loop-poles.js";
-import { closedLoopSteadyState, continuousClosedLoop } from "./continuous-closed-loop.js";
-import { FAST_CRITERIA, type FastCriterionId, scoreExactSetpointLoop } from "./exact-loop.js";
-import { isWellPosedLoop } from "./ill-posed-loop-error.js";
-import { divergenceBound } from "./loop-bound.js";
-import { loopTransferFunction } from "./loop-transfer-function.js";
-import type { Scenario } from "./scenario.js";
+import { closedLoopPoles } from "../simulation/closed-loop-poles.js";
+import { closedLoopSteadyState, continuousClosedLoop } from "../simulation/continuous-closed-loop.js";
+import { FAST_CRITERIA, type FastCriterionId, scoreExactSetpointLoop } from "../simulation/exact-loop.js";
+import { isWellPosedLoop } from "../simulation/ill-posed-loop-error.js";
+import { divergenceBound } from "../simulation/loop-bound.js";
+import { loopTransferFunction } from "../simulation/loop-transfer-function.js";
+import type { Scenario } from "../simulation/scenario.js";
 import type { LoopTransferFunction } from "../stability/evaluate-loop.js";
-import { simulateLoop } from "./simulate-loop.js";
+import { simulateLoop } from "../simulation/simulate-loop.js";
 
 /** The verdict and scores of one candidate controller on one plant and scenario. */
 export interface CandidateEvaluation<C extends CriterionId = CriterionId> {
