@@ -177,7 +177,12 @@ export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulatio
 export { runGridLoop } from "./simulation/grid-loop.js";
 export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
 export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
-export { isLoopStable } from "./evaluation/evaluate-candidate.js";
+export { isContinuousLoopStable, isLoopStable, loopVerdict } from "./evaluation/evaluate-candidate.js";
+export type { LoopVerdict } from "./evaluation/evaluate-candidate.js";
+export { isSchurStable } from "./stability/schur-cohn.js";
+export { sampledLoopStability, splitDelay } from "./stability/sampled-loop-stability.js";
+export type { SampledLoop, SampledLoopVerdict } from "./stability/sampled-loop-stability.js";
+export { isEquilibrium, linearizedLoopStability } from "./stability/linearized-loop-stability.js";
 
 
 // Optimal control: Lyapunov and Riccati solvers, exact quadratic costs, the LQR bound and its curve.
