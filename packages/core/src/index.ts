@@ -84,6 +84,7 @@ export { undershoot, undershootCriterion } from "./criteria/undershoot.js";
 export { RISE_HIGH_FRACTION, RISE_LOW_FRACTION, riseTime, riseTimeCriterion } from "./criteria/rise-time.js";
 export { DEFAULT_SETTLING_BAND, settlingTime, settlingTimeCriterion } from "./criteria/settling-time.js";
 export { steadyStateError, steadyStateErrorCriterion } from "./criteria/steady-state-error.js";
+export { loadRecoveryTime, loadRecoveryTimeCriterion } from "./criteria/load-recovery-time.js";
 export { stepReference } from "./criteria/step-reference.js";
 export { ms, msCriterion } from "./criteria/ms.js";
 export { mt, mtCriterion } from "./criteria/mt.js";
