@@ -213,6 +213,9 @@ export { amigoPi, amigoPid } from "./tuning/amigo.js";
 export { defaultLambda, imcPid, lambdaPi } from "./tuning/lambda-imc.js";
 export { BASELINE_RULES, baselines } from "./tuning/baselines.js";
 export { scoreBaselines } from "./tuning/score-baselines.js";
+export { scoreFamilyBaselines } from "./evaluation/score-family-baselines.js";
+export { familyBoundCurve } from "./evaluation/family-bound-curve.js";
+export type { FamilyBoundCurve } from "./evaluation/family-bound-curve.js";
 
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
