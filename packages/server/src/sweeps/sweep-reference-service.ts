@@ -1,5 +1,6 @@
-import { boundCurve, controllerFromVector, frequencyResponse, loopTransferFunction, scoreBaselines } from "@loopyard/core";
+import { controllerFromVector, familyBoundCurve, frequencyResponse, loopTransferFunction, scoreFamilyBaselines } from "@loopyard/core";
 import type {
+  Aggregate,
   BaselineDto,
   FrequencyDto,
   FrequencyResponse,
@@ -12,6 +13,7 @@ import type {
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
+import { definitionVariants, variantPlant } from "./sweep-evaluation.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate } from "./candidate-repository.js";
 import { toScoreValue } from "./score-value.js";
@@ -42,8 +44,9 @@ function refusal(error: unknown): string {
 /**
  * Version of the stored references: raise it when what computeReferences returns changes (a new
  * rule, another bound grid), so that references stored by an earlier version are computed again.
+ * 2: bound and baselines over the whole family with the sweep's aggregate, bound over the scenario's horizon.
  */
-export const REFERENCES_VERSION = 1;
+export const REFERENCES_VERSION = 2;
 
 interface StoredReferences {
   version: number;
@@ -76,34 +79,60 @@ export async function prepareReferences(db: Database, workspaceId: string, sweep
   await storeReferences(db, sweepId, { version: REFERENCES_VERSION, references } satisfies StoredReferences);
 }
 
-/**
- * The bound curve on the (ISE, effort) plane from core boundCurve (linear plants; infinite horizon,
- * the sweep's scenario) and every published tuning rule of core scoreBaselines, scored with the
- * sweep's scenario, criteria and criterion options.
- */
-async function computeReferences(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<ReferencesDto> {
-  const plant = await sweepPlant(db, workspaceId, sweep);
-  const setup = sweepSetup(sweep.definition);
-  return { bound: boundOf(plant, setup.scenario), ...baselinesOf(plant, setup, sweep.criteria) };
+/** The plants of every variant of the sweep, in family order (overrides applied), with their labels. */
+async function sweepFamily(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<{ family: Plant[]; labels: string[] }> {
+  const family: Plant[] = [];
+  const labels: string[] = [];
+  const variants = definitionVariants(sweep.definition);
+  for (const [i, variant] of variants.entries()) {
+    const revision = await findRevisionInWorkspace(db, workspaceId, variant.plantRevisionId);
+    if (!revision) throw notFound("A plant revision of this sweep no longer exists.");
+    family.push(variantPlant(revision.model, variant.parameters));
+    labels.push(sweep.family[i]?.label ?? variant.label ?? `variant ${i + 1}`);
+  }
+  return { family, labels };
 }
 
-function boundOf(plant: Plant, scenario: SweepSetup["scenario"]): ReferencesDto["bound"] {
-  if (plant.kind === "nonlinear") {
-    return { ok: false, reason: "The bound needs a linear plant; this plant is nonlinear.", points: [] };
+/**
+ * The bound curve on the (ISE, effort) plane for the sweep's aggregate over its family (core
+ * familyBoundCurve: the variants' LQR bounds combined per the aggregate, over the scenario's horizon,
+ * or infinite when the criterion options ask for the infinite horizon) and every published tuning
+ * rule (core scoreFamilyBaselines: designed on the first variant, scored on every variant with the
+ * sweep's scenario, criteria and criterion options, aggregated like the candidates).
+ */
+async function computeReferences(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<ReferencesDto> {
+  const { family, labels } = await sweepFamily(db, workspaceId, sweep);
+  const setup = sweepSetup(sweep.definition);
+  const aggregate = (sweep.definition.aggregate ?? { kind: "worst" }) as Aggregate;
+  const baselinesNote =
+    family.length > 1
+      ? `Tuning rules designed on the first variant (${labels[0]}), each scored on all ${family.length} variants and combined like the candidates (${aggregateWords(aggregate)}).`
+      : undefined;
+  return { bound: boundOf(family, labels, setup, aggregate), ...baselinesOf(family, setup, sweep.criteria, aggregate), ...(baselinesNote ? { baselinesNote } : {}) };
+}
+
+function aggregateWords(aggregate: Aggregate): string {
+  return aggregate.kind === "worst" ? "worst case" : aggregate.kind === "mean" ? "mean" : `${aggregate.p}th percentile`;
+}
+
+function boundOf(family: Plant[], labels: string[], setup: SweepSetup, aggregate: Aggregate): ReferencesDto["bound"] {
+  if (family.every((plant) => plant.kind === "nonlinear")) {
+    return { ok: false, reason: family.length > 1 ? "The bound needs linear plants; every variant is nonlinear." : "The bound needs a linear plant; this plant is nonlinear.", points: [] };
   }
+  const horizon = setup.evaluation.criterion?.horizon === "infinite" ? "infinite" : setup.scenario.horizon;
   try {
-    const curve = boundCurve(plant, scenario);
-    if (!curve.ok) return { ok: false, reason: `No bound for this plant: ${curve.reason}.`, points: [] };
-    return { ok: true, points: curve.points.map(({ ratio, ise, effort }) => ({ ratio, ise, effort })) };
+    const curve = familyBoundCurve(family, setup.scenario, aggregate, { horizon, labels });
+    if (!curve.ok) return { ok: false, reason: `No bound for this ${family.length > 1 ? "family" : "plant"}: ${curve.reason}.`, points: [] };
+    return { ok: true, points: curve.points.map(({ ratio, ise, effort }) => ({ ratio, ise, effort })), note: curve.note };
   } catch (error) {
     return { ok: false, reason: `No bound for this sweep: ${refusal(error)}.`, points: [] };
   }
 }
 
-function baselinesOf(plant: Plant, plan: SweepSetup, criteria: SweepDetailDto["criteria"]): Pick<ReferencesDto, "baselines" | "skipped"> {
-  let scored: ReturnType<typeof scoreBaselines>;
+function baselinesOf(family: Plant[], plan: SweepSetup, criteria: SweepDetailDto["criteria"], aggregate: Aggregate): Pick<ReferencesDto, "baselines" | "skipped"> {
+  let scored: ReturnType<typeof scoreFamilyBaselines>;
   try {
-    scored = scoreBaselines(plant, plan.scenario, criteria, { evaluation: plan.evaluation });
+    scored = scoreFamilyBaselines(family, plan.scenario, criteria, aggregate, { evaluation: plan.evaluation });
   } catch (error) {
     const reason = refusal(error);
     return { baselines: [], skipped: [{ rule: "all", variant: "", label: "Tuning rules", reason }] };
