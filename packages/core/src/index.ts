@@ -98,7 +98,7 @@ export { STABILITY_TOLERANCE, isStable } from "./simulation/is-stable.js";
 export { steadyStateInput, steadyStateOutput } from "./simulation/steady-state-input.js";
 export { IllPosedLoopError, WELL_POSEDNESS_TOLERANCE, isWellPosedLoop } from "./simulation/ill-posed-loop-error.js";
 export { simulateLoop } from "./simulation/simulate-loop.js";
-export { evaluateCandidate } from "./simulation/evaluate-candidate.js";
+export { evaluateCandidate } from "./evaluation/evaluate-candidate.js";
 
 // Criteria.
 export { iae, iaeCriterion } from "./criteria/iae.js";
@@ -115,6 +115,7 @@ export { undershoot, undershootCriterion } from "./criteria/undershoot.js";
 export { RISE_HIGH_FRACTION, RISE_LOW_FRACTION, riseTime, riseTimeCriterion } from "./criteria/rise-time.js";
 export { DEFAULT_SETTLING_BAND, settlingTime, settlingTimeCriterion } from "./criteria/settling-time.js";
 export { steadyStateError, steadyStateErrorCriterion } from "./criteria/steady-state-error.js";
+export { loadRecoveryTime, loadRecoveryTimeCriterion } from "./criteria/load-recovery-time.js";
 export { stepReference } from "./criteria/step-reference.js";
 export { ms, msCriterion } from "./criteria/ms.js";
 export { mt, mtCriterion } from "./criteria/mt.js";
@@ -209,7 +210,12 @@ export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulatio
 export { runGridLoop } from "./simulation/grid-loop.js";
 export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
 export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
-export { isLoopStable } from "./simulation/evaluate-candidate.js";
+export { isContinuousLoopStable, isLoopStable, loopVerdict } from "./evaluation/evaluate-candidate.js";
+export type { LoopVerdict } from "./evaluation/evaluate-candidate.js";
+export { isSchurStable } from "./stability/schur-cohn.js";
+export { sampledLoopStability, splitDelay } from "./stability/sampled-loop-stability.js";
+export type { SampledLoop, SampledLoopVerdict } from "./stability/sampled-loop-stability.js";
+export { isEquilibrium, linearizedLoopStability } from "./stability/linearized-loop-stability.js";
 
 
 // Optimal control: Lyapunov and Riccati solvers, exact quadratic costs, the LQR bound and its curve.
@@ -239,6 +245,9 @@ export { amigoPi, amigoPid } from "./tuning/amigo.js";
 export { defaultLambda, imcPid, lambdaPi } from "./tuning/lambda-imc.js";
 export { BASELINE_RULES, baselines } from "./tuning/baselines.js";
 export { scoreBaselines } from "./tuning/score-baselines.js";
+export { scoreFamilyBaselines } from "./evaluation/score-family-baselines.js";
+export { familyBoundCurve } from "./evaluation/family-bound-curve.js";
+export type { FamilyBoundCurve } from "./evaluation/family-bound-curve.js";
 
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
@@ -270,7 +279,7 @@ export type { NormalizedTransferFunction } from "./plants/normalize-transfer-fun
 export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";
 export type { LoopTrace } from "./simulation/loop-trace.js";
 export type { Scenario, ScenarioKind, SetpointStepScenario, LoadStep, MeasurementNoise } from "./simulation/scenario.js";
-export type { CandidateEvaluation } from "./simulation/evaluate-candidate.js";
+export type { CandidateEvaluation } from "./evaluation/evaluate-candidate.js";
 export type { CriterionDefinition, CriterionKind, CriterionOptions } from "./criteria/criterion-definition.js";
 export type { QuadraticWeights } from "./criteria/quadratic.js";
 export type { CompiledExpression } from "./expressions/compile-expression.js";
@@ -315,7 +324,7 @@ export type { ResolvedScenario } from "./simulation/resolve-scenario.js";
 export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
 export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
 export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
-export type { EvaluateCandidateOptions } from "./simulation/evaluate-candidate.js";
+export type { EvaluateCandidateOptions } from "./evaluation/evaluate-candidate.js";
 export type { ComplexSamples, FrequencyResponse, FrequencyResponseOptions } from "./frequency/frequency-response.js";
 export type { FrequencyPeak } from "./frequency/grid-peak.js";
 export type { FrequencySpan } from "./frequency/frequency-span.js";

@@ -284,12 +284,21 @@ export interface BaselineDto {
 /** GET /api/workspaces/:slug/sweeps/:sweepId/references — the bound and the baselines drawn beside a front. */
 export interface ReferencesDto {
   /**
-   * The bound curve on the (ISE, effort) plane (infinite horizon, the sweep's setpoint step):
-   * every controller lies on or above-right of it. ok: false with a reason when there is none
+   * The bound curve on the (ISE, effort) plane for the sweep's aggregate over its family (the
+   * sweep's setpoint step; the scenario's horizon, or infinite when the criteria are scored over an
+   * infinite horizon): every candidate's aggregated point lies on or above-right of it. ok: false with a reason when there is none
    * (nonlinear plant, zero at s = 0, a scenario it does not cover).
    */
-  bound: { ok: boolean; reason?: string; points: BoundPointDto[] };
+  bound: {
+    ok: boolean;
+    reason?: string;
+    points: BoundPointDto[];
+    /** What the bound is: which variants and aggregate, which horizon (familyBoundCurve's note). */
+    note?: string;
+  };
   baselines: BaselineDto[];
+  /** How the baselines were placed: for a family, designed on the first variant and scored on every variant, aggregated like the candidates. */
+  baselinesNote?: string;
   /** Rules that do not apply to this plant, with the reason. */
   skipped: { rule: string; variant: string; label: string; reason: string }[];
 }

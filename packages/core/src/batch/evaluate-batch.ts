@@ -1,6 +1,6 @@
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 import type { Plant } from "../plants/plant.js";
-import { evaluateCandidate, type CandidateEvaluation, type EvaluateCandidateOptions } from "../simulation/evaluate-candidate.js";
+import { evaluateCandidate, type CandidateEvaluation, type EvaluateCandidateOptions } from "../evaluation/evaluate-candidate.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { STATUS_DIVERGED, STATUS_INVALID, STATUS_STABLE, STATUS_UNSTABLE } from "./batch-status.js";
 import { assertValidStructure, controllerFromVector, type Structure } from "./structure.js";

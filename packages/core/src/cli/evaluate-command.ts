@@ -2,7 +2,7 @@ import type { Controller } from "../controllers/controller.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import type { Complex } from "../linear-algebra/complex.js";
 import type { Plant } from "../plants/plant.js";
-import { evaluateCandidate, type EvaluateCandidateOptions } from "../simulation/evaluate-candidate.js";
+import { evaluateCandidate, type EvaluateCandidateOptions } from "../evaluation/evaluate-candidate.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { evaluateSpecSchema } from "./evaluate-spec.js";
 import { toCliJson } from "./json-output.js";

@@ -36,10 +36,31 @@ export interface ControllerRealization {
  * - pid2dof: x_i' = r − y, x_d' = −x_d/tf + (c r − y), u = ki x_i − (kd/tf²) x_d + kp(b r − y) + (kd/tf)(c r − y);
  * - lead-lag: x' = −x/tLag + e, u = (k/tLag)(1 − tLead/tLag) x + k(tLead/tLag) e (tLag > 0), else u = k e;
  * - state-feedback: no states, u = N r − K x.
- * Throws a RangeError naming the bad field. References: K. J. Åström and T. Hägglund, Advanced
+ * Built once per controller object (later calls return the same, read-only object). Throws a
+ * RangeError naming the bad field. References: K. J. Åström and T. Hägglund, Advanced
  * PID Control, ISA, 2006, §3.3–3.4 (filtered derivative, setpoint weighting).
  */
 export function controllerRealization(controller: Controller, plantStates?: number): ControllerRealization {
+  let realization = realizations.get(controller);
+  if (realization === undefined) {
+    realization = realize(controller);
+    realizations.set(controller, realization);
+  }
+  if (controller.kind === "state-feedback" && plantStates !== undefined && controller.k.length !== plantStates) {
+    throw new RangeError(`controller.k: give one gain per plant state (${plantStates}), got ${controller.k.length}`);
+  }
+  return realization;
+}
+
+/**
+ * Realisations already built, per controller object: a candidate's realisation is built once and
+ * shared by its stability verdict, its simulation and its exact costs on every variant of a family.
+ * Controllers are treated as immutable (as plants are by linearPlantModel); callers never modify the
+ * returned realisation.
+ */
+const realizations = new WeakMap<Controller, ControllerRealization>();
+
+function realize(controller: Controller): ControllerRealization {
   assertValidController(controller);
   switch (controller.kind) {
     case "p":
@@ -57,9 +78,6 @@ export function controllerRealization(controller: Controller, plantStates?: numb
       return make(1, [-1 / tLag], [1], [-1], [(k / tLag) * (1 - ratio)], k * ratio, -k * ratio);
     }
     case "state-feedback": {
-      if (plantStates !== undefined && controller.k.length !== plantStates) {
-        throw new RangeError(`controller.k: give one gain per plant state (${plantStates}), got ${controller.k.length}`);
-      }
       const r = make(0, [], [], [], [], controller.n, 0);
       r.kx = Float64Array.from(controller.k, (v) => -v);
       return r;

@@ -18,6 +18,7 @@ export const CRITERION_IDS = [
   "riseTime",
   "settlingTime",
   "steadyStateError",
+  "loadRecoveryTime",
   "ms",
   "mt",
   "gainMargin",

@@ -6,6 +6,7 @@ import { effortCriterion } from "./effort.js";
 import { gainMarginCriterion } from "./gain-margin.js";
 import { iaeCriterion } from "./iae.js";
 import { iseCriterion } from "./ise.js";
+import { loadRecoveryTimeCriterion } from "./load-recovery-time.js";
 import { itaeCriterion } from "./itae.js";
 import { itseCriterion } from "./itse.js";
 import { msCriterion } from "./ms.js";
@@ -44,6 +45,7 @@ export const CRITERIA: Readonly<Record<CriterionId, CriterionDefinition>> = {
   riseTime: riseTimeCriterion,
   settlingTime: settlingTimeCriterion,
   steadyStateError: steadyStateErrorCriterion,
+  loadRecoveryTime: loadRecoveryTimeCriterion,
   ms: msCriterion,
   mt: mtCriterion,
   gainMargin: gainMarginCriterion,

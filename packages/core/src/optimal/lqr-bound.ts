@@ -3,6 +3,7 @@ import type { Complex } from "../linear-algebra/complex.js";
 import type { Plant } from "../plants/plant.js";
 import type { ExactCostScenario } from "./exact-quadratic-costs.js";
 import { matrixRows } from "./matrix-argument.js";
+import { finiteHorizonRiccati } from "./finite-horizon-riccati.js";
 import { careMatrices } from "./solve-care.js";
 import { riccatiFlow } from "./solve-rde.js";
 import { setpointDeviationProblem } from "./setpoint-deviation-problem.js";
@@ -46,8 +47,9 @@ export type LqrBound =
  * rest is the initial deviation x̃(0) = −x∞, and the minimum over all inputs of
  * ∫(x̃ᵀQx̃ + 2x̃ᵀNũ + Rũ²)dt with Q = q·CᵀC, N = q·CᵀD, R = r + q·D² (Q = q·CᵀC, R = r for a
  * strictly proper plant) is x̃₀ᵀ P x̃₀, P the stabilising solution of the CARE (solveCare) for
- * T = ∞ or P(0) of the Riccati differential equation over [0, T] with P(T) = 0 (solveRde) for a
- * finite T. Any controller produces some input u(t), so its J is at least this minimum — for a
+ * T = ∞ or P(0) of the Riccati differential equation over [0, T] with P(T) = 0 for a finite T —
+ * in closed form from the CARE solution (finiteHorizonRiccati: any T, any weight ratio) when the
+ * CARE has a stabilising solution, else by the stepped flow of solveRde. Any controller produces some input u(t), so its J is at least this minimum — for a
  * feedback law, a sampled, saturated or noise-driven one alike (limits only shrink the set of inputs).
  * The comparison is exact for candidates whose effort is measured from the same u∞ — every loop
  * without steady-state error; a loop with an offset has infinite J over an infinite horizon.
@@ -92,9 +94,14 @@ export function lqrBound(plant: Plant, scenario: ExactCostScenario, options: Lqr
     poles = care.poles;
   } else {
     const g = Matrix.mul(b.mmul(b.transpose()), 1 / rBar);
-    const flow = riccatiFlow(aBar, g, qBar, new Matrix(n, n), horizon - delay);
-    if (!flow) return { ok: false, reason: "the Riccati differential equation escaped to infinity or needed too many steps" };
-    p = flow.p;
+    const care = careMatrices(aBar, b, qBar, rMatrix);
+    const closedForm = care.ok ? finiteHorizonRiccati(g, new Matrix(care.P), Matrix.sub(aBar, g.mmul(new Matrix(care.P))), horizon - delay) : null;
+    if (closedForm) p = closedForm;
+    else {
+      const flow = riccatiFlow(aBar, g, qBar, new Matrix(n, n), horizon - delay);
+      if (!flow) return { ok: false, reason: "the Riccati differential equation escaped to infinity or needed too many steps" };
+      p = flow.p;
+    }
   }
   const gain = Matrix.mul(b.transpose().mmul(p).add(nBar.transpose()), 1 / rBar);
   const cost = x0.transpose().mmul(p).mmul(x0).get(0, 0) + delayCost;

@@ -29,6 +29,11 @@ export interface LoopTrace {
    */
   yInfinity: number;
   /**
+   * The scenario's load step at the plant input (size [u], time [s], before the dead time), when it
+   * has one of non-zero size; criteria of the load response (loadRecoveryTime) read it.
+   */
+  load?: { size: number; time: number };
+  /**
    * "ok", or "diverged" when the simulation left the divergence bound or became non-finite; the
    * samples after that point are NaN and criteria on such a trace are meaningless.
    */

@@ -11,10 +11,32 @@ import { stateSpaceToTransferFunction } from "../plants/state-space-to-transfer-
  * closed loop is stable exactly when 1 + L has no zeros in the closed right half-plane:
  * - output feedback (p, pi, pid, pid2dof, lead-lag): L = C_y(s)·G(s), C_y = controllerTransferFunction;
  * - state feedback u = −K x + N r: L = K (sI − A)⁻¹ B, by stateSpaceToTransferFunction with C = K, D = 0.
- * Products are not cancelled, so den holds every plant and controller pole.
+ * Products are not cancelled, so den holds every plant and controller pole. Built once per
+ * (plant, controller) pair; later calls return the same, read-only object.
  * Reference: K. J. Åström and R. M. Murray, Feedback Systems, 2008, §9.2 (loop transfer function).
  */
 export function loopTransferFunction(plant: LinearPlant, controller: Controller): { num: number[]; den: number[]; delay: number } {
+  let perPlant = loops.get(controller);
+  if (perPlant === undefined) {
+    perPlant = new WeakMap();
+    loops.set(controller, perPlant);
+  }
+  let loop = perPlant.get(plant);
+  if (loop === undefined) {
+    loop = buildLoopTransferFunction(plant, controller);
+    perPlant.set(plant, loop);
+  }
+  return loop;
+}
+
+/**
+ * Loop transfer functions already built, per controller and plant object: one candidate on one
+ * variant builds its L(s) once for its poles, its stability verdict and its frequency criteria.
+ * Plants and controllers are treated as immutable; callers never modify the returned polynomials.
+ */
+const loops = new WeakMap<Controller, WeakMap<LinearPlant, { num: number[]; den: number[]; delay: number }>>();
+
+function buildLoopTransferFunction(plant: LinearPlant, controller: Controller): { num: number[]; den: number[]; delay: number } {
   const model = linearPlantModel(plant);
   if (controller.kind === "state-feedback") {
     const { ss } = model;

@@ -53,6 +53,7 @@ export function simulateLoop(plant: Plant, controller: Controller, scenario: Sce
     yInfinity: NaN,
     status: "ok",
   };
+  if (sc.load) trace.load = { size: sc.load.size, time: sc.load.time };
   const loadSize = sc.load ? sc.load.size : 0;
   const antiWindup = controller.antiWindup ?? DEFAULT_ANTI_WINDUP;
   const limits = plant.actuator;

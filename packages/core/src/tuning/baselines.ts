@@ -95,9 +95,12 @@ export function baselines(plant: Plant, options: BaselineOptions = {}): Baseline
     if (rule === "simc") {
       if (!(fit.sopdt.tau2 > 0)) return skip("the SOPDT fit has a single lag (τ2 = 0); SIMC PID reduces to the SIMC PI");
       if (options.tauC !== undefined && options.tauC + fit.sopdt.theta === 0) return skip("tauC + θ must be > 0; the fit has no dead time");
-      const t = simcPid(fit.sopdt, options.tauC, filterDivisor);
-      const sopdt: BaselineModel = { kind: "sopdt", method: "half-rule", ...fit.sopdt };
-      const caution = fit.sopdt.tau2 < fit.sopdt.theta ? "; τ2 < θ: the paper advises PI here (from memory)" : "";
+      // The half rule's τ2 + τ3/2 can exceed τ1 (three equal lags: τ1 = 1, τ2 = 1.5); the SOPDT model is
+      // symmetric in its lags, and SIMC wants the dominant one as τ1, so they are ordered first.
+      const ordered = { ...fit.sopdt, tau1: Math.max(fit.sopdt.tau1, fit.sopdt.tau2), tau2: Math.min(fit.sopdt.tau1, fit.sopdt.tau2) };
+      const t = simcPid(ordered, options.tauC, filterDivisor);
+      const sopdt: BaselineModel = { kind: "sopdt", method: "half-rule", ...ordered };
+      const caution = ordered.tau2 < ordered.theta ? "; τ2 < θ: the paper advises PI here (from memory)" : "";
       return { ok: true, rule, variant, label, model: sopdt, controller: t.controller, ideal: t.ideal, series: t.series, tuning: { tauC: t.tauC, filterDivisor }, note: `Skogestad 2003, SIMC PID (series form τD = τ2) on the half-rule SOPDT fit${caution}` };
     }
     if (rule === "amigo") {

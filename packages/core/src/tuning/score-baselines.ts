@@ -1,6 +1,6 @@
 import type { CriterionId } from "../criteria/criterion-id.js";
 import type { Plant } from "../plants/plant.js";
-import { evaluateCandidate, type CandidateEvaluation, type EvaluateCandidateOptions } from "../simulation/evaluate-candidate.js";
+import { evaluateCandidate, type CandidateEvaluation, type EvaluateCandidateOptions } from "../evaluation/evaluate-candidate.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { baselines, type Baseline, type BaselineOptions } from "./baselines.js";
 

@@ -6,7 +6,7 @@ import { controllerFromVector, type Structure } from "../../src/batch/structure.
 import type { CriterionId } from "../../src/criteria/criterion-id.js";
 import type { Plant } from "../../src/plants/plant.js";
 import type { Scenario } from "../../src/simulation/scenario.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 
 // The family mixes the engine's paths: a delay-free rational loop (exact, scores in the recurrence),
 // a dead-time loop (delay line, Nyquist verdict), a state-space plant and a nonlinear plant typed

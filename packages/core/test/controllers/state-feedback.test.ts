@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { StateSpacePlant } from "../../src/plants/state-space.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { simulateLoop } from "../../src/simulation/simulate-loop.js";
 import { expectClose } from "../support/expect-close.js";
 

@@ -19,7 +19,12 @@ describe("criteria on given samples", () => {
     // plant) ⇒ no error, no input, no overshoot or undershoot; rise and settling happen at t[0] = 0.
     const t = grid(100, 0.1);
     const trace = traceFromSamples(t, new Float64Array(t.length).fill(1));
-    for (const id of TIME_IDS) expect(CRITERIA[id].compute(trace), id).toBe(0);
+    // loadRecoveryTime does not apply without a load step (NaN); with one that moves nothing it is 0
+    // (load-recovery-time.test.ts).
+    for (const id of TIME_IDS) {
+      if (id === "loadRecoveryTime") expect(CRITERIA[id].compute(trace), id).toBeNaN();
+      else expect(CRITERIA[id].compute(trace), id).toBe(0);
+    }
   });
 
   it("under perfect tracking with u∞ = 0.5, only the figures measured from u = 0 are non-zero", () => {
@@ -30,6 +35,7 @@ describe("criteria on given samples", () => {
     for (const id of TIME_IDS) {
       if (id === "upeak") expect(CRITERIA[id].compute(trace)).toBe(0.5);
       else if (id === "rawEffort") expectClose(CRITERIA[id].compute(trace), 2.5, 1e-13);
+      else if (id === "loadRecoveryTime") expect(CRITERIA[id].compute(trace), id).toBeNaN(); // no load step
       else expect(CRITERIA[id].compute(trace), id).toBe(0);
     }
   });
@@ -75,10 +81,10 @@ describe("criteria on given samples", () => {
     expect(["iae", "ise", "itae", "effort"].map((id) => CRITERIA[id as CriterionId].label)).toEqual(["IAE", "ISE", "ITAE", "Effort ∫(u−u∞)²dt"]);
   });
 
-  it("CRITERION_IDS holds the evaluate spec's ids plus quadratic, undershoot, steadyStateError and the frequency criteria", () => {
+  it("CRITERION_IDS holds the evaluate spec's ids plus quadratic, undershoot, steadyStateError, loadRecoveryTime and the frequency criteria", () => {
     // The `loopyard evaluate` criterion names of the Engine I issue, exactly, and Engine II's frequency ids.
     const specIds = ["iae", "ise", "itae", "itse", "effort", "rawEffort", "tv", "upeak", "overshoot", "riseTime", "settlingTime"];
-    expect([...CRITERION_IDS].sort()).toEqual([...specIds, "quadratic", "undershoot", "steadyStateError", ...FREQUENCY_IDS].sort());
+    expect([...CRITERION_IDS].sort()).toEqual([...specIds, "quadratic", "undershoot", "steadyStateError", "loadRecoveryTime", ...FREQUENCY_IDS].sort());
   });
 
   it("the sweep schema accepts every id (wsNorm with its weight) and defaults to the first version's four", () => {

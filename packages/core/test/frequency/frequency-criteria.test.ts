@@ -6,7 +6,7 @@ import { gainMargin } from "../../src/criteria/gain-margin.js";
 import { ms } from "../../src/criteria/ms.js";
 import { performanceWeight } from "../../src/frequency/performance-weight.js";
 import type { Plant } from "../../src/plants/plant.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { loopTransferFunction } from "../../src/simulation/loop-transfer-function.js";
 import { expectClose } from "../support/expect-close.js";
 

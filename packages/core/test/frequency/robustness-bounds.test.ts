@@ -4,7 +4,7 @@ import { ms } from "../../src/criteria/ms.js";
 import { phaseMargin } from "../../src/criteria/phase-margin.js";
 import type { Controller } from "../../src/controllers/controller.js";
 import type { Plant } from "../../src/plants/plant.js";
-import { isLoopStable } from "../../src/simulation/evaluate-candidate.js";
+import { isLoopStable } from "../../src/evaluation/evaluate-candidate.js";
 import { loopTransferFunction } from "../../src/simulation/loop-transfer-function.js";
 import { seededRandom } from "../support/seeded-random.js";
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { exactQuadraticCosts } from "../../src/optimal/exact-quadratic-costs.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import type { Plant } from "../../src/plants/plant.js";
 import { expectClose } from "../support/expect-close.js";
 

@@ -3,7 +3,7 @@ import { boundCurve } from "../../src/optimal/bound-curve.js";
 import { exactQuadraticCosts } from "../../src/optimal/exact-quadratic-costs.js";
 import { lqrBound } from "../../src/optimal/lqr-bound.js";
 import type { Plant } from "../../src/plants/plant.js";
-import { isLoopStable } from "../../src/simulation/evaluate-candidate.js";
+import { isLoopStable } from "../../src/evaluation/evaluate-candidate.js";
 import { expectClose } from "../support/expect-close.js";
 import { seededRandom } from "../support/seeded-random.js";
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { CRITERIA } from "../../src/criteria/registry.js";
 import type { TransferFunctionPlant } from "../../src/plants/transfer-function.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { simulateLoop } from "../../src/simulation/simulate-loop.js";
 import { expectClose } from "../support/expect-close.js";
 import { seededRandom } from "../support/seeded-random.js";

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { exactQuadraticCosts } from "../../src/optimal/exact-quadratic-costs.js";
 import type { Plant } from "../../src/plants/plant.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { criterionOptionsSchema } from "../../src/sweeps/sweep-input.js";
 import { expectClose } from "../support/expect-close.js";
 

@@ -3,7 +3,7 @@ import { compileSystem } from "../../src/expressions/compile-system.js";
 import type { NonlinearPlant } from "../../src/plants/nonlinear.js";
 import type { TransferFunctionPlant } from "../../src/plants/transfer-function.js";
 import { DormandPrince } from "../../src/simulation/dormand-prince.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { simulateLoop } from "../../src/simulation/simulate-loop.js";
 import { expectClose } from "../support/expect-close.js";
 import { createOdexSolver } from "../support/odex-reference.js";

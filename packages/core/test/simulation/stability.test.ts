@@ -3,7 +3,7 @@ import type { PidController } from "../../src/controllers/pid.js";
 import type { TransferFunctionPlant } from "../../src/plants/transfer-function.js";
 import { closedLoopCharacteristicPolynomial } from "../../src/simulation/closed-loop-characteristic-polynomial.js";
 import { closedLoopPoles } from "../../src/simulation/closed-loop-poles.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { isStable } from "../../src/simulation/is-stable.js";
 import { expectClose } from "../support/expect-close.js";
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { Plant } from "../../src/plants/plant.js";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { BASELINE_RULES, baselines } from "../../src/tuning/baselines.js";
 import { scoreBaselines } from "../../src/tuning/score-baselines.js";
 import { expectClose } from "../support/expect-close.js";
@@ -21,6 +21,16 @@ const EMBER: Record<string, Plant> = {
 };
 
 describe("baselines", () => {
+  it("SIMC PID on 1/(s+1)³ orders the half-rule lags (τ1 = 1, τ2 = 1.5 become 1.5, 1) instead of refusing the model", () => {
+    // Half rule (Skogestad 2003): τ1 = 1, τ2 = 1 + 1/2 = 1.5, θ = 0.5; the SOPDT model is symmetric in its lags.
+    const simc = baselines(tf([1], [1, 3, 3, 1])).find((b) => b.rule === "simc" && b.variant === "pid");
+    expect(simc?.ok).toBe(true);
+    if (simc?.ok && simc.model.kind === "sopdt") {
+      expectClose(simc.model.tau1, 1.5, 1e-6);
+      expectClose(simc.model.tau2, 1, 1e-6);
+    }
+  });
+
   it("baselines lists every rule once, in BASELINE_RULES order", () => {
     const list = baselines(EMBER["Ember 400"]);
     expect(list.map((b) => `${b.rule}/${b.variant}`)).toEqual(BASELINE_RULES.map((r) => `${r.rule}/${r.variant}`));

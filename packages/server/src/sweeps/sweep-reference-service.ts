@@ -1,15 +1,15 @@
-import { boundCurve, frequencyResponse, loopTransferFunction, scoreBaselines, thinFrequencyResponse } from "@loopyard/core";
+import { familyBoundCurve, frequencyResponse, loopTransferFunction, scoreFamilyBaselines, thinFrequencyResponse } from "@loopyard/core";
 import type {
+  Aggregate,
   BaselineDto,
-  EvaluationOptions,
   FrequencyDto,
   FrequencyResponse,
-  Scenario,
   LinearPlant,
   Plant,
   ReferencesDto,
   SensitivityWeight,
   SweepDetailDto,
+  SweepPlan,
 } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
@@ -19,6 +19,7 @@ import { findCandidate } from "./candidate-repository.js";
 import { toScoreValue } from "./score-value.js";
 import { findStoredReferences, findSweepDetail, storeReferences } from "./sweep-repository.js";
 import { loadSweepPlan } from "./sweep-evaluation.js";
+
 import { getSweep } from "./sweep-service.js";
 
 async function sweepPlant(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<Plant> {
@@ -36,8 +37,9 @@ function refusal(error: unknown): string {
 /**
  * Version of the stored references: raise it when what computeReferences returns changes (a new
  * rule, another bound grid), so that references stored by an earlier version are computed again.
+ * 2: bound and baselines over the whole family with the sweep's aggregate, bound over the scenario's horizon.
  */
-export const REFERENCES_VERSION = 1;
+export const REFERENCES_VERSION = 2;
 
 interface StoredReferences {
   version: number;
@@ -71,33 +73,46 @@ export async function prepareReferences(db: Database, workspaceId: string, sweep
 }
 
 /**
- * The bound curve on the (ISE, effort) plane from core boundCurve (linear plants; infinite horizon,
- * the sweep's scenario) and every published tuning rule of core scoreBaselines, scored with the
- * sweep's scenario, criteria and criterion options.
+ * The bound curve on the (ISE, effort) plane for the sweep's aggregate over its family (core
+ * familyBoundCurve: the variants' LQR bounds combined per the aggregate, over the scenario's horizon,
+ * or infinite when the criterion options ask for the infinite horizon) and every published tuning
+ * rule (core scoreFamilyBaselines: designed on the first variant, scored on every variant with the
+ * sweep's scenario, criteria and criterion options, aggregated like the candidates).
  */
 async function computeReferences(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<ReferencesDto> {
-  const plant = await sweepPlant(db, workspaceId, sweep);
   const setup = await loadSweepPlan(db, sweep.definition);
-  return { bound: boundOf(plant, setup.scenario), ...baselinesOf(plant, setup, sweep.criteria) };
+  const family = [...setup.family];
+  const labels = family.map((_, i) => sweep.family[i]?.label ?? `variant ${i + 1}`);
+  const aggregate = setup.aggregate;
+  const baselinesNote =
+    family.length > 1
+      ? `Tuning rules designed on the first variant (${labels[0]}), each scored on all ${family.length} variants and combined like the candidates (${aggregateWords(aggregate)}).`
+      : undefined;
+  return { bound: boundOf(family, labels, setup, aggregate), ...baselinesOf(family, setup, sweep.criteria, aggregate), ...(baselinesNote ? { baselinesNote } : {}) };
 }
 
-function boundOf(plant: Plant, scenario: Scenario): ReferencesDto["bound"] {
-  if (plant.kind === "nonlinear") {
-    return { ok: false, reason: "The bound needs a linear plant; this plant is nonlinear.", points: [] };
+function aggregateWords(aggregate: Aggregate): string {
+  return aggregate.kind === "worst" ? "worst case" : aggregate.kind === "mean" ? "mean" : `${aggregate.p}th percentile`;
+}
+
+function boundOf(family: Plant[], labels: string[], setup: SweepPlan, aggregate: Aggregate): ReferencesDto["bound"] {
+  if (family.every((plant) => plant.kind === "nonlinear")) {
+    return { ok: false, reason: family.length > 1 ? "The bound needs linear plants; every variant is nonlinear." : "The bound needs a linear plant; this plant is nonlinear.", points: [] };
   }
+  const horizon = setup.evaluation.criterion?.horizon === "infinite" ? "infinite" : setup.scenario.horizon;
   try {
-    const curve = boundCurve(plant, scenario);
-    if (!curve.ok) return { ok: false, reason: `No bound for this plant: ${curve.reason}.`, points: [] };
-    return { ok: true, points: curve.points.map(({ ratio, ise, effort }) => ({ ratio, ise, effort })) };
+    const curve = familyBoundCurve(family, setup.scenario, aggregate, { horizon, labels });
+    if (!curve.ok) return { ok: false, reason: `No bound for this ${family.length > 1 ? "family" : "plant"}: ${curve.reason}.`, points: [] };
+    return { ok: true, points: curve.points.map(({ ratio, ise, effort }) => ({ ratio, ise, effort })), note: curve.note };
   } catch (error) {
     return { ok: false, reason: `No bound for this sweep: ${refusal(error)}.`, points: [] };
   }
 }
 
-function baselinesOf(plant: Plant, plan: { scenario: Scenario; evaluation: EvaluationOptions }, criteria: SweepDetailDto["criteria"]): Pick<ReferencesDto, "baselines" | "skipped"> {
-  let scored: ReturnType<typeof scoreBaselines>;
+function baselinesOf(family: Plant[], plan: SweepPlan, criteria: SweepDetailDto["criteria"], aggregate: Aggregate): Pick<ReferencesDto, "baselines" | "skipped"> {
+  let scored: ReturnType<typeof scoreFamilyBaselines>;
   try {
-    scored = scoreBaselines(plant, plan.scenario, criteria, { evaluation: plan.evaluation });
+    scored = scoreFamilyBaselines(family, plan.scenario, criteria, aggregate, { evaluation: plan.evaluation });
   } catch (error) {
     const reason = refusal(error);
     return { baselines: [], skipped: [{ rule: "all", variant: "", label: "Tuning rules", reason }] };

@@ -37,7 +37,7 @@ export function ReferenceLegend({
   return (
     <ul className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-ink-soft" data-testid="reference-legend">
       {bound ? (
-        <li title={BOUND_HOVER} data-testid="reference-bound" className="cursor-help">
+        <li title={references.bound.note ? `${BOUND_HOVER}\n${references.bound.note}` : BOUND_HOVER} data-testid="reference-bound" className="cursor-help">
           <span className="mr-1 inline-block w-5 border-t-2 border-dashed border-ink-soft align-middle" aria-hidden="true" />
           {BOUND_LABEL}
         </li>
@@ -56,6 +56,16 @@ export function ReferenceLegend({
         </li>
       ))}
       {hidden > 0 ? <li>{hidden} baseline{hidden === 1 ? "" : "s"} without finite scores on these axes</li> : null}
+      {bound && references.bound.note ? (
+        <li className="basis-full" data-testid="reference-bound-note">
+          {references.bound.note}
+        </li>
+      ) : null}
+      {references.baselinesNote && baselines.length > 0 ? (
+        <li className="basis-full" data-testid="reference-baselines-note">
+          {references.baselinesNote}
+        </li>
+      ) : null}
       {references.skipped.length > 0 ? (
         <li title={references.skipped.map((s) => `${s.label}: ${s.reason}`).join("\n")} className="cursor-help text-ink-faint">
           {references.skipped.length} rule{references.skipped.length === 1 ? "" : "s"} not applicable (hover for why)

@@ -4,7 +4,7 @@ import { finiteScore } from "../../components/format-score.js";
 /** Legend text and hover text of the bound and the baselines, one wording everywhere. */
 export const BOUND_LABEL = "LQR bound (no controller can go below-left)";
 export const BOUND_HOVER =
-  "Least ISE reachable for each effort by ANY controller on this linear plant (LQR with Riccati weights r/q, infinite horizon). " +
+  "Least ISE reachable for each effort by ANY controller (LQR with Riccati weights r/q, over the sweep's horizon). " +
   "Every candidate, of any structure, lies on or above-right of this line.";
 export const baselineHover = (label: string) => `Published tuning rule ${label}, scored like any candidate`;
 
