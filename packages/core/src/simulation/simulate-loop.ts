@@ -1,12 +1,15 @@
 import type { Controller } from "../controllers/controller.js";
-import { controllerRealization } from "../controllers/controller-realization.js";
+import { type ControllerRealization, controllerRealization } from "../controllers/controller-realization.js";
 import { hasActuatorLimits } from "../plants/actuator-limits.js";
 import { linearPlantModel } from "../plants/linear-plant-model.js";
-import { nonlinearPlantModel } from "../plants/nonlinear-plant-model.js";
+import { linearizeNonlinearPlant, nonlinearPlantModel } from "../plants/nonlinear-plant-model.js";
+import type { NonlinearPlant } from "../plants/nonlinear.js";
 import type { Plant } from "../plants/plant.js";
 import { closedLoopSteadyState, continuousClosedLoop } from "./continuous-closed-loop.js";
 import { runExactLoop } from "./exact-loop.js";
 import { runGridLoop } from "./grid-loop.js";
+import { isWellPosedLoop } from "./ill-posed-loop-error.js";
+import { runJointLoop } from "./joint-loop.js";
 import { divergenceBound } from "./loop-bound.js";
 import type { LoopTrace } from "./loop-trace.js";
 import { resolveScenario } from "./resolve-scenario.js";
@@ -57,18 +60,19 @@ export function simulateLoop(plant: Plant, controller: Controller, scenario: Sce
   const antiWindup = controller.antiWindup ?? DEFAULT_ANTI_WINDUP;
   const limits = plant.actuator;
   const limited = hasActuatorLimits(limits);
+  const sampled = controller.sampleTime !== undefined;
   let ok: boolean;
   if (plant.kind === "nonlinear") {
     const model = nonlinearPlantModel(plant);
     const realization = controllerRealization(controller, model.system.stateCount);
     trace.y0 = model.y0;
     const bound = divergenceBound(model.initial, [model.y0, model.operatingInput, sc.setpoint, loadSize]);
-    ok = runGridLoop(
-      { plant: { kind: "nonlinear", model }, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: 0 },
-      sc,
-      trace,
-      bound,
-    );
+    const gridPlant = { kind: "nonlinear", model } as const;
+    if (sampled) ok = runGridLoop({ plant: gridPlant, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: 0 }, sc, trace, bound);
+    else {
+      const jacobian = nonlinearLoopJacobian(plant, realization);
+      ok = runJointLoop({ plant: gridPlant, controller: realization, antiWindup, limits, delay: 0, jacobian }, sc, trace, bound);
+    }
     trace.uInfinity = trace.u[samples - 1];
     trace.yInfinity = trace.y[samples - 1];
   } else {
@@ -76,14 +80,18 @@ export function simulateLoop(plant: Plant, controller: Controller, scenario: Sce
     const realization = controllerRealization(controller, model.ss.n);
     const loop = continuousClosedLoop(model.ss, realization);
     const bound = divergenceBound([sc.setpoint, loadSize]);
-    if (model.delay === 0 && !limited && controller.sampleTime === undefined) ok = runExactLoop(loop, sc, trace, bound);
-    else {
+    const noisyStateFeedback = realization.kx !== null && sc.noise !== null;
+    if (model.delay === 0 && !limited && !sampled && !noisyStateFeedback) ok = runExactLoop(loop, sc, trace, bound);
+    else if (sampled) {
       ok = runGridLoop(
         { plant: { kind: "linear", ss: model.ss }, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: model.delay },
         sc,
         trace,
         bound,
       );
+    } else {
+      const jacobian = model.delay === 0 ? loop.a : blockDiagonal(model.ss.a, model.ss.n, realization.a, realization.n);
+      ok = runJointLoop({ plant: { kind: "linear", ss: model.ss }, controller: realization, antiWindup, limits, delay: model.delay, jacobian }, sc, trace, bound);
     }
     const steady = closedLoopSteadyState(loop, [sc.setpoint, loadSize, 0]);
     const outside = limited && ((limits!.min !== undefined && steady.u < limits!.min) || (limits!.max !== undefined && steady.u > limits!.max));
@@ -96,4 +104,24 @@ export function simulateLoop(plant: Plant, controller: Controller, scenario: Sce
     trace.yInfinity = NaN;
   }
   return trace;
+}
+
+/**
+ * Jacobian of the joint state for the stiffness estimate of a nonlinear loop: the closed loop of
+ * the plant's linearisation at its operating point (linearizeNonlinearPlant) and the controller;
+ * plant and controller side by side when that loop is ill-posed.
+ */
+function nonlinearLoopJacobian(plant: NonlinearPlant, realization: ControllerRealization): Float64Array {
+  const linear = linearizeNonlinearPlant(plant);
+  if (!isWellPosedLoop(-realization.dy, linear.d)) return blockDiagonal(linear.a, linear.n, realization.a, realization.n);
+  return continuousClosedLoop(linear, realization).a;
+}
+
+/** The block-diagonal matrix diag(A, B) of an n×n and an m×m matrix, row-major. */
+function blockDiagonal(a: Float64Array, n: number, b: Float64Array, m: number): Float64Array {
+  const size = n + m;
+  const out = new Float64Array(size * size);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) out[i * size + j] = a[i * n + j];
+  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) out[(n + i) * size + n + j] = b[i * m + j];
+  return out;
 }
