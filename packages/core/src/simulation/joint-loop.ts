@@ -5,7 +5,6 @@ import type { NonlinearPlantModel } from "../plants/nonlinear-plant-model.js";
 import type { GridPlant } from "./grid-loop.js";
 import { DiscontinuityQueue } from "./discontinuity-queue.js";
 import { InputHistory } from "./input-history.js";
-import { jointSubsteps } from "./joint-substeps.js";
 import type { LoopTrace } from "./loop-trace.js";
 import type { ResolvedScenario } from "./resolve-scenario.js";
 import { stateNoise } from "./state-noise.js";
@@ -13,8 +12,8 @@ import { gaussianNoise } from "./gaussian-noise.js";
 
 /** Relative tolerance within which a time counts as lying on the grid or on an internal node. */
 const GRID_TOLERANCE = 1e-9;
-/** Bisection halvings that locate a switching instant inside a step: to 2⁻⁴⁰·h. */
-const EVENT_BISECTIONS = 40;
+/** Bisection halvings that locate a switching instant inside a step: to 2⁻³²·h. */
+const EVENT_BISECTIONS = 32;
 /** Most switching instants located inside one piece of a step (more are taken at its end). */
 const MAX_EVENTS_PER_PIECE = 4;
 /** Time offset of the central difference for dy/dt of a nonlinear output, as a fraction of h. */
@@ -30,11 +29,8 @@ export interface JointLoopConfig {
   limits: ActuatorLimits | undefined;
   /** Dead time θ [s] ≥ 0 on the plant input. */
   delay: number;
-  /**
-   * Jacobian of the joint state (plant, controller) for the stiffness estimate (jointSubsteps):
-   * the delay-free closed loop, or the plant and the controller side by side with dead time.
-   */
-  jacobian: Float64Array;
+  /** Internal steps per grid step, from jointSubsteps (≤ MAX_SUBSTEPS). */
+  substeps: number;
 }
 
 /**
@@ -43,7 +39,7 @@ export interface JointLoopConfig {
  * Runge–Kutta method (W. Kutta, Z. Math. Phys. 46, 435–453, 1901; E. Hairer, S. P. Nørsett and
  * G. Wanner, Solving ODEs I, 2nd ed., 1993, §II.1, Table 1.2), with the controller evaluated at every
  * stage, on s equal internal steps h = dt/s per grid step (jointSubsteps: s = 1 unless the loop is
- * stiff at dt or θ < dt). At every stage:
+ * stiff at dt or θ < dt; at most MAX_SUBSTEPS, see simulateLoop). At every stage:
  *
  *   v = u_a(t − θ) + d(t − θ),  y = g(x, v)  (C x + D v),
  *   u = u_op + C_c x_c + D_r Δr + D_y (y + n − y0) + K_x (x − x_init + n_x),
@@ -67,7 +63,7 @@ export interface JointLoopConfig {
  * Advanced PID Control, 2006, §3.5) and the rate limit (u_a tracks u_s while |u_s'| ≤ rate, else
  * ramps at ±rate as a state a until it meets u_s). Each step is integrated in the mode of its start;
  * when the mode at its end differs, the switching instant is located by bisection on the step's
- * cubic Hermite interpolant to 2⁻⁴⁰·h and the step is redone in two pieces (L. F. Shampine and
+ * cubic Hermite interpolant to 2⁻³²·h and the step is redone in two pieces (L. F. Shampine and
  * S. Thompson, "Event location for ordinary differential equations", Comput. Math. Appl. 39, 2000),
  * so switches cost no order. A jump of u_s (at t = 0⁺, or a new noise sample) starts a ramp from the
  * held value. Before t = 0 the actuator holds u_op. Only the delayed read across a switching instant
@@ -91,6 +87,15 @@ class JointLoop {
   private readonly pd: number;
   private readonly model: NonlinearPlantModel | null;
   private readonly outputUsesInput: boolean;
+  private readonly f: NonlinearPlantModel["system"]["derivatives"] | null;
+  private readonly g: NonlinearPlantModel["system"]["output"] | null;
+  private readonly p: Float64Array;
+  private readonly baseConst: number;
+  private readonly cc: Float64Array;
+  private readonly ca: Float64Array;
+  private readonly cby: Float64Array;
+  private readonly cIn: Float64Array;
+  private readonly cdy: number;
   private readonly uOp: number;
   private readonly y0: number;
   private readonly xInit: Float64Array;
@@ -163,6 +168,15 @@ class JointLoop {
     this.y0 = this.model ? this.model.y0 : 0;
     this.xInit = this.model ? this.model.initial : new Float64Array(np);
     this.outputUsesInput = this.model ? dependsOnInput(this.model) : false;
+    this.f = this.model ? this.model.system.derivatives : null;
+    this.g = this.model ? this.model.system.output : null;
+    this.p = this.model ? this.model.parameters : new Float64Array(0);
+    this.baseConst = this.uOp + c.dr * sc.setpoint;
+    this.cc = c.c;
+    this.ca = c.a;
+    this.cby = c.by;
+    this.cIn = Float64Array.from(c.br, (b) => b * sc.setpoint);
+    this.cdy = c.dy;
     this.lastV = this.uOp;
 
     this.c = c;
@@ -196,7 +210,7 @@ class JointLoop {
 
     this.dt = sc.dt;
     this.theta = config.delay;
-    this.s = jointSubsteps(config.jacobian, np + this.nc, sc.dt, config.delay);
+    this.s = config.substeps;
     this.h = sc.dt / this.s;
     this.history = this.theta > 0 ? new InputHistory(this.theta + 2 * sc.dt, Math.ceil(this.theta / this.h) + 8, this.uOp) : null;
     this.queue = this.theta > 0 ? new DiscontinuityQueue(this.theta) : null;
@@ -448,38 +462,33 @@ class JointLoop {
    * uSat, uAct, y, v (and vRate with dead time) of this evaluation.
    */
   private evaluate(t: number, z: Float64Array, dz: Float64Array): void {
-    const { np, nc, c, kx } = this;
+    const { np, nc, kx, cc, cdy } = this;
     const d = this.loadOn ? this.loadSize : 0;
-    let base = this.uOp + c.dr * this.dr;
-    for (let j = 0; j < nc; j++) base += c.c[j] * z[np + j];
-    if (kx) for (let j = 0; j < np; j++) base += kx[j] * (z[j] - this.xInit[j] + this.nx[j]);
+    let base = this.baseConst;
+    for (let j = 0; j < nc; j++) base += cc[j] * z[np + j];
+    if (kx !== null) for (let j = 0; j < np; j++) base += kx[j] * (z[j] - this.xInit[j] + this.nx[j]);
     const noiseTerm = this.n - this.y0;
     let y: number;
-    let u: number;
-    if (this.history) {
+    if (this.history !== null) {
       const v = this.history.read(t - this.theta, this.side) + d;
       this.vRate = this.history.derivative;
       this.v = v;
       y = this.output(t, z, v);
-      u = base + c.dy * (y + noiseTerm);
-      this.applyMode(u, z);
+      this.applyMode(base + cdy * (y + noiseTerm), z);
     } else if (this.linear) {
       let yPart = this.pd * d;
       for (let j = 0; j < np; j++) yPart += this.pc[j] * z[j];
-      const loopGain = c.dy * this.pd;
-      u = loopGain !== 0 ? (base + c.dy * (yPart + noiseTerm)) / (1 - loopGain) : base + c.dy * (yPart + noiseTerm);
-      this.applyMode(u, z);
+      const loopGain = cdy * this.pd;
+      this.applyMode(loopGain !== 0 ? (base + cdy * (yPart + noiseTerm)) / (1 - loopGain) : base + cdy * (yPart + noiseTerm), z);
       this.v = this.uAct + d;
       y = yPart + this.pd * this.uAct;
     } else {
-      y = this.output(t, z, this.lastV);
-      u = base + c.dy * (y + noiseTerm);
-      this.applyMode(u, z);
+      y = this.g!(t, z, this.p, this.lastV);
+      this.applyMode(base + cdy * (y + noiseTerm), z);
       this.v = this.uAct + d;
       if (this.outputUsesInput) {
-        y = this.output(t, z, this.v);
-        u = base + c.dy * (y + noiseTerm);
-        this.applyMode(u, z);
+        y = this.g!(t, z, this.p, this.v);
+        this.applyMode(base + cdy * (y + noiseTerm), z);
         this.v = this.uAct + d;
       }
       this.lastV = this.v;
@@ -494,20 +503,19 @@ class JointLoop {
         for (let j = 0; j < np; j++) acc += pa[i * np + j] * z[j];
         dz[i] = acc;
       }
-    } else {
-      const model = this.model!;
-      model.system.derivatives(t, z, model.parameters, v, dz);
-    }
+    } else this.f!(t, z, this.p, v, dz);
     // Controller
     const ey = y + noiseTerm;
+    const { ca, cby, cIn } = this;
     for (let i = 0; i < nc; i++) {
-      let acc = c.br[i] * this.dr + c.by[i] * ey;
-      for (let j = 0; j < nc; j++) acc += c.a[i * nc + j] * z[np + j];
+      let acc = cIn[i] + cby[i] * ey;
+      for (let j = 0; j < nc; j++) acc += ca[i * nc + j] * z[np + j];
       dz[np + i] = acc;
     }
-    if (c.integrator >= 0) {
-      if (this.frozen) dz[np + c.integrator] = 0;
-      else if (this.bcGain !== 0) dz[np + c.integrator] += (this.uAct - this.u) * this.bcGain;
+    const integrator = this.c.integrator;
+    if (integrator >= 0) {
+      if (this.frozen) dz[np + integrator] = 0;
+      else if (this.bcGain !== 0) dz[np + integrator] += (this.uAct - this.u) * this.bcGain;
     }
     if (this.ia >= 0) dz[this.ia] = this.ramp * (this.rate === Infinity ? 0 : this.rate);
   }

@@ -9,13 +9,18 @@ import { balanceMatrix } from "../linear-algebra/balance-matrix.js";
  */
 export const RK4_STEP_LIMIT = 1;
 
-/** Most internal steps per grid step (a loop that needs more is simulated with this many). */
-export const MAX_SUBSTEPS = 4096;
+/**
+ * Most internal steps per grid step of the joint loop. A loop that needs more — a derivative filter
+ * or a loop pole more than about 8/dt fast, or θ < dt/8 — is stiff at this dt: simulateLoop runs it
+ * on the grid loop's zero-order-hold scheme instead (stable for any stiffness, first order in dt),
+ * so one such candidate does not cost as much as hundreds of others in a sweep.
+ */
+export const MAX_SUBSTEPS = 8;
 
 /**
  * Number s of equal internal steps h = dt/s per grid step for the joint Runge–Kutta loop:
  *
- *   s = max(1, ⌈dt·ρ / RK4_STEP_LIMIT⌉, ⌈dt/θ⌉ when θ > 0), at most MAX_SUBSTEPS,
+ *   s = max(1, ⌈dt·ρ / RK4_STEP_LIMIT⌉, ⌈dt/θ⌉ when θ > 0)   (compare with MAX_SUBSTEPS),
  *
  * ρ = ‖D⁻¹JD‖∞ of the balanced Jacobian J (an upper bound of the spectral radius that balancing
  * brings close to it; B. N. Parlett and C. Reinsch, Numer. Math. 13, 1969), and h ≤ θ so that every
@@ -35,7 +40,7 @@ export function jointSubsteps(jacobian: Float64Array, n: number, dt: number, del
   }
   let s = 1;
   if (Number.isFinite(rho)) s = Math.max(s, Math.ceil((dt * rho) / RK4_STEP_LIMIT));
-  else s = MAX_SUBSTEPS;
+  else s = Infinity;
   if (delay > 0) s = Math.max(s, Math.ceil(dt / delay - 1e-9));
-  return Math.min(s, MAX_SUBSTEPS);
+  return s;
 }

@@ -10,6 +10,7 @@ import { runExactLoop } from "./exact-loop.js";
 import { runGridLoop } from "./grid-loop.js";
 import { isWellPosedLoop } from "./ill-posed-loop-error.js";
 import { runJointLoop } from "./joint-loop.js";
+import { jointSubsteps, MAX_SUBSTEPS } from "./joint-substeps.js";
 import { divergenceBound } from "./loop-bound.js";
 import type { LoopTrace } from "./loop-trace.js";
 import { resolveScenario } from "./resolve-scenario.js";
@@ -26,11 +27,16 @@ const DEFAULT_ANTI_WINDUP = { kind: "back-calculation" } as const;
  * t → 0⁺: a setpoint step at t = 0 has happened, so u[0] carries the controller's feedthrough
  * (the proportional and filtered-derivative kick).
  *
- * Two methods (see their doc comments):
+ * Three methods (see their doc comments):
  * - the exact closed loop (runExactLoop) for a delay-free linear plant, a continuous controller and
  *   no actuator limits: exact at the grid points;
- * - the grid loop (runGridLoop) otherwise — dead time (split exactly when not a multiple of dt),
- *   actuator limits, a sampled controller, anti-windup, a nonlinear plant (Dormand–Prince 5(4)).
+ * - the joint loop (runJointLoop) for a continuous controller with dead time, actuator limits, a
+ *   nonlinear plant or noisy state feedback: plant and controller as one system, classical RK4 with
+ *   the controller at every stage, dead time read from a cubic Hermite history, switching instants
+ *   located — error O(dt⁴);
+ * - the grid loop (runGridLoop) for a sampled controller (zero-order hold, exact there), and for a
+ *   continuous one whose loop is too stiff at this dt for the joint loop (jointSubsteps > MAX_SUBSTEPS:
+ *   a filter or loop pole faster than about 8/dt, or θ < dt/8) — first order in dt there.
  *
  * Linear plants start from rest (x = 0, y0 = 0). Nonlinear plants start at their operating point
  * (initial, operatingInput), y0 = output there; the setpoint steps from y0 to y0 + Δr and the
@@ -68,11 +74,9 @@ export function simulateLoop(plant: Plant, controller: Controller, scenario: Sce
     trace.y0 = model.y0;
     const bound = divergenceBound(model.initial, [model.y0, model.operatingInput, sc.setpoint, loadSize]);
     const gridPlant = { kind: "nonlinear", model } as const;
-    if (sampled) ok = runGridLoop({ plant: gridPlant, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: 0 }, sc, trace, bound);
-    else {
-      const jacobian = nonlinearLoopJacobian(plant, realization);
-      ok = runJointLoop({ plant: gridPlant, controller: realization, antiWindup, limits, delay: 0, jacobian }, sc, trace, bound);
-    }
+    const substeps = sampled ? Infinity : jointSubsteps(nonlinearLoopJacobian(plant, realization), model.system.stateCount + realization.n, sc.dt, 0);
+    if (substeps <= MAX_SUBSTEPS) ok = runJointLoop({ plant: gridPlant, controller: realization, antiWindup, limits, delay: 0, substeps }, sc, trace, bound);
+    else ok = runGridLoop({ plant: gridPlant, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: 0 }, sc, trace, bound);
     trace.uInfinity = trace.u[samples - 1];
     trace.yInfinity = trace.y[samples - 1];
   } else {
@@ -81,17 +85,13 @@ export function simulateLoop(plant: Plant, controller: Controller, scenario: Sce
     const loop = continuousClosedLoop(model.ss, realization);
     const bound = divergenceBound([sc.setpoint, loadSize]);
     const noisyStateFeedback = realization.kx !== null && sc.noise !== null;
+    const gridPlant = { kind: "linear", ss: model.ss } as const;
     if (model.delay === 0 && !limited && !sampled && !noisyStateFeedback) ok = runExactLoop(loop, sc, trace, bound);
-    else if (sampled) {
-      ok = runGridLoop(
-        { plant: { kind: "linear", ss: model.ss }, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: model.delay },
-        sc,
-        trace,
-        bound,
-      );
-    } else {
+    else {
       const jacobian = model.delay === 0 ? loop.a : blockDiagonal(model.ss.a, model.ss.n, realization.a, realization.n);
-      ok = runJointLoop({ plant: { kind: "linear", ss: model.ss }, controller: realization, antiWindup, limits, delay: model.delay, jacobian }, sc, trace, bound);
+      const substeps = sampled ? Infinity : jointSubsteps(jacobian, loop.nz, sc.dt, model.delay);
+      if (substeps <= MAX_SUBSTEPS) ok = runJointLoop({ plant: gridPlant, controller: realization, antiWindup, limits, delay: model.delay, substeps }, sc, trace, bound);
+      else ok = runGridLoop({ plant: gridPlant, controller: realization, sampleTime: controller.sampleTime, antiWindup, limits, delay: model.delay }, sc, trace, bound);
     }
     const steady = closedLoopSteadyState(loop, [sc.setpoint, loadSize, 0]);
     const outside = limited && ((limits!.min !== undefined && steady.u < limits!.min) || (limits!.max !== undefined && steady.u > limits!.max));
