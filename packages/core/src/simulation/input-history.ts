@@ -17,7 +17,7 @@ const NODE_TOLERANCE = 1e-9;
  * whose error is O(Δ⁴) where u is four times differentiable (C. de Boor, A Practical Guide to
  * Splines, rev. ed., Springer, 2001, ch. IV). Before t = 0 the signal is the operating input u_op.
  * Past the newest node it is extended by its tangent (reached only within rounding of that node,
- * or when θ is shorter than the largest internal step allowed).
+ * as the internal step never exceeds θ).
  *
  * A read that lands on a node (within 1e-9 of its spacing) takes the side of `side` (the
  * midpoint of the piece being integrated, shifted by θ), so a jump at a node is never straddled.
@@ -58,8 +58,15 @@ export class InputHistory {
     return this.newest < 0 ? -Infinity : this.times[this.newest % this.capacity];
   }
 
-  /** Appends a node at t (after the newest) with left and right limits of value and slope. */
+  /**
+   * Appends a node at t (after the newest) with left and right limits of value and slope; a node
+   * within rounding of the newest one only replaces that node's right limit (no empty interval).
+   */
   push(t: number, left: number, leftSlope: number, right: number, rightSlope: number): void {
+    if (this.newest >= 0 && t - this.times[this.newest % this.capacity] <= NODE_TOLERANCE * Math.max(1, Math.abs(t))) {
+      this.setNewestRight(right, rightSlope);
+      return;
+    }
     const limit = t - this.reach;
     while (this.oldest < this.newest && this.times[(this.oldest + 1) % this.capacity] <= limit) this.oldest++;
     if (this.newest + 1 - this.oldest >= this.capacity) this.grow();
