@@ -22,9 +22,13 @@ const GRID_ALIGNMENT_TOLERANCE = 1e-9;
  *
  * At t = θ exactly, the sample holds the right limit y(θ⁺) = D (the input has just switched on).
  *
- * State-space plants have no dead time. Nonlinear plants: the input steps from the operating input
- * u_op to u_op + 1 at t = 0 from the initial state, integrated by Dormand–Prince 5(4); y is returned
- * as the change y(t) − y0 from the operating-point output (so all kinds read as a unit step response).
+ * State-space plants have no dead time. Nonlinear plants: the demand steps from the operating input
+ * u_op to u_op + 1 at t = 0 from the initial state and passes the plant's actuator limits — the
+ * input is u_op + 1 saturated to [min, max], reached from u_op at the rate limit (a ramp of slope
+ * ±rate) — integrated by Dormand–Prince 5(4) with the step split where the ramp ends; y is returned
+ * as the change y(t) − y0 from the operating-point output (so all kinds read as a unit step
+ * response). A nonlinear model is only meaningful within its actuator's range, so its step
+ * respects it; a linear model's step is its transfer characteristic and ignores the limits.
  *
  * horizon: final time [s] > 0; dt: step [s] > 0. Throws a RangeError naming the bad argument.
  * Reference: K. J. Åström and B. Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, §2.3–2.4
@@ -71,11 +75,24 @@ function nonlinearStep(plant: NonlinearPlant, horizon: number, dt: number): { t:
   const t = timeGrid(horizon, dt);
   const y = new Float64Array(t.length);
   const x = Float64Array.from(model.initial);
-  const u = model.operatingInput + 1;
+  const uOp = model.operatingInput;
+  // The actuator: the demand u_op + 1 saturated to [min, max], reached at the rate limit from u_op.
+  const limits = plant.actuator;
+  const target = Math.min(Math.max(uOp + 1, limits?.min ?? -Infinity), limits?.max ?? Infinity);
+  const rate = limits?.rate ?? Infinity;
+  const slope = target === uOp ? 0 : Math.sign(target - uOp) * rate;
+  const rampEnd = slope === 0 || rate === Infinity ? 0 : Math.abs(target - uOp) / rate;
+  const input = (time: number): number => (time >= rampEnd ? target : uOp + slope * time);
   const solver = new DormandPrince(model.system, model.parameters);
   for (let k = 0; k < t.length; k++) {
-    y[k] = model.system.output(t[k], x, model.parameters, u) - model.y0;
-    if (k + 1 < t.length && !solver.advance(x, t[k], t[k + 1], u)) {
+    y[k] = model.system.output(t[k], x, model.parameters, input(t[k])) - model.y0;
+    if (k + 1 === t.length) break;
+    // Split the step where the ramp ends, so each piece has a smooth input.
+    let ok = true;
+    if (t[k] < rampEnd && rampEnd < t[k + 1]) {
+      ok = solver.advance(x, t[k], rampEnd, input(t[k]), slope) && solver.advance(x, rampEnd, t[k + 1], target);
+    } else ok = solver.advance(x, t[k], t[k + 1], input(t[k]), t[k] < rampEnd ? slope : 0);
+    if (!ok) {
       y.fill(NaN, k + 1);
       break;
     }

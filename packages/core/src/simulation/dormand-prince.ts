@@ -71,16 +71,17 @@ export class DormandPrince {
   }
 
   /**
-   * Integrates x from t0 to t1 > t0 in place with the input held at u. Returns false when the
-   * state became non-finite or the step size collapsed (the caller reports divergence).
+   * Integrates x from t0 to t1 > t0 in place with the input u(t) = u + uRate·(t − t0) (held at u
+   * when uRate is 0, the default; a ramp of an actuator's rate limit otherwise). Returns false when
+   * the state became non-finite or the step size collapsed (the caller reports divergence).
    */
-  advance(x: Float64Array, t0: number, t1: number, u: number): boolean {
+  advance(x: Float64Array, t0: number, t1: number, u0: number, uRate = 0): boolean {
     const { n, system, parameters, k1, k2, k3, k4, k5, k6, k7, stage, next } = this;
     const { rtol, atol } = this.tolerance;
     const f = system.derivatives;
     let t = t0;
     let h = this.h > 0 ? this.h : (t1 - t0);
-    f(t, x, parameters, u, k1);
+    f(t, x, parameters, u0, k1);
     this.evaluations++;
     for (let attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
       const remaining = t1 - t;
@@ -88,17 +89,17 @@ export class DormandPrince {
       const last = h >= remaining;
       const step = last ? remaining : h;
       for (let i = 0; i < n; i++) stage[i] = x[i] + step * A21 * k1[i];
-      f(t + C2 * step, stage, parameters, u, k2);
+      f(t + C2 * step, stage, parameters, u0 + uRate * (t + C2 * step - t0), k2);
       for (let i = 0; i < n; i++) stage[i] = x[i] + step * (A31 * k1[i] + A32 * k2[i]);
-      f(t + C3 * step, stage, parameters, u, k3);
+      f(t + C3 * step, stage, parameters, u0 + uRate * (t + C3 * step - t0), k3);
       for (let i = 0; i < n; i++) stage[i] = x[i] + step * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
-      f(t + C4 * step, stage, parameters, u, k4);
+      f(t + C4 * step, stage, parameters, u0 + uRate * (t + C4 * step - t0), k4);
       for (let i = 0; i < n; i++) stage[i] = x[i] + step * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
-      f(t + C5 * step, stage, parameters, u, k5);
+      f(t + C5 * step, stage, parameters, u0 + uRate * (t + C5 * step - t0), k5);
       for (let i = 0; i < n; i++) stage[i] = x[i] + step * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
-      f(t + step, stage, parameters, u, k6);
+      f(t + step, stage, parameters, u0 + uRate * (t + step - t0), k6);
       for (let i = 0; i < n; i++) next[i] = x[i] + step * (B1 * k1[i] + B3 * k3[i] + B4 * k4[i] + B5 * k5[i] + B6 * k6[i]);
-      f(t + step, next, parameters, u, k7);
+      f(t + step, next, parameters, u0 + uRate * (t + step - t0), k7);
       this.evaluations += 6;
       let err = 0;
       for (let i = 0; i < n; i++) {

@@ -8,6 +8,7 @@ import { DormandPrince } from "./dormand-prince.js";
 import { gaussianNoise } from "./gaussian-noise.js";
 import type { LoopTrace } from "./loop-trace.js";
 import type { ResolvedScenario } from "./resolve-scenario.js";
+import { stateNoise } from "./state-noise.js";
 
 /** Relative tolerance within which a time counts as lying on the grid. */
 const GRID_TOLERANCE = 1e-9;
@@ -19,7 +20,7 @@ export type GridPlant = { kind: "linear"; ss: SisoStateSpace } | { kind: "nonlin
 export interface GridLoopConfig {
   plant: GridPlant;
   controller: ControllerRealization;
-  /** Controller sample time [s]; undefined for a continuous controller (updated every dt). */
+  /** Controller sample time [s]; undefined: updated every dt by ZOH (first order; simulateLoop uses runJointLoop instead). */
   sampleTime: number | undefined;
   antiWindup: AntiWindup;
   limits: ActuatorLimits | undefined;
@@ -28,19 +29,22 @@ export interface GridLoopConfig {
 }
 
 /**
- * The loop on the grid t_k = k·dt, for every case the exact closed loop does not cover (dead time,
- * actuator limits, a sampled controller, a nonlinear plant). Per step k:
+ * The loop of a sampled controller (zero-order hold) on the grid t_k = k·dt, with any plant, dead
+ * time, actuator limits and noise. Between controller updates the plant input is piecewise
+ * constant, so the plant is advanced exactly for its held input (linear: ZOH discretisation;
+ * nonlinear: Dormand–Prince 5(4) at tight tolerance) — so the sampled loop is exact up to that integrator's
+ * tolerance at any dt. (Continuous controllers with a nonlinear
+ * plant, limits or dead time run on the joint loop, runJointLoop.) Per step k:
  *
  * 1. y_k from the plant state and its input at t_k⁺ (a plant with D ≠ 0 and no dead time closes
  *    the algebraic loop through D before the limits are applied; a nonlinear output that depends on
  *    u sees the input of the previous step);
- * 2. at controller updates only — every step for a continuous controller, otherwise the grid step
- *    nearest each multiple j·Ts of the sample time, round(j·Ts/dt) — the controller output
- *    u = u_op + C_c x_c + D_r Δr + D_y (y + n − y0) + K_x (x − x_init), then saturation to
- *    [min, max] and the rate limit (the held value moves by at most rate·h per update of period h),
- *    then the controller state by its exact ZOH discretisation at h = Ts (sampled) or h = dt
- *    (continuous: an approximation of the continuous controller with error O(dt), since it sees y
- *    held over each step); between updates u is held;
+ * 2. at controller updates only — the grid step nearest each multiple j·Ts of the sample time,
+ *    round(j·Ts/dt) (every step when no sample time is given) — the controller output
+ *    u = u_op + C_c x_c + D_r Δr + D_y (y + n − y0) + K_x (x − x_init + n_x) (n_x: stateNoise),
+ *    then saturation to [min, max] and the rate limit (the held value moves by at most rate·h per
+ *    update of period h), then the controller state by its exact ZOH discretisation at h = Ts;
+ *    between updates u is held;
  * 3. anti-windup on the integral state x_i when the actuator limits: back-calculation adds
  *    (u_act − u)/(ki·Tt) to x_i' (Åström & Murray, Feedback Systems, 2008, §10.4; Åström &
  *    Hägglund, Advanced PID Control, 2006, §3.5), conditional integration keeps x_i when the
@@ -145,6 +149,7 @@ export function runGridLoop(config: GridLoopConfig, sc: ResolvedScenario, trace:
   const integrator = nonlinear ? new DormandPrince(nonlinear.system, nonlinear.parameters) : null;
 
   const noise = sc.noise ? gaussianNoise(sc.noise.seed, sc.noise.sd, samples) : null;
+  const noiseX = sc.noise && c.kx ? stateNoise(sc.noise, np, samples) : null;
   const hist = new Float64Array(samples);
   const x = Float64Array.from(xInit);
   const xNext = new Float64Array(np);
@@ -183,7 +188,7 @@ export function runGridLoop(config: GridLoopConfig, sc: ResolvedScenario, trace:
     if (update) {
       let base = uOp + c.dr * dr;
       for (let j = 0; j < nc; j++) base += c.c[j] * xc[j];
-      if (c.kx) for (let j = 0; j < np; j++) base += c.kx[j] * (x[j] - xInit[j]);
+      if (c.kx) for (let j = 0; j < np; j++) base += c.kx[j] * (x[j] - xInit[j] + (noiseX ? noiseX[j][k] : 0));
       if (yFedBack) uUnsat = (base + c.dy * (yPart + n - y0)) / (1 - c.dy * dFeed);
       else uUnsat = base + c.dy * (yPart + n - y0);
       let target = uUnsat < lo ? lo : uUnsat > hi ? hi : uUnsat;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { openLoopStep } from "../../src/plants/open-loop-step.js";
+import type { NonlinearPlant } from "../../src/plants/nonlinear.js";
 import type { TransferFunctionPlant } from "../../src/plants/transfer-function.js";
 import { expectClose } from "../support/expect-close.js";
 
@@ -33,6 +34,27 @@ describe("openLoopStep", () => {
     for (let k = 0; k < t.length; k++) {
       const expected = t[k] < theta ? 0 : 1 - Math.exp(-(t[k] - theta) / tau);
       expectClose(y[k], expected, 1e-13);
+    }
+  });
+
+  it("openLoopStep of a nonlinear plant passes its actuator's saturation: x' = −x + u with u ≤ 0.5 gives 0.5(1 − e^(−t))", () => {
+    // Closed form: the demand u_op + 1 = 1 is saturated to 0.5, so x' = −x + 0.5 from 0.
+    const plant: NonlinearPlant = { kind: "nonlinear", states: ["x"], parameters: {}, derivatives: ["-x + u"], output: "x", initial: [0], actuator: { max: 0.5 } };
+    const { t, y } = openLoopStep(plant, 5, 0.1);
+    for (let k = 0; k < t.length; k++) expectClose(y[k], 0.5 * (1 - Math.exp(-t[k])), 1e-7);
+  });
+
+  it("openLoopStep of a nonlinear plant passes its actuator's rate limit: the input ramps at 0.4/s to 1", () => {
+    // Closed form: x' = −x + u with u = R·t (R = 0.4) until t_r = 2.5 s (not on the grid of 0.3 s), then 1:
+    // x = R(t − 1 + e^(−t)) for t ≤ t_r; after it x = 1 + (x(t_r) − 1)·e^(−(t − t_r)).
+    const R = 0.4;
+    const plant: NonlinearPlant = { kind: "nonlinear", states: ["x"], parameters: {}, derivatives: ["-x + u"], output: "x", initial: [0], actuator: { rate: R } };
+    const { t, y } = openLoopStep(plant, 8, 0.3);
+    const tr = 1 / R;
+    const xr = R * (tr - 1 + Math.exp(-tr));
+    for (let k = 0; k < t.length; k++) {
+      const expected = t[k] <= tr ? R * (t[k] - 1 + Math.exp(-t[k])) : 1 + (xr - 1) * Math.exp(-(t[k] - tr));
+      expectClose(y[k], expected, 1e-7);
     }
   });
 

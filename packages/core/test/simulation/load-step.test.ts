@@ -29,8 +29,10 @@ describe("load step at the plant input", () => {
   it("simulateLoop: the grid path (dead time 0.5 s) gives the delayed closed form for a P loop's load response", () => {
     // Reference: with a pure delay θ in front of G = 1/(s + 1) and no controller action (kp = 0), the
     // plant sees the load after θ: y = 1 − e^(−(t − θ)) for t ≥ θ (closed form, first-order step).
+    // Sampled at dt, the controller takes the grid path, exact for held inputs (the continuous
+    // controller's joint Runge–Kutta path is checked in joint-loop.test.ts).
     const plant: TransferFunctionPlant = { kind: "transfer-function", num: [1], den: [1, 1], delay: 0.5 };
-    const trace = simulateLoop(plant, { kind: "p", kp: 0 }, { kind: "load-step", horizon: 5, dt: 0.01 });
+    const trace = simulateLoop(plant, { kind: "p", kp: 0, sampleTime: 0.01 }, { kind: "load-step", horizon: 5, dt: 0.01 });
     for (let k = 0; k < trace.t.length; k++) {
       const s = trace.t[k] - 0.5;
       expectClose(trace.y[k], s >= 0 ? 1 - Math.exp(-s) : 0, 1e-12);

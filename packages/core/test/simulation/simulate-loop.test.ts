@@ -57,10 +57,12 @@ describe("simulateLoop", () => {
 
   it("with dead time, the first dead-time interval follows the method of steps", () => {
     // Closed form: G = e^(−θs)/(τs + 1), C = K. For t < θ, y = 0, so u = K; for θ ≤ t ≤ 2θ the plant
-    // sees u = K from t − θ on: y = K(1 − e^(−(t−θ)/τ)). θ is a whole number of steps here, so the
-    // delay line is exact and ZOH of a constant input is exact.
+    // sees u = K from t − θ on: y = K(1 − e^(−(t−θ)/τ)). Sampled at dt, the P controller takes the grid
+    // path; θ is a whole number of steps, so the delay line is exact and ZOH of a constant input is
+    // exact (over [0, 2θ] the sampled and the continuous P controller give the same u = K; the
+    // continuous path is checked against the method of steps in joint-loop.test.ts).
     const [theta, tau, K, dt] = [1, 2, 0.8, 0.01];
-    const trace = simulateLoop(tf([1], [tau, 1], theta), p(K), step(10, dt));
+    const trace = simulateLoop(tf([1], [tau, 1], theta), { ...p(K), sampleTime: dt }, step(10, dt));
     const d = Math.round(theta / dt);
     for (let k = 0; k < d; k++) {
       expect(trace.y[k]).toBe(0);

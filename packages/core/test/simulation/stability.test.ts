@@ -83,15 +83,13 @@ describe("stability verdict", () => {
   });
 
   it("evaluateCandidate calls a candidate diverged when its simulated trace leaves the bound", () => {
-    // e^(−0.06s)/(s + 1) under kp = 20: the Padé verdict is stable (closed form as above: the
-    // ultimate gain √(1 + ω²) with 0.06ω + atan ω = π is ≈ 27). On the coarse grid dt = 0.1 the delay rounds up to one
-    // step and the sampled loop x⁺ = e^(−0.1)x + (1 − e^(−0.1))·20(1 − x₋₁) has characteristic
-    // polynomial z² − 0.905z + 1.90 (Jury: |a₀| = 1.90 > 1, unstable), growing ×1.38 per step until
-    // it leaves the divergence bound; the candidate must then be "diverged" with null scores, not ranked.
-    // (The loop simulates the 0.06 s delay exactly on the grid; the controller still holds e over dt.)
-    const plant: TransferFunctionPlant = { kind: "transfer-function", num: [1], den: [1, 1], delay: 0.06 };
-    expect(isStable(closedLoopPoles(plant, p(20)))).toBe(true);
-    const result = evaluateCandidate(plant, p(20), { kind: "setpoint-step", horizon: 300, dt: 0.1 }, ["iae"]);
+    // 1/(s − 1) under kp = 3 with the actuator limited to [−1, 1]: the verdict ignores the limits and
+    // sees s − 1 + 3 = s + 2 (stable). But once x > 1 the plant needs u < −1 to turn back: u = 3(1 − x)
+    // reaches −1 at x = 4/3, from there x' = x − 1 > 0, so x − 1 grows as e^t (closed form) until it
+    // leaves the divergence bound; the candidate must then be "diverged" with null scores, not ranked.
+    const plant: TransferFunctionPlant = { kind: "transfer-function", num: [1], den: [1, -1], delay: 0, actuator: { min: -1, max: 1 } };
+    expect(isStable(closedLoopPoles(plant, p(3)))).toBe(true);
+    const result = evaluateCandidate(plant, p(3), { kind: "setpoint-step", horizon: 30, dt: 0.01 }, ["iae"]);
     expect(result.status).toBe("diverged");
     expect(result.scores).toBeNull();
   });
