@@ -63,11 +63,9 @@ const FAMILY: { name: string; plant: Plant }[] = [
 }));
 
 const DEFINITION = comparisonDefinitionSchema.parse({
-  structure: {
-    kind: "pid",
-    tunable: { kp: { min: 0.2, max: 5, scale: "log" }, ki: { min: 0.05, max: 2, scale: "log" }, kd: { min: 0.05, max: 3, scale: "log" } },
-    filter: { mode: "ratio", n: 10 },
-  },
+  structure: "pid",
+  ranges: { kp: { min: 0.2, max: 5, scale: "log" }, ki: { min: 0.05, max: 2, scale: "log" }, kd: { min: 0.05, max: 3, scale: "log" } },
+  filter: { mode: "ratio", n: 10 },
   scenario: { kind: "setpoint-step", horizon: 30, dt: 0.01 },
   aggregate: { kind: "worst" },
   contenders: ["iae", "itae", { criterion: "quadratic", r: 0.1, label: "J(r=0.1)" }, { criterion: "quadratic", r: 1, label: "J(r=1)" }],

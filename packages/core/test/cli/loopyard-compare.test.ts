@@ -11,8 +11,9 @@ beforeAll(() => ensureDist(), 200_000);
 
 /** PI on 1/(s+1) with exact (infinite-horizon) costs: small enough for a quick run. */
 const SPEC = {
-  family: [{ name: "plate", plant: { kind: "transfer-function", num: [1], den: [1, 1], delay: 0 } }],
-  structure: { kind: "pi", tunable: { kp: { min: 0.1, max: 10, scale: "log" }, ki: { min: 0.1, max: 10, scale: "log" } } },
+  family: { variants: [{ label: "plate", plant: { kind: "transfer-function", num: [1], den: [1, 1], delay: 0 } }] },
+  structure: "pi",
+  ranges: { kp: { min: 0.1, max: 10, scale: "log" }, ki: { min: 0.1, max: 10, scale: "log" } },
   scenario: { kind: "setpoint-step", horizon: 20, dt: 0.01 },
   criterionOptions: { horizon: "infinite" },
   aggregate: { kind: "worst" },
@@ -73,9 +74,10 @@ describe("loopyard compare", () => {
     [{ constraints: { margin: { max: 2 } } }, "constraints.margin"],
     [{ constraints: { ms: { below: 2 } } }, "constraints.ms"],
     [{ contenders: [{ criterion: "quadratic", r: -1, label: "bad" }] }, "contenders[0]"],
-    [{ structure: { kind: "pi", tunable: { kp: { min: 1, max: 1 }, ki: { min: 0.1, max: 1 } } } }, "structure.tunable.kp.max"],
+    [{ ranges: { kp: { min: 1, max: 1 }, ki: { min: 0.1, max: 1 } } }, "ranges.kp.max"],
+    [{ ranges: { kp: { min: 0.1, max: 1 }, kd: { min: 0.1, max: 1 } } }, "ranges.kd"],
     [{ budget: { prescan: 4 } }, "budget.prescan"],
-    [{ family: [] }, "family"],
+    [{ family: { variants: [] } }, "family.variants"],
   ])("loopyard compare refuses %j with one sentence naming %s (exit code 2)", async (change, field) => {
     const run = await loopyard(["compare", "-"], JSON.stringify({ ...SPEC, ...change }));
     expect(run.code).toBe(2);
