@@ -384,7 +384,18 @@ export { kendallTau, kendallTauMatrix } from "./comparison/kendall-tau.js";
 export { ACTIVE_CONSTRAINT_FRACTION, comparisonSummary } from "./comparison/comparison-summary.js";
 export { analyseComparison } from "./comparison/analyse-comparison.js";
 export { DEFAULT_PRESCAN_CHUNK, evaluateInProcess, runComparison } from "./comparison/run-comparison.js";
-export { comparisonSetup, evaluateVectors, vectorsBatch } from "./comparison/sweep-adapter.js";
+export {
+  checkComparisonSweepFields,
+  comparisonAggregateSchema,
+  comparisonFamilySchema,
+  comparisonSetup,
+  comparisonSweepFields,
+  designVectors,
+  evaluateVectors,
+  familyVariants,
+  vectorsBatch,
+  withComparisonDefaults,
+} from "./comparison/sweep-adapter.js";
 export type {
   ComparisonBudget,
   ComparisonDefinition,
@@ -404,4 +415,4 @@ export type { Agreement } from "./comparison/comparison-agreement.js";
 export type { PrescanCounts } from "./comparison/comparison-summary.js";
 export type { ComparisonAnalysis, PickVariants } from "./comparison/analyse-comparison.js";
 export type { ComparisonEvaluator, ComparisonPhase, RunComparisonOptions } from "./comparison/run-comparison.js";
-export type { ComparisonSetup, ComparisonVariant } from "./comparison/sweep-adapter.js";
+export type { ComparisonFamilySpec, ComparisonSetup, ComparisonSweepFields, ComparisonVariant } from "./comparison/sweep-adapter.js";

@@ -110,7 +110,7 @@ export function createPickRefinement(plan: ComparisonPlan, k: number, starts: Fl
       fTolerance: Number.isFinite(scale) ? REFINE_F_TOLERANCE * scale : 0,
     });
   });
-  let pending: { counts: number[] } | { final: Float64Array } | null = null;
+  let pending: { counts: number[] } | { final: Float64Array; start: number } | null = null;
   let pick: ComparisonPick | null = s === 0 ? missingPick(plan, column.key, noStartReason(plan)) : null;
   let spent = 0;
 
@@ -150,14 +150,14 @@ export function createPickRefinement(plan: ComparisonPlan, k: number, starts: Fl
         return null;
       }
       const final = boxValues(plan.space, simplexes[best].best.x);
-      pending = { final };
+      pending = { final, start: best };
       return { setup: plan.setup, vectors: final, criteria: plan.criteria };
     },
     tell(batch: BatchResult) {
       if (pending === null) throw new Error("tell: call ask() first");
       if ("final" in pending) {
         spent += 1;
-        const converged = simplexes.some((x) => x.result().converged);
+        const converged = simplexes[pending.start].result().converged;
         pick = scorePick(plan, column.key, pending.final, batch, { evaluations: spent, converged });
         pending = null;
         return;
