@@ -5,6 +5,7 @@ import { EXIT_BAD_INPUT, EXIT_OK, EXIT_UNEXPECTED, isCliInputError } from "./cli
 import { baselinesCommand } from "./baselines-command.js";
 import { boundCommand } from "./bound-command.js";
 import { evaluateCommand } from "./evaluate-command.js";
+import { identifyCommand } from "./identify-command.js";
 import { parseArguments, USAGE } from "./parse-arguments.js";
 import { sweepCommand } from "./sweep-command.js";
 
@@ -16,6 +17,10 @@ process.stdout.on("error", (error: NodeJS.ErrnoException) => {
 
 async function main(argv: readonly string[]): Promise<number> {
   try {
+    if (argv[0] === "identify") {
+      process.stdout.write(`${await identifyCommand(argv.slice(1))}\n`);
+      return EXIT_OK;
+    }
     const parsed = parseArguments(argv, availableParallelism());
     if (parsed.command === "help") {
       process.stdout.write(`${USAGE}\n`);
