@@ -296,3 +296,42 @@ export type { SeriesGains, SimcTuning } from "./tuning/simc.js";
 export type { LambdaTuning } from "./tuning/lambda-imc.js";
 export type { Baseline, BaselineModel, BaselineOptions, BaselineRule, BaselineVariant } from "./tuning/baselines.js";
 export type { ScoredBaseline, ScoreBaselinesOptions } from "./tuning/score-baselines.js";
+
+// Step-test identification (identification/): read a CSV/TSV step test, fit FOPDT, SOPDT or IPDT.
+export { StepTestFileError, isStepTestFileError } from "./identification/step-test-file-error.js";
+export { MAX_STEP_TEST_ROWS, parseStepTestTable, cellNumber } from "./identification/parse-step-test-table.js";
+export { MIN_STEP_TEST_ROWS, TIME_UNITS, readStepTest } from "./identification/read-step-test.js";
+export { prepareStepTest } from "./identification/prepare-step-test.js";
+export { SMITH_HIGH_FRACTION, SMITH_LOW_FRACTION, SMITH_TAU_FACTOR, twoPointEstimate } from "./identification/two-point-estimate.js";
+export { rampEstimate } from "./identification/ramp-estimate.js";
+export { FOPDT, IPDT, SOPDT, STEP_MODELS, STEP_MODEL_KINDS } from "./identification/step-model.js";
+export { studentTQuantile } from "./identification/student-t-quantile.js";
+export { CONFIDENCE_LEVEL, MAX_SEARCH_SAMPLES, fitStepModel } from "./identification/fit-step-model.js";
+export { identifyStepTest } from "./identification/identify-step-test.js";
+export type { StepTestTable } from "./identification/parse-step-test-table.js";
+export type { StepTest, StepTestColumn, StepTestColumnInfo, StepTestReadOptions, TimeUnit } from "./identification/read-step-test.js";
+export type { PreparedStepTest, StepTestPrepareOptions } from "./identification/prepare-step-test.js";
+export type { TwoPointEstimate } from "./identification/two-point-estimate.js";
+export type { RampEstimate } from "./identification/ramp-estimate.js";
+export type { IdentifiedTransferFunction, StepModel, StepModelKind } from "./identification/step-model.js";
+export type { StepModelFit } from "./identification/fit-step-model.js";
+export type { Identification, IdentifyOptions } from "./identification/identify-step-test.js";
+
+// Deployment sheet numerics (deployment/): PID forms, difference equations, fixed point, sampled loop.
+export { continuousController, deployablePid } from "./deployment/deployable-pid.js";
+export { pidForms } from "./deployment/pid-forms.js";
+export { DISCRETE_PID_COEFFICIENTS, DISCRETIZATION_METHODS } from "./deployment/discrete-pid.js";
+export { discretizePid } from "./deployment/discretize-pid.js";
+export { DISCRETE_PID_MEMORY, advanceDiscretePid, initialDiscretePidState, packDiscretePidState, stepDiscretePid } from "./deployment/step-discrete-pid.js";
+export { FIXED_POINT_FORMATS, roundToFixedPoint } from "./deployment/fixed-point.js";
+export { simulateSampledLoop } from "./deployment/simulate-sampled-loop.js";
+export { deploymentSheet } from "./deployment/deployment-sheet.js";
+export { sampledCriteria } from "./deployment/sampled-criteria.js";
+export type { DeployablePid } from "./deployment/deployable-pid.js";
+export type { PidForm, PidForms, SeriesPidParameters } from "./deployment/pid-forms.js";
+export type { DiscretePid, DiscretePidCoefficients, DiscretizationMethod } from "./deployment/discrete-pid.js";
+export type { DiscretizePidOptions } from "./deployment/discretize-pid.js";
+export type { DiscretePidState, DiscretePidStep } from "./deployment/step-discrete-pid.js";
+export type { FixedPointCoefficient, FixedPointFormat, FixedPointOptions, FixedPointReport, FixedPointScaling } from "./deployment/fixed-point.js";
+export type { DeploymentSheet, DeploymentSheetOptions } from "./deployment/deployment-sheet.js";
+export type { SampledCriteria, SampledScores } from "./deployment/sampled-criteria.js";

@@ -27,6 +27,8 @@ export interface PreparedStepTest {
   y0: number;
   /** Index of the first sample at the new input level. */
   stepIndex: number;
+  /** The offset option used: with "initial" the fit also estimates a correction of y0. */
+  offset: "initial" | "none";
   /** File lines (1-based) of the kept samples. */
   lines: Int32Array;
 }
@@ -92,7 +94,7 @@ export function prepareStepTest(test: StepTest, options: StepTestPrepareOptions 
   const y0 = offset === "initial" ? mean(yRaw, 0, s) : 0;
   const y = new Float64Array(count);
   for (let k = 0; k < count; k++) y[k] = yRaw[k] - y0;
-  return { t, y, stepTime: t[s], stepSize, u0, y0, stepIndex: s, lines };
+  return { t, y, stepTime: t[s], stepSize, u0, y0, stepIndex: s, offset, lines };
 }
 
 function mean(v: Float64Array, from: number, to: number): number {

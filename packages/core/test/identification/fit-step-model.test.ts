@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { fitStepModel } from "../../src/identification/fit-step-model.js";
+import { fitStepModel, MAX_SEARCH_SAMPLES } from "../../src/identification/fit-step-model.js";
 import { identifyStepTest } from "../../src/identification/identify-step-test.js";
 import { prepareStepTest } from "../../src/identification/prepare-step-test.js";
 import { readStepTest } from "../../src/identification/read-step-test.js";
@@ -57,16 +57,39 @@ describe("fitStepModel on synthetic step tests", () => {
     });
   }
 
-  it("the 95 % intervals of the FOPDT fit cover the truth in about 95 % of 40 seeded tests", () => {
+  it("the 95 % intervals of the FOPDT fit cover the truth in about 95 % of 40 seeded tests, for k, τ and θ", () => {
     // Coverage of a 95 % interval (Bates & Watts 1988, §2.3): over 40 independent noise draws the
-    // count covering the true τ is Binomial(40, 0.95): mean 38, sd 1.4; fewer than 34 (3 sd) fails.
-    let covered = 0;
+    // count covering a true parameter is Binomial(40, 0.95): mean 38, sd 1.4; fewer than 34 (3 sd) fails.
+    // k depends on the initial level, estimated from the 20 samples before the step: the fitted
+    // correction δ carries that uncertainty into its interval.
+    const covered: Record<string, number> = { k: 0, tau: 0, theta: 0 };
     for (let seed = 100; seed < 140; seed++) {
       const { fit } = identifyStepTest(stepCsv({ ...CASES[0].data, seed }), { model: "fopdt" });
       if (!fit.ok) throw new Error(fit.reason);
-      if (fit.intervals.tau[0] < FOPDT_TRUE.tau && FOPDT_TRUE.tau < fit.intervals.tau[1]) covered++;
+      for (const name of Object.keys(covered)) {
+        const value = FOPDT_TRUE[name as keyof typeof FOPDT_TRUE];
+        if (fit.intervals[name][0] < value && value < fit.intervals[name][1]) covered[name]++;
+      }
     }
-    expect(covered).toBeGreaterThanOrEqual(34);
+    for (const name of Object.keys(covered)) expect(covered[name], name).toBeGreaterThanOrEqual(34);
+  });
+
+  it("fitStepModel on a test longer than MAX_SEARCH_SAMPLES searches a subset, refines on all samples and still recovers the truth", () => {
+    // 8001 samples (h = 0.02 s) > MAX_SEARCH_SAMPLES = 4000: the Gauss–Newton refinement on every sample must
+    // reach the noise-free optimum (the true parameters) as the full search does.
+    expect(MAX_SEARCH_SAMPLES).toBeLessThan(8001);
+    const { fit } = identifyStepTest(stepCsv({ ...CASES[0].data, h: 0.02, sd: 0 }), { model: "fopdt" });
+    if (!fit.ok) throw new Error(fit.reason);
+    for (const [name, value] of Object.entries(FOPDT_TRUE)) expectClose(fit.parameters[name], value, 0, 1e-4);
+    // With noise, the 95 % intervals of all 8001 samples still bracket the truth.
+    const noisy = identifyStepTest(stepCsv({ ...CASES[0].data, h: 0.02, seed: 11 }), { model: "fopdt" }).fit;
+    if (!noisy.ok) throw new Error(noisy.reason);
+    // Degrees of freedom n − q: k, τ, θ and the initial-level correction δ.
+    expect(noisy.dof).toBe(8001 - 4);
+    for (const [name, value] of Object.entries(FOPDT_TRUE)) {
+      expect(noisy.intervals[name][0]).toBeLessThan(value);
+      expect(noisy.intervals[name][1]).toBeGreaterThan(value);
+    }
   });
 
   it("the fitted model is a transfer function with the fitted parameters", () => {
