@@ -326,6 +326,7 @@ export { DISCRETE_PID_MEMORY, advanceDiscretePid, initialDiscretePidState, packD
 export { FIXED_POINT_FORMATS, roundToFixedPoint } from "./deployment/fixed-point.js";
 export { simulateSampledLoop } from "./deployment/simulate-sampled-loop.js";
 export { deploymentSheet } from "./deployment/deployment-sheet.js";
+export { differenceEquations } from "./deployment/difference-equations.js";
 export { sampledCriteria } from "./deployment/sampled-criteria.js";
 export type { DeployablePid } from "./deployment/deployable-pid.js";
 export type { PidForm, PidForms, SeriesPidParameters } from "./deployment/pid-forms.js";
