@@ -92,6 +92,30 @@ describe("fitStepModel on synthetic step tests", () => {
     }
   });
 
+  it("fitStepModel handles a downward input step between samples, the time column in minutes and a trimmed window", () => {
+    // FOPDT with Δu = −15 at t = 10.2 s, sampled every 0.5 s: the first sample at the new level is at
+    // 10.5 s, so the model's step comes 0.3 s late and the fitted θ is the true θ − 0.3 s (exact data).
+    const minutes = (s: number) => s / 60;
+    const n = 321;
+    const lines = ["t_min;valve;temperature"];
+    for (let j = 0; j < n; j++) {
+      const t = j * 0.5;
+      const u = t >= 10.2 ? 5 : 20;
+      const dy = t - 10.2 > FOPDT_TRUE.theta ? FOPDT_TRUE.k * -15 * (1 - Math.exp(-(t - 10.2 - FOPDT_TRUE.theta) / FOPDT_TRUE.tau)) : 0;
+      lines.push([minutes(t), u, 70 + dy].map((v) => String(v).replace(".", ",")).join(";"));
+    }
+    const { fit, test } = identifyStepTest(lines.join("\n"), { model: "fopdt", timeUnit: "min", trim: { from: 2, to: 150 } });
+    if (!fit.ok) throw new Error(fit.reason);
+    expect(test.units.time).toBe("min");
+    expectClose(fit.stepTime, 10.5, 1e-12);
+    expectClose(fit.stepSize, -15, 1e-12);
+    expectClose(fit.parameters.k, FOPDT_TRUE.k, 0, 1e-4);
+    expectClose(fit.parameters.tau, FOPDT_TRUE.tau, 0, 1e-4);
+    expectClose(fit.parameters.theta, FOPDT_TRUE.theta - 0.3, 0, 1e-4);
+    expectClose(fit.y0, 70, 1e-9);
+    expectClose(fit.t[0], 2, 1e-12);
+  });
+
   it("the fitted model is a transfer function with the fitted parameters", () => {
     const { fit } = identifyStepTest(stepCsv({ ...CASES[1].data, sd: 0 }), { model: "sopdt" });
     if (!fit.ok) throw new Error(fit.reason);
