@@ -5,7 +5,6 @@ import { EXIT_BAD_INPUT, EXIT_OK, EXIT_UNEXPECTED, isCliInputError } from "./cli
 import { baselinesCommand } from "./baselines-command.js";
 import { boundCommand } from "./bound-command.js";
 import { evaluateCommand } from "./evaluate-command.js";
-import { identifyCommand } from "./identify-command.js";
 import { parseArguments, USAGE } from "./parse-arguments.js";
 import { sweepCommand } from "./sweep-command.js";
 
@@ -18,6 +17,8 @@ process.stdout.on("error", (error: NodeJS.ErrnoException) => {
 async function main(argv: readonly string[]): Promise<number> {
   try {
     if (argv[0] === "identify") {
+      // Loaded on demand: the CSV parser and the fitter are not needed by the other commands.
+      const { identifyCommand } = await import("./identify-command.js");
       process.stdout.write(`${await identifyCommand(argv.slice(1))}\n`);
       return EXIT_OK;
     }
