@@ -17,6 +17,12 @@ process.stdout.on("error", (error: NodeJS.ErrnoException) => {
 
 async function main(argv: readonly string[]): Promise<number> {
   try {
+    if (argv[0] === "identify") {
+      // Loaded on demand: the CSV parser and the fitter are not needed by the other commands.
+      const { identifyCommand } = await import("./identify-command.js");
+      process.stdout.write(`${await identifyCommand(argv.slice(1))}\n`);
+      return EXIT_OK;
+    }
     const parsed = parseArguments(argv, availableParallelism());
     if (parsed.command === "help") {
       process.stdout.write(`${USAGE}\n`);
