@@ -18,6 +18,7 @@ import { toScoreValue } from "./score-value.js";
 import { findStoredReferences, findSweepDetail, storeReferences } from "./sweep-repository.js";
 import { sweepSetup, tunableFromParams, type SweepSetup } from "./sweep-plan.js";
 import { getSweep } from "./sweep-service.js";
+import { sweepVariantPlant } from "./sweep-variant-plant.js";
 
 /** Most frequencies sent per curve: the adaptive grid thinned to about this many log-spaced points. */
 export const MAX_FREQUENCY_POINTS = 600;
@@ -131,14 +132,15 @@ function baselinesOf(plant: Plant, plan: SweepSetup, criteria: SweepDetailDto["c
 }
 
 /**
- * |S|, |T| (and 1/|W| when the sweep's criterion options hold a weight) of one candidate's loop,
- * from core frequencyResponse on loopTransferFunction(plant, controller), the controller rebuilt as
- * the runner evaluated it. Linear plants only (400 otherwise). The adaptive grid is thinned to about
+ * |S|, |T| (and 1/|W| when the sweep's criterion options hold a weight) of one candidate's loop on one
+ * variant of the family (the first by default), from core frequencyResponse on
+ * loopTransferFunction(plant, controller), the controller rebuilt as the runner evaluated it.
+ * Linear plants only (400 otherwise). The adaptive grid is thinned to about
  * MAX_FREQUENCY_POINTS log-spaced points, keeping the peaks of |S| and |T|.
  */
-export async function getCandidateFrequency(db: Database, access: MemberAccess, sweepId: string, index: number): Promise<FrequencyDto> {
+export async function getCandidateFrequency(db: Database, access: MemberAccess, sweepId: string, index: number, variant = 0): Promise<FrequencyDto> {
   const sweep = await getSweep(db, access, sweepId);
-  const plant = await sweepPlant(db, access.workspace.id, sweep);
+  const plant = await sweepVariantPlant(db, access.workspace.id, sweep, variant);
   if (plant.kind === "nonlinear") {
     throw badRequest("The frequency response needs a linear plant; this sweep's plant is nonlinear, so only its time response can be shown.");
   }

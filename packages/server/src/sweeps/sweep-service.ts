@@ -19,6 +19,7 @@ import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-
 import { fromScoreValue } from "./score-value.js";
 import { float64Column, int32Column, pointColumnsBytes } from "./points-repository.js";
 import { structureProblem, sweepSetup, tunableFromParams } from "./sweep-plan.js";
+import { sweepVariantPlant } from "./sweep-variant-plant.js";
 import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
 export const SWEEP_NOT_FOUND = "There is no such sweep in this workspace.";
@@ -214,14 +215,16 @@ export async function frontOf(db: Database, sweep: SweepDetailDto, query: { x?: 
 
 /**
  * Closed-loop response of one candidate under the sweep's scenario, simulated on demand with core
- * simulateLoop (≤ 2000 points per trace). The controller is rebuilt from the stored parameters
- * with the sweep's structure (controllerFromVector), exactly as the runner evaluated it.
+ * simulateLoop (≤ 2000 points per trace) on one variant of the family (the first by default). The
+ * controller is rebuilt from the stored parameters with the sweep's structure (controllerFromVector),
+ * exactly as the runner evaluated it.
  */
 export async function getCandidateResponse(
   db: Database,
   access: MemberAccess,
   sweepId: string,
   index: number,
+  variant = 0,
 ): Promise<ResponseDto> {
   const sweep = await getSweep(db, access, sweepId);
   const stored = await findCandidate(db, sweepId, index);
@@ -232,11 +235,10 @@ export async function getCandidateResponse(
         : `This sweep has candidates 0 to ${sweep.total - 1}; there is no candidate ${index}.`,
     );
   }
-  const revision = await findRevisionInWorkspace(db, access.workspace.id, sweep.plant.revisionId);
-  if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
+  const plant = await sweepVariantPlant(db, access.workspace.id, sweep, variant);
   const plan = sweepSetup(sweep.definition);
   const controller = controllerFromVector(plan.structure, tunableFromParams(plan, sweep.parameters, stored.params));
-  const trace = simulateOrExplain(() => simulateLoop(revision.model, controller, plan.scenario));
+  const trace = simulateOrExplain(() => simulateLoop(plant, controller, plan.scenario));
   const indices = downsampleIndices(trace.t.length);
   return {
     index,

@@ -1,8 +1,11 @@
-import { useMemo } from "react";
+import { useLayoutEffect, useMemo, useRef, useState } from "react";
 import { LazyPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
+import { edgeMarks, type AxisFit, type EdgeMarks } from "./axis-fit.js";
+import { BASELINE_LABEL_SIZE, markerLabels, type PlotFrame } from "./baseline-labels.js";
 import { cloudPoints, positionFinder, type FrontPoint, type PlotCloud } from "./front-points.js";
-import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, type BaselinePoint } from "./reference-points.js";
+import { logTicks } from "./log-ticks.js";
+import { BOUND_HOVER, BOUND_LABEL, baselineHover, type BaselinePoint } from "./reference-points.js";
 
 /** Above this many candidates the cloud is drawn with WebGL (plotly scattergl); SVG stays sharper and clickable below it. */
 export const WEBGL_POINTS = 5000;
@@ -10,12 +13,45 @@ export const WEBGL_POINTS = 5000;
 /** Above this many front points their markers are drawn small and without rims. */
 export const DENSE_FRONT = 60;
 
+/** Height of the front chart [px] and its margins around the plot area [px] (the legend sits in the top one). */
+const CHART_HEIGHT = 420;
+const MARGIN = { l: 64, r: 16, t: 34, b: 48 } as const;
+/** A measured plot area that differs from the one labels were placed for by more than this [px] places them again. */
+const REMEASURE_PX = 6;
+
+/** The plot area of a drawn plotly figure: its size and shown ranges (plotly's internal `_fullLayout`, read only). */
+function measuredFrame(graph: unknown): PlotFrame | null {
+  const full = (graph as { _fullLayout?: { _size?: { w: number; h: number }; xaxis?: { range?: number[] }; yaxis?: { range?: number[] } } })._fullLayout;
+  const size = full?._size;
+  const xr = full?.xaxis?.range;
+  const yr = full?.yaxis?.range;
+  if (!size || !xr || !yr || xr.length !== 2 || yr.length !== 2) return null;
+  return { width: size.w, height: size.h, xRange: [Number(xr[0]), Number(xr[1])], yRange: [Number(yr[0]), Number(yr[1])] };
+}
+
+function sameFrame(a: PlotFrame | null, b: PlotFrame): boolean {
+  if (!a) return false;
+  const near = (u: number, v: number, tol: number) => Math.abs(u - v) <= tol;
+  const rangeTol = (r: readonly [number, number]) => Math.abs(r[1] - r[0]) * 1e-3;
+  return (
+    near(a.width, b.width, REMEASURE_PX) &&
+    near(a.height, b.height, REMEASURE_PX) &&
+    near(a.xRange[0], b.xRange[0], rangeTol(b.xRange)) &&
+    near(a.xRange[1], b.xRange[1], rangeTol(b.xRange)) &&
+    near(a.yRange[0], b.yRange[0], rangeTol(b.yRange)) &&
+    near(a.yRange[1], b.yRange[1], rangeTol(b.yRange))
+  );
+}
+
 /**
  * Every stable candidate as a dimmed dot (WebGL above WEBGL_POINTS), the non-dominated ones in the accent colour joined by a
  * staircase (each front point holds its y until the next one's x), and the chosen candidate ringed.
+ * With `fit`, the axes show the front and most of the cloud (axis-fit.ts) and the far-out candidates are drawn
+ * as triangles in the padding band at the edge they lie beyond, pointing that way. Baselines carry labels
+ * placed to keep off each other and the front (baseline-labels.ts); log axes get uncrowded, full tick labels.
  * Takes plain data; calls onSelect with the candidate index of a clicked point. The cloud's columns go
- * to plotly as they are (no array of 10⁵ point objects), and its traces are rebuilt only when the cloud
- * or the axes change, not on a click.
+ * to plotly as they are (no array of 10⁵ point objects), and the traces are rebuilt only when the cloud,
+ * the axes or the selection change.
  */
 export function FrontChart({
   cloud,
@@ -29,6 +65,8 @@ export function FrontChart({
   baselines = [],
   describe,
   cloudParams,
+  fit = null,
+  edges = null,
 }: {
   /** Every plotted candidate: index, x and y columns aligned by position (PointsDto, by index). */
   cloud: PlotCloud;
@@ -50,14 +88,61 @@ export function FrontChart({
    * hover text is formatted by plotly on hover (customdata) instead of one string per point up front.
    */
   cloudParams?: { names: readonly string[]; columns: readonly ArrayLike<number>[] };
+  /** The fitted axes (axis-fit.ts fitFrontAxes), or null to show every candidate (plotly's autorange). */
+  fit?: { x: AxisFit | null; y: AxisFit | null } | null;
+  /** The far-out candidates moved to the edges of `fit` (axis-fit.ts edgeMarks), drawn as triangles pointing where they lie. */
+  edges?: EdgeMarks | null;
 }) {
   const find = useMemo(() => positionFinder(cloud.indices), [cloud.indices]);
   const frontPoints = useMemo(() => cloudPoints(cloud, find, front), [cloud, find, front]);
-  const chosen = selected === null ? undefined : cloudPoints(cloud, find, [selected])[0];
+  const chosen = useMemo(() => (selected === null ? undefined : cloudPoints(cloud, find, [selected])[0]), [cloud, find, selected]);
   const count = cloud.xs.length;
   const hover = `candidate #%{customdata}${describe ? "<br>%{text}" : ""}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`;
   const webgl = count > WEBGL_POINTS;
-  const text = (list: readonly FrontPoint[]) => (describe ? list.map((p) => describe(p.index)) : undefined);
+  const xRange = fit?.x?.range ?? null;
+  const yRange = fit?.y?.range ?? null;
+
+  // The plot area: estimated from the container's width before plotly first draws (so that the first
+  // draw already has its labels and ticks), then as plotly measured it and as the user zooms.
+  const box = useRef<HTMLDivElement>(null);
+  const [width, setWidth] = useState<number | null>(null);
+  useLayoutEffect(() => {
+    const element = box.current;
+    if (!element) return;
+    setWidth(element.clientWidth);
+    const observer = new ResizeObserver(() => setWidth(element.clientWidth));
+    observer.observe(element);
+    return () => observer.disconnect();
+  }, []);
+  const plotted = useRef<unknown>(null);
+  const [drawn, setDrawn] = useState<PlotFrame | null>(null);
+  const view = useMemo(() => `${xTitle}|${yTitle}|${logAxes}|${xRange?.join(",")}|${yRange?.join(",")}`, [xTitle, yTitle, logAxes, xRange, yRange]);
+  const [drawnView, setDrawnView] = useState(view);
+  const current = drawnView === view ? drawn : null;
+  const frame: PlotFrame | null =
+    current ??
+    (width !== null && xRange && yRange
+      ? { width: Math.max(1, width - MARGIN.l - MARGIN.r), height: CHART_HEIGHT - MARGIN.t - MARGIN.b, xRange, yRange }
+      : null);
+  const measure = (graph: unknown) => {
+    const next = measuredFrame(graph);
+    if (next && !(drawnView === view && sameFrame(drawn, next))) {
+      setDrawn(next);
+      setDrawnView(view);
+    }
+  };
+  // Far-out candidates are marked at the edge only while the chart shows the fitted ranges (not once zoomed out past them).
+  const zoomedOut =
+    current !== null &&
+    ((xRange !== null && (current.xRange[0] < xRange[0] - 1e-9 * Math.abs(xRange[1] - xRange[0]) || current.xRange[1] > xRange[1] + 1e-9 * Math.abs(xRange[1] - xRange[0]))) ||
+      (yRange !== null && (current.yRange[0] < yRange[0] - 1e-9 * Math.abs(yRange[1] - yRange[0]) || current.yRange[1] > yRange[1] + 1e-9 * Math.abs(yRange[1] - yRange[0]))));
+  const chosenMark = useMemo(() => {
+    if (!chosen || !fit) return chosen;
+    const moved = edgeMarks({ indices: [chosen.index], xs: [chosen.x], ys: [chosen.y] }, fit.x, fit.y, logAxes);
+    return moved.indices.length === 1 ? { index: chosen.index, x: moved.xs[0] as number, y: moved.ys[0] as number } : chosen;
+  }, [chosen, fit, logAxes]);
+  const labels = useMemo(() => (frame ? markerLabels(baselines, frontPoints, frame, logAxes) : []), [baselines, frontPoints, frame, logAxes]);
+
   const cloudTrace = useMemo(
     () => ({
       type: webgl ? "scattergl" : "scatter",
@@ -89,97 +174,158 @@ export function FrontChart({
     }),
     [cloud, cloudParams, describe, hover, xTitle, yTitle, webgl, count],
   );
-  const data: Record<string, unknown>[] = [
-    cloudTrace,
-    {
-      // WebGL draws above every SVG trace, so over a WebGL cloud the front is WebGL too (later traces on top).
-      type: webgl ? "scattergl" : "scatter",
-      mode: "lines+markers",
-      name: "front",
-      x: frontPoints.map((p) => p.x),
-      y: frontPoints.map((p) => p.y),
-      customdata: frontPoints.map((p) => p.index),
-      text: text(frontPoints),
-      line: { color: CHART_COLORS.moss, width: 2, shape: "hv" },
-      // A long front packs its points along the cloud's edge: small plain dots there, so the staircase stays visible
-      // (ringed 9 px markers would cover it and each other with their white rims).
-      marker:
-        frontPoints.length > DENSE_FRONT
-          ? { color: CHART_COLORS.moss, size: 4, line: { width: 0 } }
-          : { color: CHART_COLORS.moss, size: 9, line: { color: "#ffffff", width: 1.5 } },
-      hovertemplate: hover,
-    },
-  ];
-  if (bound) {
-    // After the cloud and the front, so that those keep their trace positions.
-    data.push({
-      type: "scatter",
-      mode: "lines",
-      name: BOUND_LABEL,
-      x: bound.x,
-      y: bound.y,
-      line: { color: CHART_COLORS.inkSoft, width: 1.5, dash: "dash" },
-      // Named in the legend list under the chart (reference-legend.tsx), with its hover text.
-      showlegend: false,
-      hovertemplate: `${BOUND_HOVER.replace(/\. /g, ".<br>")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
-    });
-  }
-  if (baselines.length > 0) {
-    data.push({
-      type: "scatter",
-      mode: "markers+text",
-      name: "tuning-rule baselines",
-      x: baselines.map((b) => b.x),
-      y: baselines.map((b) => b.y),
-      text: baselines.map((b) => b.label),
-      textposition: baselines.map((_, i) => (i % 2 === 0 ? "top right" : "bottom right")),
-      textfont: { size: 10, color: CHART_COLORS.inkSoft },
-      marker: { symbol: "diamond-open", size: 11, color: CHART_COLORS.slate, line: { width: 2 } },
-      showlegend: false,
-      hovertemplate: baselines.map(
-        (b) =>
-          `${baselineHover(b.label)}<br>${Object.entries(b.params)
-            .map(([k, v]) => `${k} = ${v.toPrecision(4)}`)
-            .join(", ")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
-      ),
-    });
-  }
-  if (chosen) {
-    data.push({
-      type: webgl ? "scattergl" : "scatter",
-      mode: "markers",
-      name: `candidate #${chosen.index}`,
-      x: [chosen.x],
-      y: [chosen.y],
-      customdata: [chosen.index],
-      marker: { color: "rgba(0,0,0,0)", size: 18, line: { color: CHART_COLORS.ink, width: 2 } },
-      hovertemplate: hover,
-    });
-  }
+  // Every trace is kept by reference between renders unless its data changed, so that placing the labels
+  // again (a layout change) does not make plotly recompute the 10⁵-point cloud.
+  const data = useMemo(() => {
+    const text = (list: readonly FrontPoint[]) => (describe ? list.map((p) => describe(p.index)) : undefined);
+    const traces: Record<string, unknown>[] = [
+      cloudTrace,
+      {
+        // WebGL draws above every SVG trace, so over a WebGL cloud the front is WebGL too (later traces on top).
+        type: webgl ? "scattergl" : "scatter",
+        mode: "lines+markers",
+        name: "front",
+        x: frontPoints.map((p) => p.x),
+        y: frontPoints.map((p) => p.y),
+        customdata: frontPoints.map((p) => p.index),
+        text: text(frontPoints),
+        line: { color: CHART_COLORS.moss, width: 2, shape: "hv" },
+        // A long front packs its points along the cloud's edge: small plain dots there, so the staircase stays visible
+        // (ringed 9 px markers would cover it and each other with their white rims).
+        marker:
+          frontPoints.length > DENSE_FRONT
+            ? { color: CHART_COLORS.moss, size: 4, line: { width: 0 } }
+            : { color: CHART_COLORS.moss, size: 9, line: { color: "#ffffff", width: 1.5 } },
+        hovertemplate: hover,
+      },
+    ];
+    if (bound) {
+      // After the cloud and the front, so that those keep their trace positions.
+      traces.push({
+        type: "scatter",
+        mode: "lines",
+        name: BOUND_LABEL,
+        x: bound.x,
+        y: bound.y,
+        line: { color: CHART_COLORS.inkSoft, width: 1.5, dash: "dash" },
+        // Named in the legend list under the chart (reference-legend.tsx), with its hover text.
+        showlegend: false,
+        hovertemplate: `${BOUND_HOVER.replace(/\. /g, ".<br>")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
+      });
+    }
+    if (baselines.length > 0) {
+      // Labelled by annotations placed apart (baseline-labels.ts), named in the legend list too.
+      traces.push({
+        type: "scatter",
+        mode: "markers",
+        name: "tuning-rule baselines",
+        x: baselines.map((b) => b.x),
+        y: baselines.map((b) => b.y),
+        marker: { symbol: "diamond-open", size: 11, color: CHART_COLORS.slate, line: { width: 2 } },
+        showlegend: false,
+        hovertemplate: baselines.map(
+          (b) =>
+            `${baselineHover(b.label)}<br>${Object.entries(b.params)
+              .map(([k, v]) => `${k} = ${v.toPrecision(4)}`)
+              .join(", ")}<br>${xTitle}: %{x:.4g}<br>${yTitle}: %{y:.4g}<extra></extra>`,
+        ),
+      });
+    }
+    if (edges && edges.indices.length > 0 && !zoomedOut) {
+      traces.push({
+        type: edges.indices.length > WEBGL_POINTS ? "scattergl" : "scatter",
+        mode: "markers",
+        name: "beyond the axes (at the edge)",
+        x: edges.xs,
+        y: edges.ys,
+        customdata: edges.indices.map((index, i) => [index, edges.trueXs[i], edges.trueYs[i]]),
+        marker: { symbol: edges.symbols, size: 8, color: CHART_COLORS.rust, opacity: 0.75, line: { width: 0 } },
+        cliponaxis: false,
+        hovertemplate: `candidate #%{customdata[0]}, beyond the axes<br>${xTitle}: %{customdata[1]:.4g}<br>${yTitle}: %{customdata[2]:.4g}<extra></extra>`,
+      });
+    }
+    if (chosenMark) {
+      traces.push({
+        type: webgl ? "scattergl" : "scatter",
+        mode: "markers",
+        name: `candidate #${chosenMark.index}`,
+        x: [chosenMark.x],
+        y: [chosenMark.y],
+        customdata: [chosenMark.index],
+        marker: { color: "rgba(0,0,0,0)", size: 18, line: { color: CHART_COLORS.ink, width: 2 } },
+        hovertemplate: hover,
+      });
+    }
+    return traces;
+  }, [cloudTrace, frontPoints, bound, baselines, edges, zoomedOut, chosenMark, describe, hover, webgl, xTitle, yTitle]);
+
   const type = logAxes ? "log" : "linear";
-  // With references drawn, the axes fit the candidates, so the bound's tail or a far baseline does not squeeze them.
-  const fit = bound !== null || baselines.length > 0;
-  const xRange = useMemo(() => (fit ? fittedRange(cloud.xs, logAxes) : null), [fit, cloud.xs, logAxes]);
-  const yRange = useMemo(() => (fit ? fittedRange(cloud.ys, logAxes) : null), [fit, cloud.ys, logAxes]);
+  const ticks = (direction: "x" | "y") => {
+    if (!logAxes) return {};
+    const shown = direction === "x" ? (frame?.xRange ?? xRange) : (frame?.yRange ?? yRange);
+    const length = direction === "x" ? frame?.width : frame?.height;
+    return shown && length ? logTicks(shown, length, direction) : logTicks([0, 0], 0, direction);
+  };
+  const layout = baseLayout({
+    xaxis: axis(xTitle, { type, ...(xRange ? { range: xRange } : {}), ...ticks("x") }),
+    yaxis: axis(yTitle, { type, ...(yRange ? { range: yRange } : {}), ...ticks("y") }),
+    margin: MARGIN,
+    hovermode: "closest",
+    clickmode: "event",
+    // The user's zoom is kept across re-renders until the axes or the fitted ranges change.
+    uirevision: view,
+    annotations: labels.map((label) => ({
+      xref: "x",
+      yref: "y",
+      x: label.x,
+      y: label.y,
+      ax: label.ax,
+      ay: label.ay,
+      text: label.text,
+      showarrow: true,
+      arrowhead: 0,
+      arrowwidth: 1,
+      arrowcolor: CHART_COLORS.faint,
+      standoff: 6,
+      font: { size: BASELINE_LABEL_SIZE, color: CHART_COLORS.inkSoft },
+      bgcolor: "rgba(255,255,255,0.85)",
+      borderpad: 1,
+    })),
+  });
   return (
-    <div data-testid="front-chart" data-webgl={webgl ? "true" : "false"} data-points={count} data-front-size={frontPoints.length} data-bound-points={bound?.x.length ?? 0} data-baselines={baselines.length}>
-      <LazyPlot
-        height={400}
-        data={data}
-        layout={baseLayout({
-          xaxis: axis(xTitle, xRange ? { type, range: xRange } : { type }),
-          yaxis: axis(yTitle, yRange ? { type, range: yRange } : { type }),
-          hovermode: "closest",
-          clickmode: "event",
-        })}
-        config={CHART_CONFIG}
-        onClick={(event: { points?: { customdata?: unknown }[] }) => {
-          const data = event.points?.[0]?.customdata;
-          // The cloud's customdata is [index, ...params] with cloudParams, the index alone otherwise.
-          const index = Array.isArray(data) ? data[0] : data;
-          if (typeof index === "number") onSelect(index);
-        }}
-      />
+    <div
+      ref={box}
+      data-testid="front-chart"
+      data-webgl={webgl ? "true" : "false"}
+      data-points={count}
+      data-front-size={frontPoints.length}
+      data-bound-points={bound?.x.length ?? 0}
+      data-baselines={baselines.length}
+      data-edge-marks={edges && !zoomedOut ? edges.indices.length : 0}
+      data-labels={labels.length}
+    >
+      {width === null ? (
+        <div style={{ height: CHART_HEIGHT }} />
+      ) : (
+        <LazyPlot
+          height={CHART_HEIGHT}
+          data={data}
+          layout={layout}
+          config={CHART_CONFIG}
+          onInitialized={(_, graph) => {
+            plotted.current = graph;
+            measure(graph);
+          }}
+          // At the end of a zoom, a pan or a resize (not while dragging).
+          onRelayout={() => measure(plotted.current)}
+          onClick={(event: { points?: { customdata?: unknown }[] }) => {
+            const data = event.points?.[0]?.customdata;
+            // The cloud's and the edge marks' customdata is [index, ...], the index alone otherwise.
+            const index = Array.isArray(data) ? data[0] : data;
+            if (typeof index === "number") onSelect(index);
+          }}
+        />
+      )}
     </div>
   );
 }
