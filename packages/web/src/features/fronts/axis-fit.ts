@@ -7,6 +7,13 @@ import { RANGE_PADDING } from "./reference-points.js";
  */
 export const FAR_OUT_IQR = 3;
 
+/**
+ * Extra points (baselines) widen a fitted axis only when they lie within this fraction of the fitted
+ * span beyond its ends; farther ones are left beyond the axes (and said to be there), so that one
+ * far rule does not squeeze the front either.
+ */
+export const EXTRA_REACH = 0.25;
+
 /** When the quartiles coincide (a coarse grid), the spread is taken from these quantiles instead. */
 const WIDE_QUANTILES = [0.05, 0.95] as const;
 
@@ -64,8 +71,9 @@ export function fromAxis(value: number, log: boolean): number {
 
 /**
  * An axis range fitted to the front and most of the cloud: the span of the cloud's values inside
- * Tukey's outer fences (farOutFences), united with the whole front's span and with `extra` values
- * (e.g. baselines) that lie inside the fences, then padded by RANGE_PADDING of the span on each side.
+ * Tukey's outer fences (farOutFences), united with the whole front's span and with the `extra` values
+ * (e.g. baselines) that lie within EXTRA_REACH of that span beyond its ends, then padded by
+ * RANGE_PADDING of the span on each side.
  * One far-away candidate then no longer squeezes the front into a corner; it is drawn at the edge
  * (edgeMarks). Without far-out values the range is the cloud's extent padded, as before. Works in
  * log10 units on a log axis, where non-positive values are left out; null when nothing can be fitted
@@ -92,11 +100,13 @@ export function fitAxis(cloud: ArrayLike<number>, front: ArrayLike<number>, log:
     const v = toAxis(front[i] as number, log);
     if (Number.isFinite(v)) take(v);
   }
+  if (!(hi >= lo)) return null;
+  const reach = (hi - lo) * EXTRA_REACH;
+  const [reachLo, reachHi] = [lo - reach, hi + reach];
   for (let i = 0; i < extra.length; i++) {
     const v = toAxis(extra[i] as number, log);
-    if (inside(v)) take(v);
+    if (v >= reachLo && v <= reachHi) take(v);
   }
-  if (!(hi >= lo)) return null;
   const pad = (hi - lo) * RANGE_PADDING || (log ? 0.5 : Math.abs(lo) * 0.1 || 1);
   const clipped = n > 0 && ((sorted[0] as number) < lo || (sorted[n - 1] as number) > hi);
   return { range: [lo - pad, hi + pad], span: [lo, hi], clipped };

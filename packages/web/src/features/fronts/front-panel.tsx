@@ -254,9 +254,9 @@ export function variantCaption(family: SweepDetailDto["family"], variant: number
 /** A choice of the family's variant for the response and |S|, |T| (only for a family). */
 function VariantChoice({ family, variant, onVariant }: { family: SweepDetailDto["family"]; variant: number; onVariant: (v: number) => void }) {
   return (
-    <label className="mb-2 flex items-center gap-2 text-sm">
+    <label className="mb-2 flex items-center gap-2 whitespace-nowrap text-sm">
       <span className="text-ink-soft">Simulated on</span>
-      <select value={variant} onChange={(e) => onVariant(Number(e.target.value))} className={`${inputClass} w-auto py-1`} data-testid="response-variant">
+      <select value={variant} onChange={(e) => onVariant(Number(e.target.value))} className={`${inputClass} w-auto max-w-56 py-1`} data-testid="response-variant">
         {family.map((v, i) => (
           <option key={`${v.revisionId}-${i}`} value={i}>
             {v.label}

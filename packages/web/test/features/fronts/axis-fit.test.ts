@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { quantileSeq } from "mathjs";
-import { edgeMarks, edgeSymbol, farOutFences, FAR_OUT_IQR, fitAxis, fitFrontAxes, sortedQuantile } from "../../../src/features/fronts/axis-fit.js";
+import { edgeMarks, edgeSymbol, EXTRA_REACH, farOutFences, FAR_OUT_IQR, fitAxis, fitFrontAxes, sortedQuantile } from "../../../src/features/fronts/axis-fit.js";
 import { RANGE_PADDING } from "../../../src/features/fronts/reference-points.js";
 
 /** A seeded linear congruential generator (Numerical Recipes constants), so the data is the same on every run. */
@@ -89,8 +89,10 @@ describe("fitAxis", () => {
     expect(fit?.range[1]).toBeCloseTo(3 + RANGE_PADDING * 3, 12);
   });
 
-  it("fitAxis takes extra values (baselines) inside the fences into the range and leaves the far ones out", () => {
-    const fit = fitAxis(range(101), [10], false, [120, 1e6]);
+  it("fitAxis takes extra values (baselines) within EXTRA_REACH of the span into the range and leaves the farther ones out", () => {
+    // Span [0, 100]; reach 0.25 · 100 = 25 beyond each end: 120 widens it, 130 and 10⁶ do not.
+    expect(EXTRA_REACH).toBe(0.25);
+    const fit = fitAxis(range(101), [10], false, [120, 130, 1e6]);
     expect(fit?.span).toEqual([0, 120]);
     expect(fit?.clipped).toBe(false);
   });
