@@ -235,11 +235,11 @@ export function FrontChart({
       traces.push({
         type: edges.indices.length > WEBGL_POINTS ? "scattergl" : "scatter",
         mode: "markers",
-        name: "beyond the axes (at the edge)",
+        name: "far out, at the edge",
         x: edges.xs,
         y: edges.ys,
         customdata: edges.indices.map((index, i) => [index, edges.trueXs[i], edges.trueYs[i]]),
-        marker: { symbol: edges.symbols, size: 8, color: CHART_COLORS.rust, opacity: 0.75, line: { width: 0 } },
+        marker: { symbol: edges.symbols, size: 8, color: CHART_COLORS.inkSoft, opacity: 0.7, line: { width: 0 } },
         cliponaxis: false,
         hovertemplate: `candidate #%{customdata[0]}, beyond the axes<br>${xTitle}: %{customdata[1]:.4g}<br>${yTitle}: %{customdata[2]:.4g}<extra></extra>`,
       });
@@ -253,6 +253,8 @@ export function FrontChart({
         y: [chosenMark.y],
         customdata: [chosenMark.index],
         marker: { color: "rgba(0,0,0,0)", size: 18, line: { color: CHART_COLORS.ink, width: 2 } },
+        // Named by the response's title; kept out of the legend so that it stays on one line.
+        showlegend: false,
         hovertemplate: hover,
       });
     }

@@ -102,7 +102,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         {select("x", x, setX, "criterion-x")}
         {select("against y", y, setY, "criterion-y")}
         <label className="flex items-center gap-2 text-sm text-ink-soft">
-          <input type="checkbox" checked={logAxes} onChange={(e) => setLogAxes(e.target.checked)} className="accent-moss" />
+          <input type="checkbox" checked={logAxes} onChange={(e) => setLogAxes(e.target.checked)} className="accent-moss" data-testid="log-axes" />
           log axes
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
@@ -158,7 +158,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                   <span>Showing every candidate; the front may be squeezed by far-out ones.</span>
                 ) : (
                   <span>
-                    <span className="text-rust" aria-hidden="true">
+                    <span className="text-ink-soft" aria-hidden="true">
                       ▸{" "}
                     </span>
                     {farOut === 1 ? "1 far-out candidate lies" : `${formatCount(farOut)} far-out candidates lie`} beyond the axes, which fit the front and

@@ -69,9 +69,12 @@ export function VariantScoresTable({
                 }
                 className={onShow ? `cursor-pointer ${isShown ? "bg-moss-wash/60" : "hover:bg-paper"}` : ""}
               >
-                <td className="px-3 py-1.5" title={`${variant.plantName} rev ${variant.revisionNumber}${onShow ? " — click to draw the response on this variant" : ""}`}>
+                <td
+                  // "drawn" as generated content, so that the cell's text stays the variant's label.
+                  className={`px-3 py-1.5 ${isShown ? "after:ml-1 after:text-xs after:text-moss after:content-['(drawn)']" : ""}`}
+                  title={`${variant.plantName} rev ${variant.revisionNumber}${onShow ? " — click to draw the response on this variant" : ""}`}
+                >
                   {variant.label}
-                  {isShown ? <span className="ml-1 text-xs text-moss">(drawn)</span> : null}
                 </td>
                 {scores
                   ? criteria.map((c, i) => <ScoreCell key={c} value={scores[i] ?? null} />)
