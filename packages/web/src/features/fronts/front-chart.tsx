@@ -15,32 +15,20 @@ export const DENSE_FRONT = 60;
 
 /** Height of the front chart [px] and its margins around the plot area [px] (the legend sits in the top one). */
 const CHART_HEIGHT = 420;
-const MARGIN = { l: 64, r: 16, t: 34, b: 48 } as const;
-/** A measured plot area that differs from the one labels were placed for by more than this [px] places them again. */
+const MARGIN = { l: 64, r: 16, t: 40, b: 48 } as const;
+/** A measured plot area whose size differs from the one labels were placed for by more than this [px] places them again. */
 const REMEASURE_PX = 6;
 
-/** The plot area of a drawn plotly figure: its size and shown ranges (plotly's internal `_fullLayout`, read only). */
-function measuredFrame(graph: unknown): PlotFrame | null {
-  const full = (graph as { _fullLayout?: { _size?: { w: number; h: number }; xaxis?: { range?: number[] }; yaxis?: { range?: number[] } } })._fullLayout;
-  const size = full?._size;
-  const xr = full?.xaxis?.range;
-  const yr = full?.yaxis?.range;
-  if (!size || !xr || !yr || xr.length !== 2 || yr.length !== 2) return null;
-  return { width: size.w, height: size.h, xRange: [Number(xr[0]), Number(xr[1])], yRange: [Number(yr[0]), Number(yr[1])] };
-}
+/**
+ * Double-click returns to the fitted axes (not plotly's autorange: "Show every candidate" does that, and
+ * then the far-out candidates are drawn where they lie instead of at the edge).
+ */
+const FRONT_CHART_CONFIG = { ...CHART_CONFIG, doubleClick: "reset" as const };
 
-function sameFrame(a: PlotFrame | null, b: PlotFrame): boolean {
-  if (!a) return false;
-  const near = (u: number, v: number, tol: number) => Math.abs(u - v) <= tol;
-  const rangeTol = (r: readonly [number, number]) => Math.abs(r[1] - r[0]) * 1e-3;
-  return (
-    near(a.width, b.width, REMEASURE_PX) &&
-    near(a.height, b.height, REMEASURE_PX) &&
-    near(a.xRange[0], b.xRange[0], rangeTol(b.xRange)) &&
-    near(a.xRange[1], b.xRange[1], rangeTol(b.xRange)) &&
-    near(a.yRange[0], b.yRange[0], rangeTol(b.yRange)) &&
-    near(a.yRange[1], b.yRange[1], rangeTol(b.yRange))
-  );
+/** The size [px] of a drawn plotly figure's plot area (plotly's internal `_fullLayout._size`, read only). */
+function measuredSize(graph: unknown): { width: number; height: number } | null {
+  const size = (graph as { _fullLayout?: { _size?: { w: number; h: number } } } | null)?._fullLayout?._size;
+  return size ? { width: size.w, height: size.h } : null;
 }
 
 /**
@@ -88,7 +76,7 @@ export function FrontChart({
    * hover text is formatted by plotly on hover (customdata) instead of one string per point up front.
    */
   cloudParams?: { names: readonly string[]; columns: readonly ArrayLike<number>[] };
-  /** The fitted axes (axis-fit.ts fitFrontAxes), or null to show every candidate (plotly's autorange). */
+  /** The fitted axes (axis-fit.ts fitFrontAxes), or null for plotly's autorange. */
   fit?: { x: AxisFit | null; y: AxisFit | null } | null;
   /** The far-out candidates moved to the edges of `fit` (axis-fit.ts edgeMarks), drawn as triangles pointing where they lie. */
   edges?: EdgeMarks | null;
@@ -102,8 +90,9 @@ export function FrontChart({
   const xRange = fit?.x?.range ?? null;
   const yRange = fit?.y?.range ?? null;
 
-  // The plot area: estimated from the container's width before plotly first draws (so that the first
-  // draw already has its labels and ticks), then as plotly measured it and as the user zooms.
+  // The plot area the labels and log ticks are laid out for: the fitted ranges (a zoom moves the labels with
+  // their markers and keeps the ticks; re-laying them out would make plotly's reset return to the zoom), on the
+  // size estimated from the container's width before plotly first draws, corrected if plotly's differs.
   const box = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState<number | null>(null);
   useLayoutEffect(() => {
@@ -114,28 +103,18 @@ export function FrontChart({
     observer.observe(element);
     return () => observer.disconnect();
   }, []);
+  const estimated = width === null ? null : { width: Math.max(1, width - MARGIN.l - MARGIN.r), height: CHART_HEIGHT - MARGIN.t - MARGIN.b };
+  const [measured, setMeasured] = useState<{ width: number; height: number; estimated: number } | null>(null);
+  const size = measured !== null && measured.estimated === width ? measured : estimated;
+  const frame: PlotFrame | null = size && xRange && yRange ? { width: size.width, height: size.height, xRange, yRange } : null;
   const plotted = useRef<unknown>(null);
-  const [drawn, setDrawn] = useState<PlotFrame | null>(null);
-  const view = useMemo(() => `${xTitle}|${yTitle}|${logAxes}|${xRange?.join(",")}|${yRange?.join(",")}`, [xTitle, yTitle, logAxes, xRange, yRange]);
-  const [drawnView, setDrawnView] = useState(view);
-  const current = drawnView === view ? drawn : null;
-  const frame: PlotFrame | null =
-    current ??
-    (width !== null && xRange && yRange
-      ? { width: Math.max(1, width - MARGIN.l - MARGIN.r), height: CHART_HEIGHT - MARGIN.t - MARGIN.b, xRange, yRange }
-      : null);
+  // Only a plot area of another size than the one in use draws again: a first draw as estimated costs nothing more.
   const measure = (graph: unknown) => {
-    const next = measuredFrame(graph);
-    if (next && !(drawnView === view && sameFrame(drawn, next))) {
-      setDrawn(next);
-      setDrawnView(view);
+    const next = measuredSize(graph);
+    if (next && width !== null && (!size || Math.abs(next.width - size.width) > REMEASURE_PX || Math.abs(next.height - size.height) > REMEASURE_PX)) {
+      setMeasured({ ...next, estimated: width });
     }
   };
-  // Far-out candidates are marked at the edge only while the chart shows the fitted ranges (not once zoomed out past them).
-  const zoomedOut =
-    current !== null &&
-    ((xRange !== null && (current.xRange[0] < xRange[0] - 1e-9 * Math.abs(xRange[1] - xRange[0]) || current.xRange[1] > xRange[1] + 1e-9 * Math.abs(xRange[1] - xRange[0]))) ||
-      (yRange !== null && (current.yRange[0] < yRange[0] - 1e-9 * Math.abs(yRange[1] - yRange[0]) || current.yRange[1] > yRange[1] + 1e-9 * Math.abs(yRange[1] - yRange[0]))));
   const chosenMark = useMemo(() => {
     if (!chosen || !fit) return chosen;
     const moved = edgeMarks({ indices: [chosen.index], xs: [chosen.x], ys: [chosen.y] }, fit.x, fit.y, logAxes);
@@ -231,7 +210,7 @@ export function FrontChart({
         ),
       });
     }
-    if (edges && edges.indices.length > 0 && !zoomedOut) {
+    if (edges && edges.indices.length > 0) {
       traces.push({
         type: edges.indices.length > WEBGL_POINTS ? "scattergl" : "scatter",
         mode: "markers",
@@ -259,7 +238,7 @@ export function FrontChart({
       });
     }
     return traces;
-  }, [cloudTrace, frontPoints, bound, baselines, edges, zoomedOut, chosenMark, describe, hover, webgl, xTitle, yTitle]);
+  }, [cloudTrace, frontPoints, bound, baselines, edges, chosenMark, describe, hover, webgl, xTitle, yTitle]);
 
   const type = logAxes ? "log" : "linear";
   const ticks = (direction: "x" | "y") => {
@@ -274,8 +253,8 @@ export function FrontChart({
     margin: MARGIN,
     hovermode: "closest",
     clickmode: "event",
-    // The user's zoom is kept across re-renders until the axes or the fitted ranges change.
-    uirevision: view,
+    // The user's zoom is kept across re-renders (a click) until the axes or the fitted ranges change.
+    uirevision: `${xTitle}|${yTitle}|${logAxes}|${xRange?.join(",")}|${yRange?.join(",")}`,
     annotations: labels.map((label) => ({
       xref: "x",
       yref: "y",
@@ -303,7 +282,7 @@ export function FrontChart({
       data-front-size={frontPoints.length}
       data-bound-points={bound?.x.length ?? 0}
       data-baselines={baselines.length}
-      data-edge-marks={edges && !zoomedOut ? edges.indices.length : 0}
+      data-edge-marks={edges?.indices.length ?? 0}
       data-labels={labels.length}
     >
       {width === null ? (
@@ -313,12 +292,12 @@ export function FrontChart({
           height={CHART_HEIGHT}
           data={data}
           layout={layout}
-          config={CHART_CONFIG}
+          config={FRONT_CHART_CONFIG}
           onInitialized={(_, graph) => {
             plotted.current = graph;
             measure(graph);
           }}
-          // At the end of a zoom, a pan or a resize (not while dragging).
+          // After a resize (and at the end of a zoom or a pan, which keep the size).
           onRelayout={() => measure(plotted.current)}
           onClick={(event: { points?: { customdata?: unknown }[] }) => {
             const data = event.points?.[0]?.customdata;

@@ -52,13 +52,12 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const frontRows = front.data?.candidates ?? [];
   // Axes fitted to the front and most of the cloud; far-out candidates are drawn at the edge (axis-fit.ts).
   const frontIndices = front.data?.indices;
-  const fit = useMemo(() => {
-    if (!frontIndices) return null;
-    const frontPoints = cloudPoints(points, positionFinder(points.indices), frontIndices);
-    return fitFrontAxes(points, frontPoints, baselines, logAxes);
-  }, [points, frontIndices, baselines, logAxes]);
+  const frontPoints = useMemo(() => (frontIndices ? cloudPoints(points, positionFinder(points.indices), frontIndices) : null), [points, frontIndices]);
+  const fit = useMemo(() => (frontPoints ? fitFrontAxes(points, frontPoints, baselines, logAxes) : null), [points, frontPoints, baselines, logAxes]);
   const edges = useMemo(() => (fit ? edgeMarks(points, fit.x, fit.y, logAxes) : null), [points, fit, logAxes]);
-  const shownFit = showAll ? null : fit;
+  // "Show every candidate": the padded extent of the cloud, the front and the baselines.
+  const everything = useMemo(() => (showAll && frontPoints ? fitFrontAxes(points, frontPoints, baselines, logAxes, true) : null), [showAll, points, frontPoints, baselines, logAxes]);
+  const shownFit = showAll ? everything : fit;
   const farOut = edges?.indices.length ?? 0;
   // Hover text: the swept parameters of a candidate (fixed ones are the same for all); the cloud's by plotly on hover.
   const describe = useMemo(() => (cloud.data ? pointDescriber(cloud.data, sweep.swept, formatNumber) : undefined), [cloud.data, sweep.swept]);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { quantileSeq } from "mathjs";
-import { edgeMarks, edgeSymbol, EXTRA_REACH, farOutFences, FAR_OUT_IQR, fitAxis, fitFrontAxes, sortedQuantile } from "../../../src/features/fronts/axis-fit.js";
+import { edgeMarks, edgeSymbol, EXTRA_REACH, farOutFences, FAR_OUT_IQR, fitAxis, fitFrontAxes, selectKth, selectQuantile } from "../../../src/features/fronts/axis-fit.js";
 import { RANGE_PADDING } from "../../../src/features/fronts/reference-points.js";
 
 /** A seeded linear congruential generator (Numerical Recipes constants), so the data is the same on every run. */
@@ -14,28 +14,46 @@ function lcg(seed: number): () => number {
 
 const range = (n: number) => Array.from({ length: n }, (_, i) => i);
 
-describe("sortedQuantile", () => {
-  it("sortedQuantile(sorted, q) agrees with mathjs quantileSeq (Hyndman & Fan 1996, definition 7) on random data", () => {
-    const random = lcg(7);
-    for (const n of [1, 2, 5, 101, 1000]) {
-      const values = Array.from({ length: n }, () => random() * 100 - 20);
-      const sorted = Float64Array.from(values).sort();
-      for (const q of [0, 0.05, 0.25, 0.5, 0.75, 0.95, 1]) {
-        const reference = quantileSeq(values, q) as number;
-        expect(Math.abs(sortedQuantile(sorted, q) - reference)).toBeLessThanOrEqual(1e-12 + 1e-12 * Math.abs(reference));
+describe("selectKth and selectQuantile", () => {
+  it("selectKth(a, k) returns the k-th smallest value with smaller ones before it and larger ones after (checked against a full sort), duplicates included", () => {
+    const random = lcg(11);
+    for (const n of [1, 2, 3, 10, 1001]) {
+      for (const distinct of [true, false]) {
+        const values = Array.from({ length: n }, () => (distinct ? random() : Math.floor(random() * 4)));
+        const sorted = [...values].sort((p, q) => p - q);
+        for (const k of [0, Math.floor(n / 3), n - 1]) {
+          const a = Float64Array.from(values);
+          expect(selectKth(a, k)).toBe(sorted[k]);
+          for (let i = 0; i < k; i++) expect(a[i]).toBeLessThanOrEqual(a[k] as number);
+          for (let i = k + 1; i < n; i++) expect(a[i]).toBeGreaterThanOrEqual(a[k] as number);
+        }
       }
     }
   });
 
-  it("sortedQuantile refuses empty values and q outside [0, 1] with a RangeError naming q", () => {
-    expect(() => sortedQuantile([], 0.5)).toThrow(RangeError);
-    expect(() => sortedQuantile([1, 2], 1.5)).toThrow(/q must lie in \[0, 1\]/);
+  it("selectQuantile(values, q) agrees with mathjs quantileSeq (Hyndman & Fan 1996, definition 7) on random data", () => {
+    const random = lcg(7);
+    for (const n of [1, 2, 5, 101, 1000]) {
+      const values = Array.from({ length: n }, () => random() * 100 - 20);
+      for (const q of [0, 0.05, 0.25, 0.5, 0.75, 0.95, 1]) {
+        const reference = quantileSeq(values, q) as number;
+        expect(Math.abs(selectQuantile(Float64Array.from(values), q) - reference)).toBeLessThanOrEqual(1e-12 + 1e-12 * Math.abs(reference));
+      }
+    }
+  });
+
+  it("selectQuantile and selectKth refuse empty values, q outside [0, 1] and k outside the array with a RangeError naming the parameter", () => {
+    expect(() => selectQuantile(new Float64Array(0), 0.5)).toThrow(RangeError);
+    expect(() => selectQuantile(Float64Array.from([1, 2]), 1.5)).toThrow(/q must lie in \[0, 1\]/);
+    expect(() => selectKth(Float64Array.from([1, 2]), 2)).toThrow(/k must be a position/);
   });
 });
 
 describe("farOutFences", () => {
   it("farOutFences(0..100) are Q1 − 3·IQR and Q3 + 3·IQR (Tukey 1977, outer fences; closed form Q1 = 25, Q3 = 75)", () => {
-    const fences = farOutFences(Float64Array.from(range(101)));
+    // Shuffled, so that the selection does real work.
+    const values = range(101).map((i) => (i * 37) % 101);
+    const fences = farOutFences(Float64Array.from(values));
     expect(FAR_OUT_IQR).toBe(3);
     expect(fences?.[0]).toBeCloseTo(25 - 3 * 50, 12);
     expect(fences?.[1]).toBeCloseTo(75 + 3 * 50, 12);
@@ -148,5 +166,14 @@ describe("edgeMarks", () => {
     const cloud = { indices: [0, 1], xs: [1, 2], ys: [1, 2] };
     const fit = fitFrontAxes(cloud, [], [], false);
     expect(edgeMarks(cloud, fit.x, fit.y, false).indices).toEqual([]);
+  });
+});
+
+describe("fitAxis with everything", () => {
+  it("fitAxis(…, everything) is the padded extent of the cloud, the front and every extra value, never clipped", () => {
+    const fit = fitAxis([...range(100), 10_000], [5], false, [-50], true);
+    expect(fit?.span).toEqual([-50, 10_000]);
+    expect(fit?.clipped).toBe(false);
+    expect(fit?.range[1]).toBeCloseTo(10_000 + RANGE_PADDING * 10_050, 9);
   });
 });
