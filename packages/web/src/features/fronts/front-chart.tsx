@@ -247,9 +247,10 @@ export function FrontChart({
     const length = direction === "x" ? frame?.width : frame?.height;
     return shown && length ? logTicks(shown, length, direction) : logTicks([0, 0], 0, direction);
   };
+  // Copies of the ranges: plotly writes a zoom into the layout's range arrays, which must not reach the fit.
   const layout = baseLayout({
-    xaxis: axis(xTitle, { type, ...(xRange ? { range: xRange } : {}), ...ticks("x") }),
-    yaxis: axis(yTitle, { type, ...(yRange ? { range: yRange } : {}), ...ticks("y") }),
+    xaxis: axis(xTitle, { type, ...(xRange ? { range: [...xRange] } : {}), ...ticks("x") }),
+    yaxis: axis(yTitle, { type, ...(yRange ? { range: [...yRange] } : {}), ...ticks("y") }),
     margin: MARGIN,
     hovermode: "closest",
     clickmode: "event",
