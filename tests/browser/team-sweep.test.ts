@@ -1,7 +1,8 @@
 // A sweep at team scale in headless chromium against the built app: the demo engineer starts a
 // Latin hypercube of 400 candidates on a family of two Ember plants, watches the progress panel,
-// sees the front once it finishes with the scores of a candidate on each variant, and "Run again
-// with changes" opens the form filled from the sweep's definition.
+// sees the front once it finishes with the scores of a candidate on each variant, switches the
+// candidate's response to the second variant, and "Run again with changes" opens the form filled from
+// the sweep's definition.
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Page } from "playwright-core";
 import { saveScreenshot } from "../support/chromium.js";
@@ -67,6 +68,39 @@ describe("a family sweep with a Latin hypercube", () => {
     await saveScreenshot(page, "team-03-front-and-variants");
   });
 
+  it("when she switches the response to the second variant, then the page says which variant is drawn and draws that variant's loop", async () => {
+    // The response opens on the first variant and says so.
+    await page.waitForSelector("[data-testid=response-chart] .main-svg", { timeout: RESULT_TIMEOUT_MS });
+    expect(await page.textContent("[data-testid=response-section] h2")).toMatch(/^Response of candidate #\d+ on Ember 200$/);
+    expect(await page.inputValue("[data-testid=response-variant]")).toBe("0");
+    expect(await page.textContent("[data-testid=sensitivity-section]")).toContain("on Ember 200 (variant 1 of 2)");
+    const lastY = () =>
+      page.$eval("[data-testid=response-chart] .js-plotly-plot", (graph) => {
+        const y = (graph as unknown as { data: { name?: string; y: number[] }[] }).data.find((t) => t.name === "y(t)")?.y ?? [];
+        return y[y.length - 1];
+      });
+    const onFirst = await lastY();
+    const second = page.waitForResponse((r) => r.url().includes("/response?variant=1"));
+    await page.selectOption("[data-testid=response-variant]", "1");
+    expect((await second).status()).toBe(200);
+    await page.waitForFunction(() => document.querySelector("[data-testid=response-section] h2")?.textContent?.endsWith("on Ember 400") === true);
+    await page.waitForSelector("[data-testid=response-chart] .main-svg", { timeout: RESULT_TIMEOUT_MS });
+    await page.waitForFunction(() => document.querySelector("[data-testid=sensitivity-section]")?.textContent?.includes("on Ember 400 (variant 2 of 2)") === true, undefined, { timeout: RESULT_TIMEOUT_MS });
+    // The two plates differ (Ember 400 is a third-order plant with gain 1.2), so the drawn trace changes.
+    await page.waitForFunction((before) => {
+      const graph = document.querySelector("[data-testid=response-chart] .js-plotly-plot") as unknown as { data?: { name?: string; y: number[] }[] } | null;
+      const y = graph?.data?.find((t) => t.name === "y(t)")?.y ?? [];
+      return y.length > 0 && y[y.length - 1] !== before;
+    }, onFirst);
+    // The variant table marks the drawn row; clicking the first row switches back.
+    expect(await page.$$eval("[data-testid=variant-row]", (rows) => rows.map((r) => r.getAttribute("aria-selected")))).toEqual(["false", "true"]);
+    await saveScreenshot(page, "team-04-second-variant");
+    await page.click("[data-testid=variant-row] >> nth=0");
+    await page.waitForFunction(() => document.querySelector("[data-testid=response-section] h2")?.textContent?.endsWith("on Ember 200") === true);
+    expect(await page.inputValue("[data-testid=response-variant]")).toBe("0");
+    expect(await lastY()).toBe(onFirst);
+  });
+
   it("when she chooses Run again with changes, then the form opens filled from the sweep's definition", async () => {
     await page.evaluate(() => window.scrollTo(0, 0));
     await page.click("[data-testid=run-again]");
@@ -80,7 +114,7 @@ describe("a family sweep with a Latin hypercube", () => {
     expect(await page.inputValue("[data-testid=first-variant-label]")).toBe("Ember 200");
     expect(await page.inputValue("[data-testid=variant-0-label]")).toBe("Ember 400");
     expect(await page.inputValue("#sweep-revision")).not.toBe("");
-    await saveScreenshot(page, "team-04-run-again");
+    await saveScreenshot(page, "team-05-run-again");
     expect(session.pageErrors).toEqual([]);
   });
 });

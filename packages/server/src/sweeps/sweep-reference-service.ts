@@ -13,20 +13,14 @@ import type {
 } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
-import { findRevisionInWorkspace } from "../plants/plant-repository.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate } from "./candidate-repository.js";
 import { toScoreValue } from "./score-value.js";
 import { findStoredReferences, findSweepDetail, storeReferences } from "./sweep-repository.js";
 import { loadSweepPlan } from "./sweep-evaluation.js";
+import { sweepVariantPlant } from "./sweep-variant-plant.js";
 
 import { getSweep } from "./sweep-service.js";
-
-async function sweepPlant(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<Plant> {
-  const revision = await findRevisionInWorkspace(db, workspaceId, sweep.plant.revisionId);
-  if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
-  return revision.model;
-}
 
 /** A refusal of core (a RangeError or TypeError) as a sentence; anything else is rethrown. */
 function refusal(error: unknown): string {
@@ -140,20 +134,21 @@ function baselinesOf(family: Plant[], plan: SweepPlan, criteria: SweepDetailDto[
 }
 
 /**
- * |S|, |T| (and 1/|W| when the sweep's criterion options hold a weight) of one candidate's loop,
- * from core frequencyResponse on loopTransferFunction(plant, controller), the controller rebuilt as
- * the runner evaluated it. Linear plants only (400 otherwise). The adaptive grid is thinned to about
+ * |S|, |T| (and 1/|W| when the sweep's criterion options hold a weight) of one candidate's loop on one
+ * variant of the family (the first by default), from core frequencyResponse on
+ * loopTransferFunction(plant, controller), the controller rebuilt as the runner evaluated it.
+ * Linear plants only (400 otherwise). The adaptive grid is thinned to about
  * MAX_FREQUENCY_POINTS log-spaced points, keeping the peaks of |S| and |T|.
  */
-export async function getCandidateFrequency(db: Database, access: MemberAccess, sweepId: string, index: number): Promise<FrequencyDto> {
+export async function getCandidateFrequency(db: Database, access: MemberAccess, sweepId: string, index: number, variant = 0): Promise<FrequencyDto> {
   const sweep = await getSweep(db, access, sweepId);
-  const plant = await sweepPlant(db, access.workspace.id, sweep);
+  const plan = await loadSweepPlan(db, sweep.definition);
+  const plant = sweepVariantPlant(plan, variant);
   if (plant.kind === "nonlinear") {
     throw badRequest("The frequency response needs a linear plant; this sweep's plant is nonlinear, so only its time response can be shown.");
   }
   const stored = await findCandidate(db, sweepId, index);
   if (!stored) throw notFound(`This sweep has no evaluated candidate ${index}.`);
-  const plan = await loadSweepPlan(db, sweep.definition);
   const controller = plan.controllerFromParameters(stored.params);
   const weight = sweepWeight(sweep);
   let response: FrequencyResponse;

@@ -29,6 +29,11 @@ const frontQuerySchema = z.object({
   criteria: z.string({ error: "list criteria separated by commas" }).optional(),
 });
 
+/** ?variant=k: which variant of the family a candidate's response or |S|, |T| is computed on (0, the first, by default). */
+const variantQuerySchema = z.object({
+  variant: z.coerce.number({ error: "give a variant number" }).int({ error: "give a whole variant number from 0" }).min(0, { error: "variants are numbered from 0" }).optional(),
+});
+
 function candidateIndex(param: string | string[] | undefined): number {
   const value = pathParam(param);
   const index = Number(value);
@@ -107,7 +112,8 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
 
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
-    res.json(await getCandidateResponse(db, accessOf(req), sweepIdOf(req.params.sweepId), index));
+    const { variant } = parseQuery(variantQuerySchema, req);
+    res.json(await getCandidateResponse(db, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
   });
 
   router.get("/:sweepId/references", canRead, async (req, res) => {
@@ -116,7 +122,8 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
 
   router.get("/:sweepId/candidates/:index/frequency", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
-    res.json(await getCandidateFrequency(db, accessOf(req), sweepIdOf(req.params.sweepId), index));
+    const { variant } = parseQuery(variantQuerySchema, req);
+    res.json(await getCandidateFrequency(db, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
   });
 
   return router;

@@ -31,6 +31,7 @@ import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "
 import { definitionVariants, loadSweepPlan } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
 import { float64Column, int32Column, pointColumnsBytes } from "./points-repository.js";
+import { sweepVariantPlant } from "./sweep-variant-plant.js";
 import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
 export const SWEEP_NOT_FOUND = "There is no such sweep in this workspace.";
@@ -239,14 +240,16 @@ export async function frontOf(db: Database, sweep: SweepDetailDto, query: { x?: 
 
 /**
  * Closed-loop response of one candidate under the sweep's scenario, simulated on demand with core
- * simulateLoop (≤ 2000 points per trace). The controller is rebuilt from the stored parameters
- * with the sweep's structure (controllerFromVector), exactly as the runner evaluated it.
+ * simulateLoop (≤ 2000 points per trace) on one variant of the family (the first by default). The
+ * controller is rebuilt from the stored parameters with the sweep's structure (controllerFromVector),
+ * exactly as the runner evaluated it.
  */
 export async function getCandidateResponse(
   db: Database,
   access: MemberAccess,
   sweepId: string,
   index: number,
+  variant = 0,
 ): Promise<ResponseDto> {
   const sweep = await getSweep(db, access, sweepId);
   const stored = await findCandidate(db, sweepId, index);
@@ -257,12 +260,10 @@ export async function getCandidateResponse(
         : `This sweep has candidates 0 to ${sweep.total - 1}; there is no candidate ${index}.`,
     );
   }
-  const revision = await findRevisionInWorkspace(db, access.workspace.id, sweep.plant.revisionId);
-  if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
   const plan = await loadSweepPlan(db, sweep.definition);
+  const plant = sweepVariantPlant(plan, variant);
   const controller = plan.controllerFromParameters(stored.params);
-  // The response is shown on the first variant's plant (the sweep's plantRevisionId), its overrides applied.
-  const trace = simulateOrExplain(() => simulateLoop(plan.family[0] ?? revision.model, controller, plan.scenario));
+  const trace = simulateOrExplain(() => simulateLoop(plant, controller, plan.scenario));
   const indices = downsampleIndices(trace.t.length);
   return {
     index,

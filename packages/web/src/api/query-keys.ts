@@ -14,6 +14,6 @@ export const queryKeys = {
     ["workspace", slug, "sweeps", sweepId, "points", x, y] as const,
   front: (slug: string, sweepId: string, x: CriterionId, y: CriterionId) =>
     ["workspace", slug, "sweeps", sweepId, "front", x, y] as const,
-  response: (slug: string, sweepId: string, index: number) =>
-    ["workspace", slug, "sweeps", sweepId, "response", index] as const,
+  response: (slug: string, sweepId: string, index: number, variant = 0) =>
+    ["workspace", slug, "sweeps", sweepId, "response", index, variant] as const,
 };

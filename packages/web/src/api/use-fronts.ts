@@ -51,11 +51,16 @@ export function useFront(slug: string, sweepId: string, x: CriterionId, y: Crite
   return useQuery({ ...frontQuery(slug, sweepId, x, y), enabled });
 }
 
-/** GET …/candidates/:index/response — the closed-loop step response, simulated on demand. */
-export function useCandidateResponse(slug: string, sweepId: string, index: number | null) {
+/** The query string choosing a variant of the family: none for the first (the server's default). */
+export function variantQuery(variant: number): string {
+  return variant === 0 ? "" : `?variant=${variant}`;
+}
+
+/** GET …/candidates/:index/response[?variant=k] — the closed-loop response on one variant (0, the first, by default), simulated on demand. */
+export function useCandidateResponse(slug: string, sweepId: string, index: number | null, variant = 0) {
   return useQuery({
-    queryKey: queryKeys.response(slug, sweepId, index ?? -1),
-    queryFn: () => apiFetch<ResponseDto>(`${sweepPath(slug, sweepId)}/candidates/${index}/response`),
+    queryKey: queryKeys.response(slug, sweepId, index ?? -1, variant),
+    queryFn: () => apiFetch<ResponseDto>(`${sweepPath(slug, sweepId)}/candidates/${index}/response${variantQuery(variant)}`),
     enabled: index !== null,
     staleTime: Infinity,
   });

@@ -1,8 +1,8 @@
 import type { ScoreValue } from "@loopyard/core";
 import { formatScore, scoreTitle } from "./format-score.js";
 
-/** A table cell holding a score: right-aligned monospace; ∞ and — explained on hover. */
-export function ScoreCell({ value, className = "" }: { value: ScoreValue | undefined; className?: string }) {
+/** A table cell holding a score: right-aligned monospace, `digits` significant digits (4); ∞ and — explained on hover. */
+export function ScoreCell({ value, className = "", digits }: { value: ScoreValue | undefined; className?: string; digits?: number }) {
   const missing = value === null || value === undefined;
   return (
     <td
@@ -10,7 +10,7 @@ export function ScoreCell({ value, className = "" }: { value: ScoreValue | undef
       title={scoreTitle(value)}
       data-score={missing ? "n/a" : String(value)}
     >
-      {formatScore(value)}
+      {formatScore(value, digits)}
     </td>
   );
 }

@@ -9,8 +9,9 @@ import { formatNumber } from "../../components/format-number.js";
 import { Loading } from "../../components/loading.js";
 import { Section } from "../../components/section.js";
 import { criterionAxisTitle, criterionDescription, criterionShortLabel, frontSenseNote } from "./criterion-label.js";
+import { edgeMarks, fitFrontAxes } from "./axis-fit.js";
 import { FrontChart } from "./front-chart.js";
-import { defaultAxes, pointDescriber, type PlotCloud } from "./front-points.js";
+import { cloudPoints, defaultAxes, pointDescriber, positionFinder, type PlotCloud } from "./front-points.js";
 import { FrontTable } from "./front-table.js";
 import { ReferenceLegend } from "./reference-legend.js";
 import { baselinePoints, boundTrace } from "./reference-points.js";
@@ -27,6 +28,10 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const [chosenY, setY] = useState<CriterionId | null>(null);
   const [logAxes, setLogAxes] = useState(false);
   const [selected, setSelected] = useState<number | null>(null);
+  // Show every candidate (plotly's autorange) instead of axes fitted to the front and most of the cloud.
+  const [showAll, setShowAll] = useState(false);
+  // The variant of the family whose response and |S|, |T| are drawn (0, the first, until the user picks).
+  const [variant, setVariant] = useState(0);
 
   const family = sweep.family ?? [];
   // Until the user picks, plot two criteria that have finite scores in this sweep (PointsDto.plottable;
@@ -45,6 +50,15 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const baselines = useMemo(() => baselinePoints(references.data?.baselines, sweep.criteria, x, y), [references.data, sweep.criteria, x, y]);
   const bound = useMemo(() => boundTrace(references.data?.bound, x, y, points), [references.data, x, y, points]);
   const frontRows = front.data?.candidates ?? [];
+  // Axes fitted to the front and most of the cloud; far-out candidates are drawn at the edge (axis-fit.ts).
+  const frontIndices = front.data?.indices;
+  const frontPoints = useMemo(() => (frontIndices ? cloudPoints(points, positionFinder(points.indices), frontIndices) : null), [points, frontIndices]);
+  const fit = useMemo(() => (frontPoints ? fitFrontAxes(points, frontPoints, baselines, logAxes) : null), [points, frontPoints, baselines, logAxes]);
+  const edges = useMemo(() => (fit ? edgeMarks(points, fit.x, fit.y, logAxes) : null), [points, fit, logAxes]);
+  // "Show every candidate": the padded extent of the cloud, the front and the baselines.
+  const everything = useMemo(() => (showAll && frontPoints ? fitFrontAxes(points, frontPoints, baselines, logAxes, true) : null), [showAll, points, frontPoints, baselines, logAxes]);
+  const shownFit = showAll ? everything : fit;
+  const farOut = edges?.indices.length ?? 0;
   // Hover text: the swept parameters of a candidate (fixed ones are the same for all); the cloud's by plotly on hover.
   const describe = useMemo(() => (cloud.data ? pointDescriber(cloud.data, sweep.swept, formatNumber) : undefined), [cloud.data, sweep.swept]);
   const cloudParams = useMemo(() => (cloud.data ? { names: sweep.swept, columns: cloud.data.params } : undefined), [cloud.data, sweep.swept]);
@@ -87,7 +101,7 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         {select("x", x, setX, "criterion-x")}
         {select("against y", y, setY, "criterion-y")}
         <label className="flex items-center gap-2 text-sm text-ink-soft">
-          <input type="checkbox" checked={logAxes} onChange={(e) => setLogAxes(e.target.checked)} className="accent-moss" />
+          <input type="checkbox" checked={logAxes} onChange={(e) => setLogAxes(e.target.checked)} className="accent-moss" data-testid="log-axes" />
           log axes
         </label>
         <span className="ml-auto text-xs text-ink-soft" data-testid="unstable-note">
@@ -133,9 +147,38 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
                 cloudParams={cloudParams}
                 bound={bound}
                 baselines={baselines}
+                fit={shownFit}
+                edges={showAll ? null : edges}
               />
             )}
-            <ReferenceLegend references={references.data} error={references.error} bound={bound} baselines={baselines} cloud={points} logAxes={logAxes} x={x} y={y} />
+            {farOut > 0 ? (
+              <p className="mt-1 flex flex-wrap items-center gap-x-2 text-xs text-ink-soft" data-testid="far-out-note">
+                {showAll ? (
+                  <span>Showing every candidate; the front may be squeezed by far-out ones.</span>
+                ) : (
+                  <span>
+                    <span className="text-ink-soft" aria-hidden="true">
+                      ▸{" "}
+                    </span>
+                    {farOut === 1 ? "1 far-out candidate lies" : `${formatCount(farOut)} far-out candidates lie`} beyond the axes, which fit the front and
+                    most of the cloud; {farOut === 1 ? "it is" : "they are"} drawn at the edge, pointing where {farOut === 1 ? "it lies" : "they lie"}.
+                  </span>
+                )}
+                <button type="button" className="text-moss underline-offset-2 hover:underline" onClick={() => setShowAll(!showAll)} data-testid="far-out-toggle">
+                  {showAll ? "Fit the axes to the front" : "Show every candidate"}
+                </button>
+              </p>
+            ) : null}
+            <ReferenceLegend
+              references={references.data}
+              error={references.error}
+              bound={bound}
+              baselines={baselines}
+              ranges={{ x: shownFit?.x?.range ?? null, y: shownFit?.y?.range ?? null }}
+              logAxes={logAxes}
+              x={x}
+              y={y}
+            />
             <p className="mt-2 text-xs text-ink-faint">
               {criterionShortLabel(x)}: {criterionDescription(x)} {x !== y ? `${criterionShortLabel(y)}: ${criterionDescription(y)}` : ""}
             </p>
@@ -149,11 +192,18 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         <div className="space-y-6 xl:col-span-2">
           {family.length > 1 && chosenCandidate ? (
             <Section title={`Candidate #${chosenCandidate.index} on each variant`} aside={`the front uses the ${aggregateName(sweep.definition.aggregate)}`} testId="variant-section">
-              <VariantScoresTable candidate={chosenCandidate} family={family} criteria={sweep.criteria} aggregate={sweep.definition.aggregate} />
+              <VariantScoresTable
+                candidate={chosenCandidate}
+                family={family}
+                criteria={sweep.criteria}
+                aggregate={sweep.definition.aggregate}
+                shown={variant}
+                onShow={setVariant}
+              />
             </Section>
           ) : null}
-          <CandidateResponse slug={slug} sweep={sweep} index={selected} />
-          {sweep.plant.kind !== "nonlinear" ? <CandidateSensitivity slug={slug} sweep={sweep} index={selected} /> : null}
+          <CandidateResponse slug={slug} sweep={sweep} index={selected} variant={variant} onVariant={setVariant} />
+          {sweep.plant.kind !== "nonlinear" ? <CandidateSensitivity slug={slug} sweep={sweep} index={selected} variant={variant} /> : null}
         </div>
       </div>
 
@@ -190,49 +240,100 @@ export function scenarioSummary(scenario: SweepDetailDto["definition"]["scenario
   return scenario.noise ? `${main}, noise sd ${formatNumber(scenario.noise.sd)}` : main;
 }
 
-function CandidateResponse({ slug, sweep, index }: { slug: string; sweep: SweepDetailDto; index: number | null }) {
-  const response = useCandidateResponse(slug, sweep.id, index);
+/**
+ * Which variant a response is drawn on, in words: "" for a single plant, else e.g. "on Ember 400
+ * (variant 2 of 3)".
+ */
+export function variantCaption(family: SweepDetailDto["family"], variant: number): string {
+  if (family.length <= 1) return "";
+  const label = family[variant]?.label ?? `variant ${variant + 1}`;
+  return `on ${label} (variant ${variant + 1} of ${family.length})`;
+}
+
+/** A choice of the family's variant for the response and |S|, |T| (only for a family). */
+function VariantChoice({ family, variant, onVariant }: { family: SweepDetailDto["family"]; variant: number; onVariant: (v: number) => void }) {
+  return (
+    <label className="mb-2 flex items-center gap-2 whitespace-nowrap text-sm">
+      <span className="text-ink-soft">Simulated on</span>
+      <select value={variant} onChange={(e) => onVariant(Number(e.target.value))} className={`${inputClass} w-auto max-w-56 py-1`} data-testid="response-variant">
+        {family.map((v, i) => (
+          <option key={`${v.revisionId}-${i}`} value={i}>
+            {v.label}
+          </option>
+        ))}
+      </select>
+      <span className="text-xs text-ink-faint">
+        variant {variant + 1} of {family.length}
+      </span>
+    </label>
+  );
+}
+
+function CandidateResponse({
+  slug,
+  sweep,
+  index,
+  variant,
+  onVariant,
+}: {
+  slug: string;
+  sweep: SweepDetailDto;
+  index: number | null;
+  variant: number;
+  onVariant: (v: number) => void;
+}) {
+  const family = sweep.family ?? [];
+  const response = useCandidateResponse(slug, sweep.id, index, variant);
   const scenario = sweep.definition.scenario;
   const loadTime = scenario.kind === "setpoint-step" ? null : (scenario.load?.time ?? 0);
+  const on = family.length > 1 ? ` on ${family[variant]?.label ?? `variant ${variant + 1}`}` : "";
   return (
-    <Section title={index === null ? "Response" : `Response of candidate #${index}`} aside={scenarioSummary(scenario)} testId="response-section">
+    <Section title={index === null ? "Response" : `Response of candidate #${index}${on}`} aside={scenarioSummary(scenario)} testId="response-section">
       {index === null ? (
         <p className="py-10 text-center text-sm text-ink-soft" data-testid="response-empty">
           Click a point of the front, or a row of the table below, to see that candidate's closed-loop output y(t) against the setpoint r(t) and
-          its controller output u(t) in this sweep's scenario.
+          its controller output u(t) in this sweep's scenario{family.length > 1 ? ", on the variant of the family you choose" : ""}.
         </p>
-      ) : response.isPending ? (
-        <Loading label="Simulating the loop…" />
-      ) : response.isError ? (
-        <ErrorNote error={response.error} title="Could not simulate this candidate" />
       ) : (
         <>
-          <dl className="mb-2 flex flex-wrap gap-x-5 gap-y-1 font-mono text-xs text-ink-soft">
-            {Object.entries(response.data.params).map(([name, value]) => (
-              <div key={name}>
-                <dt className="inline">{name} = </dt>
-                <dd className="inline text-ink">{formatNumber(value)}</dd>
-              </div>
-            ))}
-          </dl>
-          {response.data.status !== "stable" ? (
-            <p className="mb-2 text-xs text-rust" data-testid="response-status">
-              This candidate is {response.data.status}; the trace shows how it fails.
-            </p>
-          ) : null}
-          <ResponseChart t={response.data.t} r={response.data.r} y={response.data.y} u={response.data.u} loadTime={loadTime} />
+          {family.length > 1 ? <VariantChoice family={family} variant={variant} onVariant={onVariant} /> : null}
+          {response.isPending ? (
+            <Loading label="Simulating the loop…" />
+          ) : response.isError ? (
+            <ErrorNote error={response.error} title="Could not simulate this candidate" />
+          ) : (
+            <>
+              <dl className="mb-2 flex flex-wrap gap-x-5 gap-y-1 font-mono text-xs text-ink-soft">
+                {Object.entries(response.data.params).map(([name, value]) => (
+                  <div key={name}>
+                    <dt className="inline">{name} = </dt>
+                    <dd className="inline text-ink">{formatNumber(value)}</dd>
+                  </div>
+                ))}
+              </dl>
+              {response.data.status !== "stable" ? (
+                <p className="mb-2 text-xs text-rust" data-testid="response-status">
+                  {family.length > 1
+                    ? `This candidate is ${response.data.status} on at least one variant; the trace shows how it behaves on this one.`
+                    : `This candidate is ${response.data.status}; the trace shows how it fails.`}
+                </p>
+              ) : null}
+              <ResponseChart t={response.data.t} r={response.data.r} y={response.data.y} u={response.data.u} loadTime={loadTime} />
+            </>
+          )}
         </>
       )}
     </Section>
   );
 }
 
-function CandidateSensitivity({ slug, sweep, index }: { slug: string; sweep: SweepDetailDto; index: number | null }) {
-  const frequency = useCandidateFrequency(slug, sweep.id, index, true);
+function CandidateSensitivity({ slug, sweep, index, variant }: { slug: string; sweep: SweepDetailDto; index: number | null; variant: number }) {
+  const frequency = useCandidateFrequency(slug, sweep.id, index, true, variant);
   if (index === null) return null;
+  const on = variantCaption(sweep.family ?? [], variant);
   return (
     <div>
-      <Section title="Sensitivity |S| and complementary sensitivity |T|" aside={`candidate #${index}, log–log`} testId="sensitivity-section">
+      <Section title="Sensitivity |S| and complementary sensitivity |T|" aside={`candidate #${index}${on ? ` ${on}` : ""}, log–log`} testId="sensitivity-section">
         {frequency.isPending ? (
           <Loading label="Computing the frequency response…" />
         ) : frequency.isError ? (

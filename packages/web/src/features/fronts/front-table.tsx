@@ -3,6 +3,7 @@ import type { CandidateDto, CriterionId } from "@loopyard/core";
 import { Button } from "../../components/button.js";
 import { NumberCell } from "../../components/number-cell.js";
 import { ScoreCell } from "../../components/score-cell.js";
+import { distinguishingDigits } from "./column-digits.js";
 import { criterionShortLabel } from "./criterion-label.js";
 
 /** Rows shown at first on a long front; the rest behind "Show all". */
@@ -19,7 +20,11 @@ export function thinRows<T extends { index: number }>(rows: readonly T[], limit:
   return rows.filter((row, i) => keep.has(i) || row.index === selected);
 }
 
-/** The front as a table: one row per non-dominated candidate (sorted by x), its parameters and every score. */
+/**
+ * The front as a table: one row per non-dominated candidate (sorted by x), its parameters and every
+ * score, each column with as many significant digits as it takes to tell neighbouring rows apart
+ * (column-digits.ts; the full value on hover).
+ */
 export function FrontTable({
   rows,
   parameters,
@@ -40,6 +45,8 @@ export function FrontTable({
   const [showAll, setShowAll] = useState(false);
   const shown = showAll ? rows : thinRows(rows, FRONT_ROWS_SHOWN, selected);
   const axisClass = (c: CriterionId) => (c === x || c === y ? "bg-moss-wash/60" : "");
+  const paramDigits = parameters.map((_, i) => distinguishingDigits(shown.map((row) => row.params[i])));
+  const scoreDigits = criteria.map((_, i) => distinguishingDigits(shown.map((row) => row.scores?.[i])));
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" data-testid="front-table">
@@ -80,10 +87,10 @@ export function FrontTable({
               >
                 <td className={`px-3 py-1.5 text-right font-mono text-[13px] tabular ${isSelected ? "text-moss" : "text-ink-soft"}`}>{row.index}</td>
                 {row.params.map((v, i) => (
-                  <NumberCell key={parameters[i] ?? i} value={v} />
+                  <NumberCell key={parameters[i] ?? i} value={v} digits={paramDigits[i]} />
                 ))}
                 {criteria.map((c, i) => (
-                  <ScoreCell key={c} value={row.scores?.[i] ?? null} className={axisClass(c)} />
+                  <ScoreCell key={c} value={row.scores?.[i] ?? null} className={axisClass(c)} digits={scoreDigits[i]} />
                 ))}
               </tr>
             );

@@ -1,7 +1,6 @@
 import { CHART_COLORS } from "../../components/charts/chart-theme.js";
 import type { CriterionId, ReferencesDto } from "@loopyard/core";
-import type { PlotCloud } from "./front-points.js";
-import { BOUND_HOVER, BOUND_LABEL, baselineHover, fittedRange, inRange, type BaselinePoint } from "./reference-points.js";
+import { BOUND_HOVER, BOUND_LABEL, baselineHover, inRange, type BaselinePoint } from "./reference-points.js";
 
 /**
  * A small legend under the front chart, built from the references data: the bound (or why it is not
@@ -12,7 +11,7 @@ export function ReferenceLegend({
   error,
   bound,
   baselines,
-  cloud,
+  ranges,
   logAxes,
   x,
   y,
@@ -21,8 +20,8 @@ export function ReferenceLegend({
   error: Error | null;
   bound: { x: number[]; y: number[] } | null;
   baselines: readonly BaselinePoint[];
-  /** The plotted candidates: the axes fit them (front-chart.tsx), so a baseline beyond is said to be off the chart. */
-  cloud: PlotCloud;
+  /** The chart's axis ranges (axis-fit.ts; null: autorange): a baseline beyond them is said to be off the chart. */
+  ranges: { x: [number, number] | null; y: [number, number] | null };
   logAxes: boolean;
   x: CriterionId;
   y: CriterionId;
@@ -31,9 +30,7 @@ export function ReferenceLegend({
   if (!references) return null;
   const onBoundAxes = (x === "ise" && y === "effort") || (x === "effort" && y === "ise");
   const hidden = references.baselines.length - baselines.length;
-  const xRange = fittedRange(cloud.xs, logAxes);
-  const yRange = fittedRange(cloud.ys, logAxes);
-  const offChart = (b: BaselinePoint) => !inRange(b.x, xRange, logAxes) || !inRange(b.y, yRange, logAxes);
+  const offChart = (b: BaselinePoint) => !inRange(b.x, ranges.x, logAxes) || !inRange(b.y, ranges.y, logAxes);
   return (
     <ul className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-ink-soft" data-testid="reference-legend">
       {bound ? (

@@ -13,18 +13,24 @@ export function aggregateName(aggregate: SweepAggregate | undefined): string {
 /**
  * One candidate's scores on every variant of the family (rows: variant labels; columns: criteria),
  * and under them the aggregate the front is drawn from. A variant where the candidate is not stable
- * shows "not stable" across its row.
+ * shows "not stable" across its row. With `onShow`, clicking a variant's row draws the response on
+ * it; the row of the variant `shown` is marked.
  */
 export function VariantScoresTable({
   candidate,
   family,
   criteria,
   aggregate,
+  shown,
+  onShow,
 }: {
   candidate: CandidateDto;
   family: readonly SweepVariantDto[];
   criteria: readonly CriterionId[];
   aggregate: SweepAggregate | undefined;
+  /** The variant whose response is drawn. */
+  shown?: number;
+  onShow?: (variant: number) => void;
 }) {
   const perVariant = candidate.variantScores ?? [];
   return (
@@ -43,9 +49,31 @@ export function VariantScoresTable({
         <tbody className="divide-y divide-line-soft">
           {family.map((variant, v) => {
             const scores = perVariant[v];
+            const isShown = v === shown;
             return (
-              <tr key={`${variant.revisionId}-${v}`} data-testid="variant-row">
-                <td className="px-3 py-1.5" title={`${variant.plantName} rev ${variant.revisionNumber}`}>
+              <tr
+                key={`${variant.revisionId}-${v}`}
+                data-testid="variant-row"
+                aria-selected={isShown}
+                tabIndex={onShow ? 0 : undefined}
+                onClick={onShow ? () => onShow(v) : undefined}
+                onKeyDown={
+                  onShow
+                    ? (e) => {
+                        if (e.key === "Enter" || e.key === " ") {
+                          e.preventDefault();
+                          onShow(v);
+                        }
+                      }
+                    : undefined
+                }
+                className={onShow ? `cursor-pointer ${isShown ? "bg-moss-wash/60" : "hover:bg-paper"}` : ""}
+              >
+                <td
+                  // "drawn" as generated content, so that the cell's text stays the variant's label.
+                  className={`px-3 py-1.5 ${isShown ? "after:ml-1 after:text-xs after:text-moss after:content-['(drawn)']" : ""}`}
+                  title={`${variant.plantName} rev ${variant.revisionNumber}${onShow ? " — click to draw the response on this variant" : ""}`}
+                >
                   {variant.label}
                 </td>
                 {scores
