@@ -5,7 +5,7 @@
 import { randomBytes } from "node:crypto";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
-import { createApp } from "../../packages/server/src/index.js";
+import { createApp, type RateLimits } from "../../packages/server/src/index.js";
 
 export interface TestServer {
   /** Base URL, e.g. http://127.0.0.1:39123 (no trailing slash). */
@@ -22,7 +22,20 @@ export interface TestServerOptions {
   workerThreads?: number;
   /** Per-workspace sweep limits (default 1,000,000 candidates, 3 concurrent sweeps). */
   limits?: { maxCandidates: number; maxConcurrentSweeps: number };
+  /**
+   * Limits of the sign-in endpoints. Default: TEST_RATE_LIMITS, far above what a test file's
+   * sign-ups from one address need (the limits themselves are tested with DEFAULT_RATE_LIMITS).
+   */
+  rateLimits?: RateLimits;
 }
+
+/** Every limit on, at 10,000 requests a minute: tests sign up many users from 127.0.0.1. */
+export const TEST_RATE_LIMITS: RateLimits = {
+  authPerIp: { windowSeconds: 60, max: 10_000 },
+  failedSignInsPerAccount: { windowSeconds: 60, max: 10_000 },
+  betterAuth: { windowSeconds: 60, max: 10_000 },
+  betterAuthCredentials: { windowSeconds: 60, max: 10_000 },
+};
 
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   const databaseUrl = process.env.DATABASE_URL;
@@ -46,6 +59,9 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     embeddedWorker: options.embeddedWorker ?? true,
     ...(options.workerThreads === undefined ? {} : { workerThreads: options.workerThreads }),
     ...(options.limits === undefined ? {} : { limits: options.limits }),
+    rateLimits: options.rateLimits ?? TEST_RATE_LIMITS,
+    // One line per 5xx only; a passing run stays quiet.
+    requestLogLevel: "warn",
   });
   await loopyard.jobs.ready;
   server.on("request", loopyard.app);

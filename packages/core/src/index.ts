@@ -4,6 +4,8 @@
 export { MAX_PLANT_ORDER, transferFunctionSchema } from "./plants/transfer-function.js";
 export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
+export { textField, hasForbiddenControl, isWellFormedText } from "./schemas/text.js";
+export type { TextFieldConfig } from "./schemas/text.js";
 export { CRITERION_IDS } from "./criteria/criterion-id.js";
 export {
   DEFAULT_SWEEP_CRITERIA,
@@ -27,7 +29,7 @@ export {
   MAX_FAMILY_VARIANTS,
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
-export { ROLES, hasRole } from "./api/roles.js";
+export { ROLES, hasRole, canCancelSweep } from "./api/roles.js";
 export { isDrawingPage } from "./api/page-paths.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";

@@ -1,12 +1,12 @@
 import { z } from "zod";
-import { ROLES } from "@loopyard/core";
+import { ROLES, textField } from "@loopyard/core";
 
 /** Shape of a workspace slug: lower-case words joined by single hyphens. */
 export const SLUG_PATTERN = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
 
 /** POST /api/workspaces */
 export const workspaceInputSchema = z.object({
-  name: z.string().trim().min(1, "give the workspace a name").max(120, "keep the name under 120 characters"),
+  name: textField({ label: "name", min: 1, required: "give the workspace a name", max: 120 }),
   slug: z
     .string()
     .trim()
@@ -18,7 +18,7 @@ export const workspaceInputSchema = z.object({
 
 /** POST /api/workspaces/:slug/members */
 export const memberInputSchema = z.object({
-  email: z.email("give the email address the person signed up with"),
+  email: z.email("give the email address the person signed up with").max(254, "an email address has at most 254 characters"),
   role: z.enum(ROLES, { error: `choose one of the roles ${ROLES.join(", ")}` }),
 });
 

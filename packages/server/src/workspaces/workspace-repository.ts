@@ -11,6 +11,20 @@ export async function findWorkspaceBySlug(db: Database, slug: string): Promise<W
   return rows[0] ?? null;
 }
 
+/**
+ * The workspace with this slug and the user's role in it, in one query (every workspace request
+ * makes it): null when there is no such workspace or the user is not a member of it.
+ */
+export async function findMemberWorkspace(db: Database, slug: string, userId: string): Promise<{ workspace: WorkspaceDto; role: Role } | null> {
+  const rows = await db
+    .select({ workspace: workspaceDtoColumns, role: membership.role })
+    .from(workspace)
+    .innerJoin(membership, and(eq(membership.workspaceId, workspace.id), eq(membership.userId, userId)))
+    .where(eq(workspace.slug, slug))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
 /** Inserts a workspace unless its slug is taken; returns null when it is. */
 export async function insertWorkspace(db: Database, values: { slug: string; name: string }): Promise<WorkspaceDto | null> {
   const rows = await db.insert(workspace).values(values).onConflictDoNothing({ target: workspace.slug }).returning(workspaceDtoColumns);
