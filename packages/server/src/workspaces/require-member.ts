@@ -55,11 +55,13 @@ declare module "express-serve-static-core" {
  * Route middleware: checks the role before the body is even read, so that a refused user learns
  * about the role and not about the fields. Needs requireSession before it and a :slug parameter.
  */
-export function memberOf(db: Database, needed: Role, action: string): RequestHandler {
-  return async (req, _res, next) => {
+export function memberOf(db: Database, needed: Role, action: string): RequestHandler & { requiredRole: Role } {
+  const check: RequestHandler = async (req, _res, next) => {
     req.access = await requireMember(db, currentUser(req), pathParam(req.params.slug), needed, action);
     next();
   };
+  // Read by the route table (http/route-table.ts), so that tests know each route's role from the routes themselves.
+  return Object.assign(check, { requiredRole: needed });
 }
 
 /** The access memberOf put on the request. */
