@@ -10,7 +10,7 @@ import { apiNotFound, errorMiddleware } from "./http/error-middleware.js";
 import { apiHeaders, securityHeaders } from "./http/security-headers.js";
 import { jsonBodyGuard } from "./http/json-body-guard.js";
 import { logger, requestLogger } from "./http/logger.js";
-import { authPerIpLimit, DEFAULT_RATE_LIMITS, failedSignInLimit } from "./http/rate-limits.js";
+import { authPerIpLimit, DEFAULT_RATE_LIMITS, failedSignInLimit, mirrorRetryAfter } from "./http/rate-limits.js";
 import { sameOriginGuard } from "./http/same-origin-guard.js";
 import { candidateIndexGuard } from "./http/candidate-index-guard.js";
 import { urlGuard } from "./http/url-guard.js";
@@ -83,6 +83,7 @@ export function createApp(config: AppConfig): LoopyardApp {
       req.headers[CLIENT_ADDRESS_HEADER] = req.socket.remoteAddress ?? "";
       next();
     },
+    mirrorRetryAfter,
     authPerIpLimit(limits.authPerIp),
     express.json({ limit: AUTH_BODY_LIMIT }),
     jsonBodyGuard,

@@ -40,7 +40,8 @@ function sentenceOf(error: StatusError, status: number, bodyLimit: string): stri
     default:
       break;
   }
-  if (typeof error.code === "string" && error.code.startsWith("Z_")) {
+  // zlib's errors: Z_DATA_ERROR and friends for gzip/deflate, ERR__ERROR_… for brotli.
+  if (typeof error.code === "string" && (error.code.startsWith("Z_") || error.code.startsWith("ERR__ERROR"))) {
     return "The request body says it is compressed (Content-Encoding) but could not be decompressed; send it uncompressed or compressed correctly.";
   }
   if (error.name === "URIError") return "The address holds a malformed percent-escape; correct the link.";

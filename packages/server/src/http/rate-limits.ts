@@ -53,6 +53,8 @@ export function authPerIpLimit(rule: RateLimitRule): RequestHandler {
     standardHeaders: "draft-7",
     legacyHeaders: false,
     keyGenerator: clientKey,
+    // No proxy is trusted, so a client's X-Forwarded-For is ignored (and needs no warning).
+    validate: { xForwardedForHeader: false },
     skip: (req) => req.method === "GET" || req.method === "HEAD" || req.method === "OPTIONS",
     handler(_req, res, _next, options) {
       res.status(options.statusCode).json({
@@ -73,6 +75,7 @@ export function failedSignInLimit(rule: RateLimitRule): RequestHandler {
     standardHeaders: "draft-7",
     legacyHeaders: false,
     keyGenerator: accountKey,
+    validate: { xForwardedForHeader: false, keyGeneratorIpFallback: false },
     skip: (req) => accountKey(req) === "",
     skipSuccessfulRequests: true,
     handler(_req, res, _next, options) {
@@ -82,3 +85,16 @@ export function failedSignInLimit(rule: RateLimitRule): RequestHandler {
     },
   });
 }
+
+/**
+ * better-auth's limiter answers 429 with its own X-Retry-After header; this also sends the standard
+ * Retry-After (RFC 9110, 10.2.3) with the same number of seconds.
+ */
+export const mirrorRetryAfter: RequestHandler = (_req, res, next) => {
+  const setHeader = res.setHeader.bind(res);
+  res.setHeader = (name: string, value: number | string | readonly string[]) => {
+    if (name.toLowerCase() === "x-retry-after") setHeader("Retry-After", value);
+    return setHeader(name, value);
+  };
+  next();
+};
