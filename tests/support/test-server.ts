@@ -27,6 +27,10 @@ export interface TestServerOptions {
    * sign-ups from one address need (the limits themselves are tested with DEFAULT_RATE_LIMITS).
    */
   rateLimits?: RateLimits;
+  /** Another database URL (default process.env.DATABASE_URL), e.g. as a role the test restricts. */
+  databaseUrl?: string;
+  /** Chunk job expiry [s] (default 120). */
+  chunkExpireSeconds?: number;
 }
 
 /** Every limit on, at 10,000 requests a minute: tests sign up many users from 127.0.0.1. */
@@ -38,7 +42,7 @@ export const TEST_RATE_LIMITS: RateLimits = {
 };
 
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
-  const databaseUrl = process.env.DATABASE_URL;
+  const databaseUrl = options.databaseUrl ?? process.env.DATABASE_URL;
   if (!databaseUrl) {
     throw new Error("DATABASE_URL is not set; run the suite with `npm test`, or point DATABASE_URL at a migrated and seeded database.");
   }
@@ -60,10 +64,12 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     ...(options.workerThreads === undefined ? {} : { workerThreads: options.workerThreads }),
     ...(options.limits === undefined ? {} : { limits: options.limits }),
     rateLimits: options.rateLimits ?? TEST_RATE_LIMITS,
+    ...(options.chunkExpireSeconds === undefined ? {} : { chunkExpireSeconds: options.chunkExpireSeconds }),
     // One line per 5xx only; a passing run stays quiet.
     requestLogLevel: "warn",
   });
-  await loopyard.jobs.ready;
+  // A database the test made unreachable keeps the job queue from starting; the API still answers.
+  if (options.databaseUrl === undefined) await loopyard.jobs.ready;
   server.on("request", loopyard.app);
   return {
     url,

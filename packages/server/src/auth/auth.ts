@@ -57,6 +57,9 @@ export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | 
       },
     },
     telemetry: { enabled: false },
+    // An error that is not better-auth's own (a database that is away) goes on to the app's error
+    // middleware, which answers 503 with a sentence instead of an empty 500.
+    onAPIError: { throw: true },
     advanced: {
       cookiePrefix: "loopyard",
       useSecureCookies: origin.startsWith("https://"),
