@@ -66,7 +66,9 @@ function freePort(): Promise<number> {
 
 function run(args: string[], env: NodeJS.ProcessEnv, until?: string): Promise<ChildProcess> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, [CLI, ...args], { env, stdio: ["ignore", "pipe", "pipe"] });
+    // LOOPYARD_LOAD_PROFILE=DIR writes a CPU profile of the server (node --cpu-prof) into DIR.
+    const profile = args[0] === "serve" && process.env.LOOPYARD_LOAD_PROFILE ? ["--cpu-prof", "--cpu-prof-dir", process.env.LOOPYARD_LOAD_PROFILE] : [];
+    const child = spawn(process.execPath, [...profile, CLI, ...args], { env, stdio: ["ignore", "pipe", "pipe"] });
     let log = "";
     const onData = (data: Buffer) => {
       log += data.toString();
@@ -158,6 +160,11 @@ async function main(): Promise<void> {
       { what: `front (${finished.total} candidates)`, path: `${sweepPath}/front?x=iae&y=effort`, minRate: 600 },
       { what: `points, binary (${finished.total} candidates)`, path: `${sweepPath}/points?x=iae&y=effort`, headers: { accept: POINTS_BINARY_TYPE }, minRate: 600 },
     ];
+    // Warm-up: the server's start (pool threads loading the engine, JIT) is not what is measured.
+    await new Promise((resolve) => setTimeout(resolve, 5_000));
+    for (const target of targets) {
+      await autocannon({ url: base, connections: 10, duration: 3, headers: { ...headers, ...target.headers }, requests: [{ method: "GET", path: target.path }] });
+    }
     const rows: Row[] = [];
     for (const target of targets) {
       const before = cpuMs(server.pid!);
@@ -204,7 +211,7 @@ async function main(): Promise<void> {
     }
   } finally {
     server?.kill("SIGTERM");
-    await new Promise((resolve) => setTimeout(resolve, 1_000));
+    await new Promise((resolve) => setTimeout(resolve, 5_000));
     server?.kill("SIGKILL");
     await maintenance.query(`drop database if exists "${scratch}" with (force)`).catch(() => undefined);
     await maintenance.end();

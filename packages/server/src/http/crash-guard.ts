@@ -16,7 +16,9 @@ export function installCrashGuard(): void {
       return;
     }
     logger.fatal({ err: error, kind }, "unexpected error; stopping");
-    process.exit(1);
+    // The log is written asynchronously: let it reach stdout first (at most 1 s).
+    setTimeout(() => process.exit(1), 1_000).unref();
+    logger.flush(() => process.exit(1));
   };
   process.on("uncaughtException", handle("uncaught exception"));
   process.on("unhandledRejection", handle("unhandled rejection"));

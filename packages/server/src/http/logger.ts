@@ -11,12 +11,17 @@ export const LOG_LEVELS = ["fatal", "error", "warn", "info", "debug", "trace", "
  * LOOPYARD_LOG_LEVEL (default info). Values are fields, never format strings, so a `%s` in a URL is
  * printed as it is.
  */
-export const logger: Logger = pino({
-  name: "loopyard",
-  level: process.env.LOOPYARD_LOG_LEVEL ?? "info",
-  // A session cookie or an authorisation header never reaches the log.
-  redact: ["req.headers.cookie", "req.headers.authorization", 'res.headers["set-cookie"]'],
-});
+export const logger: Logger = pino(
+  {
+    name: "loopyard",
+    level: process.env.LOOPYARD_LOG_LEVEL ?? "info",
+    // A session cookie or an authorisation header never reaches the log.
+    redact: ["req.headers.cookie", "req.headers.authorization", 'res.headers["set-cookie"]'],
+  },
+  // Buffered (4 kB) and written asynchronously: one write per few dozen lines instead of a
+  // blocking write per request; what is buffered is flushed when the process exits.
+  pino.destination({ dest: 1, sync: false, minLength: 4096 }),
+);
 
 /** An incoming X-Request-Id is kept when it looks like an id (a proxy's), else a fresh uuid is made. */
 const REQUEST_ID = /^[A-Za-z0-9._-]{8,64}$/;
