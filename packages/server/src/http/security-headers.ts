@@ -30,8 +30,10 @@ export const PERMISSIONS_POLICY = [
  * The Content-Security-Policy of the web app's pages: scripts, workers, styles, fonts and data only
  * from the app's own origin. Exceptions, each needed by the chart library (plotly.js): inline styles
  * (it sets style attributes and writes a <style> element), `data:`/`blob:` images (its icons and
- * image exports) and `'unsafe-eval'` in scripts (its WebGL layer, regl, compiles its draw calls with
- * `new Function`; no script from elsewhere can run, and nothing the server sends is evaluated).
+ * image exports) and `'unsafe-eval'` in scripts: plotly's WebGL layer compiles its draw calls with
+ * `new Function` (without it the sweep page's scattergl cloud stays empty — checked in chromium),
+ * and zod compiles its parsers the same way. No script from another origin and no inline script
+ * can run, and nothing the server sends is evaluated.
  */
 export const PAGE_CSP_DIRECTIVES = {
   defaultSrc: ["'self'"],
