@@ -66,8 +66,15 @@ export class ApiClient {
     return this.request<T>("POST", path, json === undefined ? {} : { json });
   }
 
-  async signUp(user: { name: string; email: string; password: string }): Promise<ApiResponse> {
-    return this.post("/api/auth/sign-up/email", user);
+  /**
+   * Signs up, then signs in as the web app does (sign-up alone starts no session, so that a taken
+   * address gets the same answer as a fresh one). Returns the sign-up's answer; the session's
+   * Set-Cookie is on `signInResponse`.
+   */
+  async signUp(user: { name: string; email: string; password: string }): Promise<ApiResponse & { signInResponse?: ApiResponse }> {
+    const response = await this.post("/api/auth/sign-up/email", user);
+    if (response.status !== 200) return response;
+    return { ...response, signInResponse: await this.signIn(user.email, user.password) };
   }
 
   async signIn(email: string, password: string): Promise<ApiResponse> {

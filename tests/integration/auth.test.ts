@@ -79,7 +79,7 @@ describe("sessions", () => {
 
   it("when a session cookie is set, then it is httpOnly and SameSite=Lax", async () => {
     const client = new ApiClient(server.url);
-    const response = await client.signUp(freshUser("Cookie"));
+    const response = (await client.signUp(freshUser("Cookie"))).signInResponse!;
     const sessionCookie = response.headers.getSetCookie().find((line) => line.includes("session_token"));
     expect(sessionCookie).toBeDefined();
     expect(sessionCookie).toMatch(/HttpOnly/i);

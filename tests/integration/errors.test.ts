@@ -29,12 +29,12 @@ describe("request errors", () => {
     expect(response.body.error.message).toMatch(/larger than/);
   });
 
-  it("when the body is not sent as JSON, then the answer is 400 asking for JSON", async () => {
+  it("when the body is not sent as JSON, then the answer is 415 asking for JSON", async () => {
     const response = await team.engineer.request("POST", `/api/workspaces/${team.slug}/plants`, {
       rawBody: "name=x",
       headers: { "content-type": "application/x-www-form-urlencoded" },
     });
-    expect(response.status).toBe(400);
+    expect(response.status).toBe(415);
     expect(response.body.error.message).toMatch(/JSON/);
   });
 

@@ -83,6 +83,8 @@ export function startServerProcess(port: number, threads = 1): Promise<Spawned> 
       LOOPYARD_WORKER_THREADS: String(threads),
       LOOPYARD_AUTH_SECRET: process.env.LOOPYARD_AUTH_SECRET ?? "integration-test-secret-0123456789abcdef",
       LOOPYARD_PUBLIC_URL: `http://127.0.0.1:${port}`,
+      // Tests sign up several users from 127.0.0.1; the shipped limits are tested in rate-limits.test.ts.
+      LOOPYARD_AUTH_ATTEMPTS_PER_MINUTE: "1000",
     },
     "Loopyard is serving",
   );

@@ -89,6 +89,8 @@ export default async function setup(project: TestProject): Promise<() => Promise
       HOST: "127.0.0.1",
       LOOPYARD_PUBLIC_URL: url,
       LOOPYARD_WEB_DIST: WEB_DIST,
+      // Every browser test signs in from 127.0.0.1; the shipped limit is tested in tests/integration/rate-limits.test.ts.
+      LOOPYARD_AUTH_ATTEMPTS_PER_MINUTE: "1000",
     },
   });
   child.stdout?.pipe(log);

@@ -5,7 +5,7 @@
 import { randomBytes } from "node:crypto";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
-import { createApp } from "../../packages/server/src/index.js";
+import { createApp, type RateLimits } from "../../packages/server/src/index.js";
 
 export interface TestServer {
   /** Base URL, e.g. http://127.0.0.1:39123 (no trailing slash). */
@@ -22,10 +22,27 @@ export interface TestServerOptions {
   workerThreads?: number;
   /** Per-workspace sweep limits (default 1,000,000 candidates, 3 concurrent sweeps). */
   limits?: { maxCandidates: number; maxConcurrentSweeps: number };
+  /**
+   * Limits of the sign-in endpoints. Default: TEST_RATE_LIMITS, far above what a test file's
+   * sign-ups from one address need (the limits themselves are tested with DEFAULT_RATE_LIMITS).
+   */
+  rateLimits?: RateLimits;
+  /** Another database URL (default process.env.DATABASE_URL), e.g. as a role the test restricts. */
+  databaseUrl?: string;
+  /** Chunk job expiry [s] (default 120). */
+  chunkExpireSeconds?: number;
 }
 
+/** Every limit on, at 10,000 requests a minute: tests sign up many users from 127.0.0.1. */
+export const TEST_RATE_LIMITS: RateLimits = {
+  authPerIp: { windowSeconds: 60, max: 10_000 },
+  failedSignInsPerAccount: { windowSeconds: 60, max: 10_000 },
+  betterAuth: { windowSeconds: 60, max: 10_000 },
+  betterAuthCredentials: { windowSeconds: 60, max: 10_000 },
+};
+
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
-  const databaseUrl = process.env.DATABASE_URL;
+  const databaseUrl = options.databaseUrl ?? process.env.DATABASE_URL;
   if (!databaseUrl) {
     throw new Error("DATABASE_URL is not set; run the suite with `npm test`, or point DATABASE_URL at a migrated and seeded database.");
   }
@@ -46,8 +63,13 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     embeddedWorker: options.embeddedWorker ?? true,
     ...(options.workerThreads === undefined ? {} : { workerThreads: options.workerThreads }),
     ...(options.limits === undefined ? {} : { limits: options.limits }),
+    rateLimits: options.rateLimits ?? TEST_RATE_LIMITS,
+    ...(options.chunkExpireSeconds === undefined ? {} : { chunkExpireSeconds: options.chunkExpireSeconds }),
+    // One line per 5xx only; a passing run stays quiet.
+    requestLogLevel: "warn",
   });
-  await loopyard.jobs.ready;
+  // A database the test made unreachable keeps the job queue from starting; the API still answers.
+  if (options.databaseUrl === undefined) await loopyard.jobs.ready;
   server.on("request", loopyard.app);
   return {
     url,

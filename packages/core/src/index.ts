@@ -5,6 +5,8 @@ export { MAX_PLANT_ORDER, transferFunctionSchema } from "./plants/transfer-funct
 export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
 export { SLUG_PATTERN, memberInputSchema, workspaceInputSchema, workspaceNameSchema } from "./schemas/workspace-input.js";
+export { textField, hasForbiddenControl, isWellFormedText } from "./schemas/text.js";
+export type { TextFieldConfig } from "./schemas/text.js";
 export { CRITERION_IDS } from "./criteria/criterion-id.js";
 export {
   DEFAULT_MAX_CONCURRENT_SWEEPS,
@@ -59,7 +61,7 @@ export {
   sweepFamilySchema,
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
-export { ROLES, hasRole } from "./api/roles.js";
+export { ROLES, hasRole, canCancelSweep } from "./api/roles.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 

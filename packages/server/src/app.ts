@@ -1,11 +1,19 @@
 import express, { type Express } from "express";
 import { toNodeHandler } from "better-auth/node";
 import type { AppConfig } from "./config.js";
-import { createAuth, type Auth } from "./auth/auth.js";
-import { requireSession } from "./auth/session-middleware.js";
+import { CLIENT_ADDRESS_HEADER, createAuth, type Auth } from "./auth/auth.js";
+import { authInputGuard } from "./auth/auth-input-guard.js";
+import { SESSION_COOKIE_PATTERN, SessionCache } from "./auth/session-cache.js";
+import { forgetCachedSessions, requireSession } from "./auth/session-middleware.js";
 import { createDatabase, type RootDatabase } from "./db/database.js";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware.js";
 import { apiHeaders, securityHeaders } from "./http/security-headers.js";
+import { jsonBodyGuard } from "./http/json-body-guard.js";
+import { logger, requestLogger } from "./http/logger.js";
+import { authPerIpLimit, DEFAULT_RATE_LIMITS, failedSignInLimit, mirrorRetryAfter } from "./http/rate-limits.js";
+import { sameOriginGuard } from "./http/same-origin-guard.js";
+import { candidateIndexGuard } from "./http/candidate-index-guard.js";
+import { urlGuard } from "./http/url-guard.js";
 import { BackgroundTasks } from "./http/background-tasks.js";
 import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { meRoutes } from "./me/me-routes.js";
@@ -17,6 +25,8 @@ import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
+/** Largest body of a sign-in, sign-up or account change: a name, an email and passwords. */
+export const AUTH_BODY_LIMIT = "8kb";
 
 /** The running application: an Express app plus what it holds open. */
 export interface LoopyardApp {
@@ -47,23 +57,47 @@ export function createApp(config: AppConfig): LoopyardApp {
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
 
+  const sessions = new SessionCache();
+  const limits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
+  const publicOrigin = new URL(config.publicUrl).origin;
+  const trustedOrigins = [publicOrigin, ...(config.extraTrustedOrigins ?? []).map((url) => new URL(url).origin)];
+
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", false);
-  app.use(securityHeaders);
-  app.use("/api", apiHeaders);
+  app.use(requestLogger(config.requestLogLevel ?? "info"));
+  app.use(securityHeaders(publicOrigin.startsWith("https://")));
+  app.use(urlGuard);
+  app.use("/api", apiHeaders, sameOriginGuard(trustedOrigins, SESSION_COOKIE_PATTERN));
 
-  // better-auth reads the raw body itself, so it goes before express.json().
+  // better-auth, behind Loopyard's own limits and checks: rate limits per address and per account,
+  // a small JSON body (parsed here; better-auth reads the parsed body), names and passwords checked.
+  app.use(
+    "/api/auth",
+    (req, _res, next) => {
+      delete req.headers[CLIENT_ADDRESS_HEADER];
+      req.headers[CLIENT_ADDRESS_HEADER] = req.socket.remoteAddress ?? "";
+      next();
+    },
+    mirrorRetryAfter,
+    authPerIpLimit(limits.authPerIp),
+    express.json({ limit: AUTH_BODY_LIMIT }),
+    jsonBodyGuard,
+    authInputGuard,
+    forgetCachedSessions(sessions),
+  );
+  app.post("/api/auth/sign-in/email", failedSignInLimit(limits.failedSignInsPerAccount));
   app.all("/api/auth/*splat", toNodeHandler(auth));
 
-  app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.use(express.json({ limit: JSON_BODY_LIMIT }), jsonBodyGuard);
   app.get("/api/health", (_req, res) => {
     res.json({ ok: true });
   });
 
-  app.use("/api", requireSession(auth));
-  app.use("/api/me", meRoutes(db));
+  app.use("/api", requireSession(auth, sessions));
+  app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db));
+  app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background),
@@ -72,7 +106,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", apiNotFound);
 
   if (config.webDist && !serveWebApp(app, config.webDist)) {
-    console.warn(`[loopyard] no web app at ${config.webDist} (index.html missing); serving the API only. Build it with: npm run build`);
+    logger.warn({ webDist: config.webDist }, "no web app (index.html missing); serving the API only. Build it with: npm run build");
     app.use(webAppMissing(config.webDist));
   }
 

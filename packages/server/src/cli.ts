@@ -14,6 +14,7 @@
  */
 import type { Server } from "node:http";
 import { createApp } from "./app.js";
+import { installCrashGuard } from "./http/crash-guard.js";
 import { configFromEnv, ConfigError, DEFAULT_DATABASE_URL, defaultMigrationsFolder } from "./config.js";
 import { createAuth } from "./auth/auth.js";
 import { createDatabase } from "./db/database.js";
@@ -69,6 +70,7 @@ async function seedCommand(): Promise<void> {
 }
 
 async function serveCommand(): Promise<void> {
+  installCrashGuard();
   const config = configFromEnv();
   const loopyard = createApp(config);
   const server: Server = await new Promise((resolve, reject) => {
@@ -103,6 +105,7 @@ async function serveCommand(): Promise<void> {
  * SIGINT/SIGTERM (running chunks finish first).
  */
 async function workerCommand(): Promise<void> {
+  installCrashGuard();
   const databaseUrl = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
   const threadsText = process.env.LOOPYARD_WORKER_THREADS;
   const threads = threadsText === undefined || threadsText === "" ? undefined : Number(threadsText);

@@ -1,6 +1,7 @@
 import { DEFAULT_MAX_CONCURRENT_SWEEPS, MAX_SWEEP_CANDIDATES } from "@loopyard/core";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { DEFAULT_RATE_LIMITS, type RateLimits } from "./http/rate-limits.js";
 
 /** What createApp needs to run; every field comes from the environment in the CLI. */
 export interface AppConfig {
@@ -24,6 +25,10 @@ export interface AppConfig {
   chunkExpireSeconds?: number;
   /** Per-workspace sweep limits (LOOPYARD_MAX_CANDIDATES, LOOPYARD_MAX_CONCURRENT_SWEEPS). */
   limits?: { maxCandidates: number; maxConcurrentSweeps: number };
+  /** Limits of the sign-in endpoints (default DEFAULT_RATE_LIMITS; LOOPYARD_AUTH_ATTEMPTS_PER_MINUTE sets the per-address ones). */
+  rateLimits?: RateLimits;
+  /** Level of the per-request log lines (default "info"; LOOPYARD_LOG_LEVEL sets every log line's). */
+  requestLogLevel?: "fatal" | "error" | "warn" | "info" | "debug" | "trace" | "silent";
 }
 
 /** Settings of the command-line entry point on top of AppConfig. */
@@ -93,9 +98,17 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): ServerConfi
     maxCandidates: wholeNumber("LOOPYARD_MAX_CANDIDATES", MAX_SWEEP_CANDIDATES, 1),
     maxConcurrentSweeps: wholeNumber("LOOPYARD_MAX_CONCURRENT_SWEEPS", DEFAULT_MAX_CONCURRENT_SWEEPS, 1),
   };
+  const attemptsPerMinute = wholeNumber("LOOPYARD_AUTH_ATTEMPTS_PER_MINUTE", DEFAULT_RATE_LIMITS.authPerIp.max, 1);
+  const rateLimits: RateLimits = {
+    ...DEFAULT_RATE_LIMITS,
+    authPerIp: { windowSeconds: 60, max: attemptsPerMinute },
+    betterAuthCredentials: { windowSeconds: 60, max: Math.max(attemptsPerMinute, DEFAULT_RATE_LIMITS.betterAuthCredentials.max) },
+    betterAuth: { windowSeconds: 60, max: Math.max(attemptsPerMinute, DEFAULT_RATE_LIMITS.betterAuth.max) },
+  };
   const workerThreads = env.LOOPYARD_WORKER_THREADS ? wholeNumber("LOOPYARD_WORKER_THREADS", 1, 0) : undefined;
   return {
     limits,
+    rateLimits,
     embeddedWorker: env.LOOPYARD_EMBEDDED_WORKER !== "0",
     chunkExpireSeconds: wholeNumber("LOOPYARD_CHUNK_EXPIRE_SECONDS", 120, 1),
     ...(workerThreads === undefined ? {} : { workerThreads }),

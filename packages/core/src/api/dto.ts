@@ -37,6 +37,19 @@ export interface MeDto {
   memberships: { workspace: WorkspaceDto; role: Role }[];
 }
 
+/** One signed-in session of the current user (GET /api/me/sessions); the token never leaves the server. */
+export interface SessionDto {
+  id: string;
+  /** ISO 8601 times. */
+  createdAt: string;
+  lastSeenAt: string;
+  expiresAt: string;
+  ipAddress: string | null;
+  userAgent: string | null;
+  /** True for the session the request was made with. */
+  current: boolean;
+}
+
 /** GET /api/workspaces/:slug */
 export interface WorkspaceHomeDto {
   workspace: WorkspaceDto;

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { plantModelSchema } from "../plants/plant.js";
+import { textField } from "./text.js";
 
 /**
  * What a user submits to create a plant or a new revision of it:
@@ -7,8 +8,8 @@ import { plantModelSchema } from "../plants/plant.js";
  * and the model. Errors carry a path such as `model.den`.
  */
 export const plantInputSchema = z.object({
-  name: z.string().trim().min(1, "give the plant a name").max(120, "keep the name under 120 characters"),
-  unitsNote: z.string().trim().max(500, "keep the units note under 500 characters").default(""),
+  name: textField({ label: "name", min: 1, required: "give the plant a name", max: 120 }),
+  unitsNote: textField({ label: "units note", max: 500 }).default(""),
   model: plantModelSchema,
 });
 

@@ -1,16 +1,13 @@
 import { z } from "zod";
 import { ROLES } from "../api/roles.js";
 import { MAX_TITLE_LENGTH } from "../limits.js";
+import { textField } from "./text.js";
 
 /** Shape of a workspace slug: lower-case words joined by single hyphens. */
 export const SLUG_PATTERN = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
 
 /** A workspace's name: 1 to MAX_TITLE_LENGTH characters after trimming (the server and the create page). */
-export const workspaceNameSchema = z
-  .string()
-  .trim()
-  .min(1, "give the workspace a name")
-  .max(MAX_TITLE_LENGTH, `keep the name under ${MAX_TITLE_LENGTH} characters`);
+export const workspaceNameSchema = textField({ label: "name", min: 1, required: "give the workspace a name", max: MAX_TITLE_LENGTH });
 
 /** POST /api/workspaces */
 export const workspaceInputSchema = z.object({
@@ -26,7 +23,7 @@ export const workspaceInputSchema = z.object({
 
 /** POST /api/workspaces/:slug/members */
 export const memberInputSchema = z.object({
-  email: z.email("give the email address the person signed up with"),
+  email: z.email("give the email address the person signed up with").max(254, "an email address has at most 254 characters"),
   role: z.enum(ROLES, { error: `choose one of the roles ${ROLES.join(", ")}` }),
 });
 

@@ -135,6 +135,9 @@ async function main(): Promise<void> {
     const call = client(base);
     const signUp = await call("POST", "/api/auth/sign-up/email", { name: "Bench Runner", email: BENCH_EMAIL, password: BENCH_PASSWORD });
     if (signUp.status !== 200) throw new Error(`sign-up answered ${signUp.status}`);
+    // Sign-up starts no session (a taken address must answer like a fresh one); sign in next.
+    const signIn = await call("POST", "/api/auth/sign-in/email", { email: BENCH_EMAIL, password: BENCH_PASSWORD });
+    if (signIn.status !== 200) throw new Error(`sign-in answered ${signIn.status}`);
     const workspace = await call("POST", "/api/workspaces", { name: "Halvard Thermoworks — bench" });
     const slug: string = workspace.body.slug;
     const revisions: string[] = [];

@@ -1,3 +1,5 @@
+import { logger } from "./logger.js";
+
 /**
  * Work a request starts and does not wait for (e.g. computing a new sweep's references). Failures are
  * logged, never thrown; `settle` waits for whatever is still running, so the app closes its database
@@ -10,7 +12,7 @@ export class BackgroundTasks {
   run(label: string, task: () => Promise<void>): void {
     const done: Promise<void> = new Promise<void>((resolve) => setImmediate(resolve))
       .then(task)
-      .catch((error: unknown) => console.warn(`[loopyard] ${label} failed: ${error instanceof Error ? error.message : String(error)}`))
+      .catch((error: unknown) => logger.warn({ err: error, task: label }, "background task failed"))
       .finally(() => this.running.delete(done));
     this.running.add(done);
   }

@@ -1,4 +1,5 @@
 import {
+  canCancelSweep,
   CRITERION_IDS,
   DEFAULT_MAX_CONCURRENT_SWEEPS,
   downsampleIndices,
@@ -133,6 +134,9 @@ async function assertLabelFitsRevision(db: Database, workspaceId: string, label:
 /** Cancels a queued or running sweep: workers skip its remaining chunks; chunks already stored are kept. */
 export async function cancelSweep(db: Database, stopJobs: SweepStarter, access: MemberAccess, sweepId: string): Promise<SweepDetailDto> {
   const sweep = await getSweep(db, access, sweepId);
+  if (!canCancelSweep({ role: access.role, userId: access.user.id }, sweep.createdBy.id)) {
+    throw new HttpError(403, `Only ${sweep.createdBy.name} (who started this sweep), a lead or an admin can cancel it; you are ${access.role === "engineer" ? "an" : "a"} ${access.role}.`);
+  }
   if (!(await markSweepCancelled(db, sweepId))) {
     throw new HttpError(409, `This sweep is already ${sweep.status}; only a queued or running sweep can be cancelled.`);
   }

@@ -4,7 +4,8 @@ import type { Database } from "../db/database.js";
 import { currentUser } from "../auth/session-middleware.js";
 import { pathParam } from "../http/validation.js";
 import { HttpError, notFound } from "../http/http-error.js";
-import { findRole, findWorkspaceBySlug } from "./workspace-repository.js";
+import { findMemberWorkspace } from "./workspace-repository.js";
+import { SLUG_PATTERN } from "./workspace-input.js";
 
 /** A signed-in user's standing in one workspace, after the role check passed. */
 export interface MemberAccess {
@@ -23,19 +24,22 @@ export function roleRefusal(action: string, needed: Role, workspaceName: string,
   return `${action} needs ${level} in ${workspaceName}; you are ${withArticle(role)}.`;
 }
 
+/** The answer to anyone who is not a member, whether or not the workspace exists: the same 404, naming nothing. */
+export function workspaceNotFound(slug: string): HttpError {
+  return notFound(`There is no workspace “${slug}” that you are a member of; check the address, or ask one of its admins to add you.`);
+}
+
 /**
- * Server-side role check of every workspace route: 404 when the workspace does not exist,
- * 403 when the user is not a member or has too low a role (the sentence names the role needed).
+ * Server-side role check of every workspace route, in one query: 404 when the workspace does not
+ * exist or the user is not a member (the same answer, so that a workspace's name and existence do
+ * not leak to outsiders), 403 when the member's role is too low (the sentence names the role needed).
  *
  * @param action what the user tries to do, as the subject of a sentence: "Creating plants".
  */
 export async function requireMember(db: Database, user: UserDto, slug: string, needed: Role, action: string): Promise<MemberAccess> {
-  const workspace = await findWorkspaceBySlug(db, slug);
-  if (!workspace) throw notFound(`There is no workspace “${slug}”.`);
-  const role = await findRole(db, workspace.id, user.id);
-  if (!role) {
-    throw new HttpError(403, `You are not a member of ${workspace.name}; ask one of its admins to add you.`);
-  }
+  const found = SLUG_PATTERN.test(slug) ? await findMemberWorkspace(db, slug, user.id) : null;
+  if (!found) throw workspaceNotFound(slug);
+  const { workspace, role } = found;
   if (!hasRole(role, needed)) throw new HttpError(403, roleRefusal(action, needed, workspace.name, role));
   return { workspace, role, user };
 }
@@ -51,11 +55,13 @@ declare module "express-serve-static-core" {
  * Route middleware: checks the role before the body is even read, so that a refused user learns
  * about the role and not about the fields. Needs requireSession before it and a :slug parameter.
  */
-export function memberOf(db: Database, needed: Role, action: string): RequestHandler {
-  return async (req, _res, next) => {
+export function memberOf(db: Database, needed: Role, action: string): RequestHandler & { requiredRole: Role } {
+  const check: RequestHandler = async (req, _res, next) => {
     req.access = await requireMember(db, currentUser(req), pathParam(req.params.slug), needed, action);
     next();
   };
+  // Read by the route table (http/route-table.ts), so that tests know each route's role from the routes themselves.
+  return Object.assign(check, { requiredRole: needed });
 }
 
 /** The access memberOf put on the request. */

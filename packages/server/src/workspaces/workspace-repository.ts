@@ -1,4 +1,4 @@
-import { and, asc, count, eq } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import type { Role, UserDto, WorkspaceDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { membership, plant, sweep, user, workspace } from "../db/schema.js";
@@ -8,6 +8,33 @@ const workspaceDtoColumns = { id: workspace.id, slug: workspace.slug, name: work
 
 export async function findWorkspaceBySlug(db: Database, slug: string): Promise<WorkspaceDto | null> {
   const rows = await db.select(workspaceDtoColumns).from(workspace).where(eq(workspace.slug, slug)).limit(1);
+  return rows[0] ?? null;
+}
+
+function prepareMemberWorkspace(db: Database) {
+  return db
+    .select({ workspace: workspaceDtoColumns, role: membership.role })
+    .from(workspace)
+    .innerJoin(membership, and(eq(membership.workspaceId, workspace.id), eq(membership.userId, sql.placeholder("userId"))))
+    .where(eq(workspace.slug, sql.placeholder("slug")))
+    .limit(1)
+    .prepare("loopyard_member_workspace");
+}
+
+/** The prepared membership query, once per database handle (its SQL is built once, not per request). */
+const memberWorkspaceQueries = new WeakMap<Database, ReturnType<typeof prepareMemberWorkspace>>();
+
+/**
+ * The workspace with this slug and the user's role in it, in one prepared query (every workspace
+ * request makes it): null when there is no such workspace or the user is not a member of it.
+ */
+export async function findMemberWorkspace(db: Database, slug: string, userId: string): Promise<{ workspace: WorkspaceDto; role: Role } | null> {
+  let query = memberWorkspaceQueries.get(db);
+  if (!query) {
+    query = prepareMemberWorkspace(db);
+    memberWorkspaceQueries.set(db, query);
+  }
+  const rows = await query.execute({ slug, userId });
   return rows[0] ?? null;
 }
 
@@ -59,10 +86,14 @@ export async function listMembers(db: Database, workspaceId: string): Promise<{ 
 }
 
 export async function countWorkspaceContents(db: Database, workspaceId: string): Promise<{ plants: number; sweeps: number; members: number }> {
-  const [plants, sweeps, members] = await Promise.all([
-    db.select({ n: count() }).from(plant).where(eq(plant.workspaceId, workspaceId)),
-    db.select({ n: count() }).from(sweep).where(eq(sweep.workspaceId, workspaceId)),
-    db.select({ n: count() }).from(membership).where(eq(membership.workspaceId, workspaceId)),
-  ]);
-  return { plants: plants[0]?.n ?? 0, sweeps: sweeps[0]?.n ?? 0, members: members[0]?.n ?? 0 };
+  // One round trip for the three counts (the workspace home asks on every visit).
+  const rows = await db
+    .select({
+      plants: sql<number>`(select count(*)::int from ${plant} where ${plant.workspaceId} = ${workspaceId})`,
+      sweeps: sql<number>`(select count(*)::int from ${sweep} where ${sweep.workspaceId} = ${workspaceId})`,
+      members: sql<number>`(select count(*)::int from ${membership} where ${membership.workspaceId} = ${workspaceId})`,
+    })
+    .from(workspace)
+    .where(eq(workspace.id, workspaceId));
+  return rows[0] ?? { plants: 0, sweeps: 0, members: 0 };
 }

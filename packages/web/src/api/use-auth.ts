@@ -19,11 +19,18 @@ export function useSignIn() {
   });
 }
 
-/** POST /api/auth/sign-up/email; better-auth signs the new user in. */
+/**
+ * POST /api/auth/sign-up/email, then sign in with the same address and password: sign-up alone
+ * starts no session (the server answers a taken address like a fresh one, so as not to tell who
+ * has an account).
+ */
 export function useSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: SignUpInput) => apiFetch<unknown>("/auth/sign-up/email", { method: "POST", body: input }),
+    mutationFn: async (input: SignUpInput) => {
+      await apiFetch<unknown>("/auth/sign-up/email", { method: "POST", body: input });
+      return apiFetch<unknown>("/auth/sign-in/email", { method: "POST", body: { email: input.email, password: input.password } });
+    },
     onSuccess: () => queryClient.clear(),
   });
 }
