@@ -2,7 +2,7 @@ import type { CriterionOptions } from "../criteria/criterion-definition.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import { CRITERIA } from "../criteria/registry.js";
 import type { LinearPlant } from "../plants/plant.js";
-import { evaluateCandidate, type CandidateEvaluation } from "../simulation/evaluate-candidate.js";
+import { evaluateCandidate, type CandidateEvaluation } from "../evaluation/evaluate-candidate.js";
 import type { LoopTrace } from "../simulation/loop-trace.js";
 import type { Scenario } from "../simulation/scenario.js";
 import { continuousController } from "./deployable-pid.js";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { evaluateCandidate } from "../../src/simulation/evaluate-candidate.js";
+import { evaluateCandidate } from "../../src/evaluation/evaluate-candidate.js";
 import { planSweep } from "../../src/sweeps/plan-sweep.js";
 import { evaluateSweepChunk } from "../../src/sweeps/evaluate-sweep-chunk.js";
 import { SweepPlanError } from "../../src/sweeps/sweep-plan-error.js";
