@@ -39,6 +39,7 @@ export { SweepPlanError } from "./sweeps/sweep-plan-error.js";
 export { dottedField, firstSweepIssue, sweepIssues } from "./sweeps/sweep-issue.js";
 export { searchBudget } from "./sweeps/search-budget.js";
 export { searchObjectiveMatrix } from "./search/search-objectives.js";
+export { createSweepSearch, runSweepSearch } from "./sweeps/sweep-search.js";
 export { MAX_FREQUENCY_POINTS, PLOT_TAIL_GAIN, thinFrequencyResponse } from "./frequency/thin-frequency-response.js";
 export { MAX_TRACE_POINTS, downsampleIndices, pick } from "./traces/downsample-trace.js";
 export {
@@ -263,6 +264,7 @@ export type { SweepPlan } from "./sweeps/plan-sweep.js";
 export type { SweepBatch, SweepBatchEvaluator, SweepChunk, SweepRow, SweepRowStatus, SweepSelection } from "./sweeps/evaluate-sweep-chunk.js";
 export type { SweepIssue } from "./sweeps/sweep-issue.js";
 export type { SearchBudgetDesign } from "./sweeps/search-budget.js";
+export type { SweepSearch } from "./sweeps/sweep-search.js";
 export type { ThinFrequencyResponse } from "./frequency/thin-frequency-response.js";
 export type {
   ParameterRange,
