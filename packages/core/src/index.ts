@@ -211,6 +211,7 @@ export { DormandPrince, DEFAULT_TOLERANCE } from "./simulation/dormand-prince.js
 export { continuousClosedLoop, closedLoopSteadyState, LOOP_INPUTS } from "./simulation/continuous-closed-loop.js";
 export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulation/exact-loop.js";
 export { runGridLoop } from "./simulation/grid-loop.js";
+export { runJointLoop } from "./simulation/joint-loop.js";
 export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
 export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
 export { isContinuousLoopStable, isLoopStable, loopVerdict } from "./evaluation/evaluate-candidate.js";
@@ -328,6 +329,7 @@ export type { ResolvedScenario } from "./simulation/resolve-scenario.js";
 export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
 export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
 export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
+export type { JointLoopConfig } from "./simulation/joint-loop.js";
 export type { EvaluateCandidateOptions } from "./evaluation/evaluate-candidate.js";
 export type { ComplexSamples, FrequencyResponse, FrequencyResponseOptions } from "./frequency/frequency-response.js";
 export type { FrequencyPeak } from "./frequency/grid-peak.js";
