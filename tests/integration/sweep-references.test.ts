@@ -125,10 +125,10 @@ describe("GET …/sweeps/:sweepId/references", () => {
     await waitForSweep(team.viewer, team.slug, created.body.id);
   });
 
-  it("when a non-member asks, then the answer is 403; signed out, 401", async () => {
+  it("when a non-member asks, then the answer is 404 as for no such workspace; signed out, 401", async () => {
     expect((await new ApiClient(server.url).get(`${sweepPath()}/references`)).status).toBe(401);
     const stranger = await workspaceWithTeam(server.url, "References stranger");
-    expect((await stranger.viewer.get(`${sweepPath()}/references`)).status).toBe(403);
+    expect((await stranger.viewer.get(`${sweepPath()}/references`)).status).toBe(404);
   });
 });
 

@@ -3,6 +3,7 @@ import { toNodeHandler } from "better-auth/node";
 import type { AppConfig } from "./config.js";
 import { CLIENT_ADDRESS_HEADER, createAuth, type Auth } from "./auth/auth.js";
 import { authInputGuard } from "./auth/auth-input-guard.js";
+import { loadCommonPasswords } from "./auth/common-passwords.js";
 import { SESSION_COOKIE_PATTERN, SessionCache } from "./auth/session-cache.js";
 import { forgetCachedSessions, requireSession } from "./auth/session-middleware.js";
 import { createDatabase, type RootDatabase } from "./db/database.js";
@@ -58,6 +59,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   });
 
   const sessions = new SessionCache();
+  void loadCommonPasswords();
   const limits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
   const publicOrigin = new URL(config.publicUrl).origin;
   const trustedOrigins = [publicOrigin, ...(config.extraTrustedOrigins ?? []).map((url) => new URL(url).origin)];
