@@ -48,6 +48,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     ...(options.limits === undefined ? {} : { limits: options.limits }),
   });
   await loopyard.jobs.ready;
+  await loopyard.comparisonJobs.ready;
   server.on("request", loopyard.app);
   return {
     url,

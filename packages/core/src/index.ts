@@ -31,6 +31,30 @@ export { ROLES, hasRole } from "./api/roles.js";
 export { isDrawingPage } from "./api/page-paths.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
+// Comparisons over the API: the submitted input (family by plant revisions) and the DTOs.
+export { comparisonInputSchema } from "./api/comparison-input.js";
+export type { ComparisonInput } from "./api/comparison-input.js";
+export type * from "./api/comparison-dto.js";
+// Comparison engine: what the server's jobs call (comparison/).
+export {
+  comparisonDefinitionSchema,
+  contenderKey,
+  DEFAULT_COMPARISON_BUDGET,
+  MAX_CONTENDERS,
+} from "./comparison/comparison-definition.js";
+export { planComparison } from "./comparison/comparison-plan.js";
+export { prescanVectors, prescanChunk, evaluatePrescanChunk, assemblePrescan } from "./comparison/prescan.js";
+export { pickStarts, createPickRefinement, refinePick } from "./comparison/pick-refinement.js";
+export { oriented } from "./comparison/comparison-rows.js";
+export { crossScore, regretPercent } from "./comparison/cross-score.js";
+export { reconcilePicks } from "./comparison/reconcile-picks.js";
+export type { CrossScore } from "./comparison/cross-score.js";
+export { kendallTau, kendallTauMatrix } from "./comparison/kendall-tau.js";
+export type { ComparisonDefinition, Contender } from "./comparison/comparison-definition.js";
+export type { ComparisonPlan, ComparisonColumn } from "./comparison/comparison-plan.js";
+export type { PrescanChunk, PrescanResult } from "./comparison/prescan.js";
+export type { ComparisonPick } from "./comparison/comparison-pick.js";
+export type { ComparisonVariant } from "./comparison/sweep-adapter.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";

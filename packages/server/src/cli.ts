@@ -23,6 +23,7 @@ import { SweepRunner } from "./sweeps/sweep-runner.js";
 import { chunkExpireSecondsFromEnv, startJobQueue } from "./jobs/job-queue.js";
 import { resumeSweepJobs } from "./sweeps/sweep-jobs.js";
 import { startSweepWorker } from "./workers/sweep-worker.js";
+import { createComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 
 const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve|worker>";
 
@@ -110,6 +111,9 @@ async function workerCommand(): Promise<void> {
   const boss = await startJobQueue(databaseUrl, { expireSeconds: chunkExpireSecondsFromEnv() });
   const worker = await startSweepWorker(database.db, boss, threads === undefined ? {} : { threads });
   await resumeSweepJobs(database.db, boss);
+  // Comparisons: their own queues and pool, resumed likewise.
+  const comparisons = createComparisonJobSystem(database.db, databaseUrl, threads === undefined ? {} : { workerThreads: threads });
+  await comparisons.ready;
   console.log(`Loopyard worker ${worker.id} is working sweep chunks with ${worker.threads} threads on ${redact(databaseUrl)}.`);
   let stopping = false;
   const stop = (signal: string) => {
@@ -117,6 +121,7 @@ async function workerCommand(): Promise<void> {
     stopping = true;
     console.log(`${signal} received; finishing the running chunks…`);
     (async () => {
+      await comparisons.close();
       await worker.close();
       await boss.stop({ graceful: true, timeout: 10_000, wait: true });
       await database.close();
