@@ -22,12 +22,12 @@ export const COMPARISON_REFINE_QUEUE = "comparison-refine";
 export const COMPARISON_ANALYSE_QUEUE = "comparison-analyse";
 export const COMPARISON_QUEUES = [COMPARISON_PRESCAN_QUEUE, COMPARISON_REFINE_QUEUE, COMPARISON_ANALYSE_QUEUE] as const;
 
-/** Most point·variant evaluations in one pre-scan chunk (as a sweep's chunk). */
-export const PRESCAN_CHUNK_EVALUATIONS = 2000;
+/** Most point·variant evaluations in one pre-scan chunk (half a sweep's chunk: a chunk must finish well within the job expiry on a busy host). */
+export const PRESCAN_CHUNK_EVALUATIONS = 1000;
 /** Fewest points in one pre-scan chunk. */
 export const MIN_PRESCAN_CHUNK = 16;
-/** A pre-scan is cut into about this many chunks, so that progress moves and two workers share it. */
-export const TARGET_PRESCAN_CHUNKS = 8;
+/** A pre-scan is cut into about this many chunks, so that progress moves and several workers share it. */
+export const TARGET_PRESCAN_CHUNKS = 16;
 
 export interface PrescanChunkJob {
   comparisonId: string;
@@ -45,7 +45,7 @@ export interface AnalyseJob {
 
 /**
  * Points per pre-scan chunk for `total` points on `variants` plants:
- * min(max(16, ⌊2000 / variants⌋), max(16, ⌈total / 8⌉)).
+ * min(max(16, ⌊1000 / variants⌋), max(16, ⌈total / 16⌉)).
  */
 export function prescanChunkSize(total: number, variants: number): number {
   const largest = Math.max(MIN_PRESCAN_CHUNK, Math.floor(PRESCAN_CHUNK_EVALUATIONS / Math.max(1, variants)));
