@@ -1,9 +1,10 @@
 #!/usr/bin/env node
-// The `loopyard` command line: evaluate one candidate or run a sweep (see packages/core/README.md, "CLI").
+// The `loopyard` command line: evaluate one candidate, run a sweep or compare criteria (see packages/core/README.md, "CLI").
 import { availableParallelism } from "node:os";
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_UNEXPECTED, isCliInputError } from "./cli-error.js";
 import { baselinesCommand } from "./baselines-command.js";
 import { boundCommand } from "./bound-command.js";
+import { compareCommand } from "./compare-command.js";
 import { evaluateCommand } from "./evaluate-command.js";
 import { parseArguments, USAGE } from "./parse-arguments.js";
 import { sweepCommand } from "./sweep-command.js";
@@ -27,6 +28,10 @@ async function main(argv: readonly string[]): Promise<number> {
     }
     if (parsed.command === "baselines") {
       process.stdout.write(`${await baselinesCommand(parsed.source)}\n`);
+      return EXIT_OK;
+    }
+    if (parsed.command === "compare") {
+      process.stdout.write(`${await compareCommand(parsed.source, { workers: parsed.workers })}\n`);
       return EXIT_OK;
     }
     if (parsed.command === "bound") {
