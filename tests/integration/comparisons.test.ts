@@ -24,7 +24,7 @@ afterAll(async () => {
 describe("comparisons", () => {
   it("when an engineer starts a comparison, then it finishes with a pick per contender, regret 0 on the diagonal and every pick within its constraint", async () => {
     const path = `/api/workspaces/${team.slug}/comparisons`;
-    const created = await team.engineer.post(path, smallComparison("Four criteria", revisions));
+    const created = await team.engineer.post(path, smallComparison("Four criteria", revisions, { budget: { prescan: 64, starts: 2, evaluations: 60, stability: true } }));
     expect(created.status).toBe(201);
     expect(created.body.contenders).toEqual(["iae", "itae", "ise", "J(r=0.05)"]);
     const done = await waitForComparison(team.viewer, team.slug, created.body.id);
@@ -43,6 +43,31 @@ describe("comparisons", () => {
       expect(pick.found).toBe(true);
       for (const row of pick.perVariant) expect(row[ms]).toBeLessThanOrEqual(1.8);
     }
+    // Kendall's τ of a criterion with itself is 1 (definition); the summary is sentences built from the numbers.
+    for (let a = 0; a < result.body.agreement.columns.length; a++) expect(result.body.agreement.tau[a][a]).toBeCloseTo(1, 12);
+    expect(result.body.summary.length).toBeGreaterThan(1);
+    expect(result.body.summary[0]).toMatch(/^Of 64 pre-scan candidates, \d+ are stable on all 3 variants and \d+ of them meet Ms ≤ 1.8 on every variant\.$/);
+    expect(result.body.perVariant).toHaveLength(4);
+    // Stability: each of the 3 variants left out, and the one quadratic weight r halved and doubled.
+    expect(result.body.stability.map((e: { label: string }) => e.label)).toEqual(["without gain 1", "without gain 1.4", "without gain 0.7", "J(r=0.05) with r = 0.025", "J(r=0.05) with r = 0.1"]);
+    expect(result.body.variants).toEqual(["gain 1", "gain 1.4", "gain 0.7"]);
+  });
+
+  it("when finished comparisons share contenders, then the across page lines up each contender's regret on the chosen judge", async () => {
+    const path = `/api/workspaces/${team.slug}/comparisons`;
+    const across = await team.viewer.get(`${path}/across?judge=overshoot`);
+    expect(across.status).toBe(200);
+    const finished = (await team.viewer.get(path)).body.filter((c: { status: string }) => c.status === "finished");
+    expect(across.body.comparisons.map((c: { id: string }) => c.id).sort()).toEqual(finished.map((c: { id: string }) => c.id).sort());
+    expect(across.body.rows.map((r: { contender: string }) => r.contender)).toEqual(["iae", "itae", "ise", "J(r=0.05)"]);
+    // Each cell is the stored cross-score's regret on overshoot for that contender's pick.
+    const first = across.body.comparisons[0].id;
+    const stored = (await team.viewer.get(`${path}/${first}/result`)).body.crossScore;
+    const col = stored.columns.indexOf("overshoot");
+    across.body.rows.forEach((row: { regrets: (number | null)[] }, i: number) => expect(row.regrets[0]).toBe(stored.regrets[i][col]));
+    const unknown = await team.viewer.get(`${path}/across?judge=nope`);
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.message).toMatch(/no finished comparison scored “nope”/);
   });
 
   it("when the same comparison runs twice with one seed, then the picks are the same", async () => {

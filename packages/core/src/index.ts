@@ -35,26 +35,6 @@ export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 export { comparisonInputSchema } from "./api/comparison-input.js";
 export type { ComparisonInput } from "./api/comparison-input.js";
 export type * from "./api/comparison-dto.js";
-// Comparison engine: what the server's jobs call (comparison/).
-export {
-  comparisonDefinitionSchema,
-  contenderKey,
-  DEFAULT_COMPARISON_BUDGET,
-  MAX_CONTENDERS,
-} from "./comparison/comparison-definition.js";
-export { planComparison } from "./comparison/comparison-plan.js";
-export { prescanVectors, prescanChunk, evaluatePrescanChunk, assemblePrescan } from "./comparison/prescan.js";
-export { pickStarts, createPickRefinement, refinePick } from "./comparison/pick-refinement.js";
-export { oriented } from "./comparison/comparison-rows.js";
-export { crossScore, regretPercent } from "./comparison/cross-score.js";
-export { reconcilePicks } from "./comparison/reconcile-picks.js";
-export type { CrossScore } from "./comparison/cross-score.js";
-export { kendallTau, kendallTauMatrix } from "./comparison/kendall-tau.js";
-export type { ComparisonDefinition, Contender } from "./comparison/comparison-definition.js";
-export type { ComparisonPlan, ComparisonColumn } from "./comparison/comparison-plan.js";
-export type { PrescanChunk, PrescanResult } from "./comparison/prescan.js";
-export type { ComparisonPick } from "./comparison/comparison-pick.js";
-export type { ComparisonVariant } from "./comparison/sweep-adapter.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";
@@ -320,3 +300,72 @@ export type { SeriesGains, SimcTuning } from "./tuning/simc.js";
 export type { LambdaTuning } from "./tuning/lambda-imc.js";
 export type { Baseline, BaselineModel, BaselineOptions, BaselineRule, BaselineVariant } from "./tuning/baselines.js";
 export type { ScoredBaseline, ScoreBaselinesOptions } from "./tuning/score-baselines.js";
+
+// Comparison of criteria (comparison/): contenders' picks, cross-score, agreement, stability, summary.
+export {
+  DEFAULT_COMPARISON_BUDGET,
+  MAX_COMPARISON_PARAMETERS,
+  MAX_CONTENDERS,
+  MAX_PRESCAN,
+  MIN_PRESCAN,
+  comparisonBudgetSchema,
+  comparisonDefinitionSchema,
+  comparisonSpecSchema,
+  constraintSchema,
+  contenderKey,
+  contenderSchema,
+  definitionIssue,
+  quadraticContenderSchema,
+} from "./comparison/comparison-definition.js";
+export { baseCriteriaOf, planComparison, refinementCriteria } from "./comparison/comparison-plan.js";
+export { aggregateRows, comparisonRows, isFeasible, meetsConstraint } from "./comparison/comparison-rows.js";
+export { assemblePrescan, evaluatePrescanChunk, prescanChunk, prescanVectors } from "./comparison/prescan.js";
+export { AT_BOUND_TOLERANCE, missingPick, scorePick } from "./comparison/comparison-pick.js";
+export {
+  REFINE_F_TOLERANCE,
+  REFINE_MAX_STEP,
+  REFINE_MIN_STEP,
+  REFINE_X_TOLERANCE,
+  createPickRefinement,
+  pickStarts,
+  refinePick,
+  runPickRefinement,
+} from "./comparison/pick-refinement.js";
+export { reconcilePicks } from "./comparison/reconcile-picks.js";
+export { crossScore, regretPercent } from "./comparison/cross-score.js";
+export {
+  WEIGHT_FACTORS,
+  checkStability,
+  createStabilityRefinements,
+  rescorePick,
+  stabilityEntry,
+  stabilityVariations,
+  variationLabel,
+  variationPlan,
+} from "./comparison/comparison-stability.js";
+export { comparisonAgreement } from "./comparison/comparison-agreement.js";
+export { kendallTau, kendallTauMatrix } from "./comparison/kendall-tau.js";
+export { ACTIVE_CONSTRAINT_FRACTION, comparisonSummary } from "./comparison/comparison-summary.js";
+export { analyseComparison } from "./comparison/analyse-comparison.js";
+export { DEFAULT_PRESCAN_CHUNK, evaluateInProcess, runComparison } from "./comparison/run-comparison.js";
+export { comparisonSetup, evaluateVectors, vectorsBatch } from "./comparison/sweep-adapter.js";
+export type {
+  ComparisonBudget,
+  ComparisonDefinition,
+  ComparisonDefinitionInput,
+  ComparisonSpec,
+  Contender,
+  QuadraticContender,
+} from "./comparison/comparison-definition.js";
+export type { ComparisonColumn, ComparisonConstraint, ComparisonPlan } from "./comparison/comparison-plan.js";
+export type { ComparisonRows } from "./comparison/comparison-rows.js";
+export type { PrescanChunk, PrescanResult } from "./comparison/prescan.js";
+export type { ComparisonPick, PickBound } from "./comparison/comparison-pick.js";
+export type { PickRefinement, PickRefinementOptions, RefinementRequest } from "./comparison/pick-refinement.js";
+export type { CrossScore } from "./comparison/cross-score.js";
+export type { StabilityEntry, StabilityPick, StabilityVariation } from "./comparison/comparison-stability.js";
+export type { Agreement } from "./comparison/comparison-agreement.js";
+export type { PrescanCounts } from "./comparison/comparison-summary.js";
+export type { ComparisonAnalysis, PickVariants } from "./comparison/analyse-comparison.js";
+export type { ComparisonEvaluator, ComparisonPhase, RunComparisonOptions } from "./comparison/run-comparison.js";
+export type { ComparisonSetup, ComparisonVariant } from "./comparison/sweep-adapter.js";

@@ -8,11 +8,11 @@ import type { UserDto } from "./dto.js";
 export type ComparisonStatus = "queued" | "running" | "finished" | "failed" | "cancelled";
 
 /** Which part of a comparison's work is under way: the shared pre-scan, the contenders' refinements, the analysis. */
-export type ComparisonPhase = "prescan" | "refine" | "analyse" | "done";
+export type ComparisonProgressPhase = "prescan" | "refine" | "analyse" | "done";
 
 /** Live figures of a comparison run as jobs. */
 export interface ComparisonProgressDto {
-  phase: ComparisonPhase;
+  phase: ComparisonProgressPhase;
   /** Pre-scan points evaluated (on every variant) and their total. */
   prescanDone: number;
   prescanTotal: number;

@@ -1,8 +1,10 @@
 import {
   assemblePrescan,
-  crossScore,
-  oriented,
+  analyseComparison,
+  createStabilityRefinements,
   reconcilePicks,
+  stabilityEntry,
+  stabilityVariations,
   comparisonDefinitionSchema,
   comparisonInputSchema,
   createPickRefinement,
@@ -13,6 +15,7 @@ import {
 } from "@loopyard/core";
 import type {
   BatchResult,
+  ComparisonAnalysis,
   ComparisonDefinition,
   ComparisonInput,
   ComparisonPick,
@@ -21,7 +24,10 @@ import type {
   CriterionId,
   Plant,
   PrescanChunk,
+  PickRefinement,
   PrescanResult,
+  RefinementRequest,
+  StabilityEntry,
 } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { findRevisionById } from "../plants/plant-repository.js";
@@ -120,11 +126,8 @@ export function prescanOf(plan: ComparisonPlan, chunks: readonly PrescanChunk[])
  */
 export async function runRefinement(plan: ComparisonPlan, k: number, prescan: PrescanResult, evaluate: VectorEvaluator): Promise<ComparisonPick> {
   const starts = pickStarts(plan, k, prescan);
-  const refinement = createPickRefinement(plan, k, starts.vectors, { startValues: starts.values });
-  for (let request = refinement.ask(); request !== null; request = refinement.ask()) {
-    refinement.tell(await evaluate(plan, request.vectors, request.criteria));
-  }
-  return refinement.result();
+  const [pick] = await driveRefinements([createPickRefinement(plan, k, starts.vectors, { startValues: starts.values })], plan, evaluate);
+  return pick as ComparisonPick;
 }
 
 /**
@@ -136,26 +139,58 @@ export function storedInput(raw: unknown): ComparisonInput {
   return parsed.success ? parsed.data : (raw as ComparisonInput);
 }
 
+/** Advances refinements round by round, the requests of a round evaluated together (a pool runs them side by side); returns their picks in order. */
+export async function driveRefinements(refinements: readonly PickRefinement[], plan: ComparisonPlan, evaluate: VectorEvaluator): Promise<ComparisonPick[]> {
+  for (;;) {
+    const round: { refinement: PickRefinement; request: RefinementRequest }[] = [];
+    for (const refinement of refinements) {
+      if (refinement.done) continue;
+      const request = refinement.ask();
+      if (request !== null) round.push({ refinement, request });
+    }
+    if (round.length === 0) break;
+    // A request carries its own setup (a stability variation may leave a variant out).
+    const results = await Promise.all(round.map(({ request }) => evaluate({ ...plan, setup: request.setup }, request.vectors, request.criteria)));
+    round.forEach(({ refinement }, i) => refinement.tell(results[i] as BatchResult));
+  }
+  return refinements.map((r) => r.result());
+}
+
 /**
- * The analysis of a comparison from its pre-scan and picks (stored by the analysis job as the
- * comparison's result): core's analyseComparison.
+ * The analysis of a comparison, stored as its result: the picks reconciled (a contender takes
+ * over another's pick that is better on its own column), the stability variations when the budget
+ * asks for them (each variant left out, each quadratic r halved and doubled: core's re-refinements,
+ * evaluated by `evaluate`), then core's analyseComparison (cross-score, per variant, agreement,
+ * summary).
  */
-export async function runAnalysis(plan: ComparisonPlan, prescan: PrescanResult, picks: readonly ComparisonPick[], _evaluate: VectorEvaluator): Promise<unknown> {
-  const reconciled = reconcilePicks(plan, picks);
-  return { picks: reconciled, crossScore: crossScore(plan, reconciled), prescanPoints: prescan.n };
+export async function runAnalysis(plan: ComparisonPlan, prescan: PrescanResult, stored: readonly ComparisonPick[], evaluate: VectorEvaluator): Promise<ComparisonAnalysis> {
+  const picks = reconcilePicks(plan, stored);
+  const stability: StabilityEntry[] = [];
+  if (plan.budget.stability) {
+    const variations = stabilityVariations(plan).map((variation) => ({ variation, ...createStabilityRefinements(plan, picks, variation) }));
+    const refined = await driveRefinements(variations.flatMap((v) => v.refinements), plan, evaluate);
+    let at = 0;
+    for (const v of variations) {
+      const own = refined.slice(at, at + v.refinements.length);
+      at += v.refinements.length;
+      stability.push(stabilityEntry(plan, picks, v.variation, v.contenders, own));
+    }
+  }
+  return analyseComparison(plan, prescan, picks, stability);
 }
 
 /**
  * The variant that sets a pick's aggregate on column k: the one with the worst value there (the
- * largest, or the smallest for a larger-is-better column); 0 when none is finite or k is unknown.
+ * largest, or the smallest for a larger-is-better column); 0 when none is a number or k is unknown.
  */
 export function worstVariantOf(plan: ComparisonPlan, pick: ComparisonPick, k: number): number {
   const column = plan.columns[k];
   if (!column) return 0;
+  const sign = column.better === "larger" ? -1 : 1;
   let worst = 0;
   let value = -Infinity;
   pick.perVariant.forEach((row, f) => {
-    const v = oriented(column, row[k] as number);
+    const v = sign * (row[k] as number);
     if (!Number.isNaN(v) && v > value) {
       value = v;
       worst = f;

@@ -10,7 +10,7 @@ import {
   COMPARISON_NOT_FOUND,
   createComparison,
   getComparison,
-  getComparisonResult,
+  getComparisonResultJson,
   getPickResponses,
   listComparisons,
   type ComparisonJobControl,
@@ -58,7 +58,7 @@ export function comparisonRoutes(db: Database, jobs: ComparisonJobControl): Rout
   });
 
   router.get("/:comparisonId/result", canRead, async (req, res) => {
-    res.json(await getComparisonResult(db, accessOf(req), idOf(req.params.comparisonId)));
+    res.type("application/json").send(await getComparisonResultJson(db, accessOf(req), idOf(req.params.comparisonId)));
   });
 
   router.get("/:comparisonId/responses", canRead, async (req, res) => {

@@ -159,6 +159,18 @@ export async function cancelComparison(db: Database, jobs: ComparisonJobControl,
   return getComparison(db, access, comparisonId);
 }
 
+/**
+ * The stored analysis of a finished comparison (core's ComparisonAnalysis) as JSON text, every
+ * number as in ScoreValue: finite as is, ±∞ as "inf" / "-inf" (a regret against a best of 0, a
+ * settling time never reached), NaN as null (not scored, does not apply).
+ */
+export async function getComparisonResultJson(db: Database, access: MemberAccess, comparisonId: string): Promise<string> {
+  const result = await getComparisonResult(db, access, comparisonId);
+  return JSON.stringify(result, (_key, value: unknown) =>
+    typeof value === "number" && !Number.isFinite(value) ? (Number.isNaN(value) ? null : value > 0 ? "inf" : "-inf") : value,
+  );
+}
+
 /** The stored analysis of a finished comparison. */
 export async function getComparisonResult(db: Database, access: MemberAccess, comparisonId: string): Promise<unknown> {
   const record = await findRecord(db, access, comparisonId);
