@@ -24,6 +24,7 @@ import { chunkExpireSecondsFromEnv, startJobQueue } from "./jobs/job-queue.js";
 import { resumeSweepJobs } from "./sweeps/sweep-jobs.js";
 import { startSweepWorker } from "./workers/sweep-worker.js";
 import { createComparisonJobSystem } from "./comparisons/comparison-job-system.js";
+import { seedDemoComparison } from "./comparisons/comparison-demo.js";
 
 const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve|worker>";
 
@@ -50,15 +51,17 @@ async function seedCommand(): Promise<void> {
   // Seeding creates no sessions anyone uses, so a throwaway secret is fine when none is given.
   const authSecret = process.env.LOOPYARD_AUTH_SECRET ?? "seed-only-secret-not-used-for-any-session-0000";
   const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? "http://127.0.0.1:4470";
-  const database = createDatabase(databaseUrl, { max: 2 });
+  const database = createDatabase(databaseUrl, { max: 6 });
   try {
     const auth = createAuth(database.db, { authSecret, publicUrl });
     const report = await seedDemo(database.db, auth, new SweepRunner(database.db));
-    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated;
+    // The demo comparison runs through the comparison queues, like any other.
+    const comparisonCreated = await seedDemoComparison(database.db, databaseUrl);
+    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated);
     console.log(
       changed === 0
         ? "Demo data already present; nothing changed."
-        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps.`,
+        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps, ${Number(comparisonCreated)} comparison.`,
     );
     printDemoSignIns();
   } finally {
