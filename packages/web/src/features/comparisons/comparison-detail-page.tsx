@@ -85,7 +85,7 @@ export function ComparisonDetailPage() {
         ) : (
           <>
             <Section title="In short" testId="comparison-summary">
-              <ul className="list-disc space-y-1.5 pl-5 text-[15px] leading-snug text-ink">
+              <ul className="list-disc gap-x-8 space-y-1 pl-5 text-sm leading-snug text-ink xl:columns-2">
                 {result.data.summary.map((line) => (
                   <li key={line}>{line}</li>
                 ))}

@@ -56,15 +56,17 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
         helper.accessor((row) => (Number.isNaN(row.regrets[k] as number) ? undefined : (row.regrets[k] as number)), {
           id: `c${k}`,
           header: () => (
-            <span title={column.role === "contender" ? "contender: optimised by its own pick" : "judge: scored, never optimised"}>
+            <span
+              title={`${column.role === "contender" ? "contender: optimised by its own pick" : "judge: scored, never optimised"}; ${column.better} is better${column.unit ? `; unit ${column.unit}` : ""}`}
+            >
               <span className="block normal-case">{column.label}</span>
-              <span className="block font-mono text-[10px] normal-case text-ink-faint">
-                {column.role === "contender" ? "contender" : "judge"} · {column.better === "larger" ? "larger" : "smaller"} is better
-                {column.unit && column.unit !== "" ? ` · ${column.unit}` : ""}
+              <span className="block whitespace-nowrap font-mono text-[10px] normal-case text-ink-faint">
+                {column.role === "contender" ? "contender" : "judge"} {column.better === "larger" ? "↑" : "↓"}
               </span>
             </span>
           ),
           sortUndefined: "last",
+          sortDescFirst: false,
           cell: (info) => {
             const row = info.row.original;
             return <RegretCell value={row.values[k] as number} regret={row.regrets[k] as number} own={row.index === k} best={result.crossScore.best[k] === row.index} />;
@@ -85,7 +87,7 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
               {group.headers.map((header) => {
                 const sorted = header.column.getIsSorted();
                 return (
-                  <th key={header.id} className="border-b border-line px-2 py-1.5 text-left align-bottom text-xs font-medium uppercase tracking-wide text-ink-soft" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
+                  <th key={header.id} className="border-b border-line px-1 py-1.5 text-left align-bottom text-xs font-medium text-ink-soft" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
                     <button type="button" onClick={header.column.getToggleSortingHandler()} className="flex items-end gap-1 text-left hover:text-ink" data-testid={`sort-${header.id}`}>
                       <table.FlexRender header={header} />
                       <span aria-hidden className="font-mono text-[11px]">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
@@ -114,7 +116,7 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
 
 function PickName({ row }: { row: PickRow }) {
   return (
-    <div className="min-w-36 px-1.5 py-1">
+    <div className="w-40 px-1.5 py-1">
       <div className="font-medium">{row.label}</div>
       {!row.found ? <div className="text-[11px] text-rust">no pick: {row.reason}</div> : null}
       {row.atBound.length > 0 ? (

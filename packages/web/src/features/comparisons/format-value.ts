@@ -14,3 +14,12 @@ export function formatWithUnit(value: number, unit: string): string {
   if (text === "—" || unit === "" || unit === "–") return text;
   return unit === "%" ? `${text} %` : `${text} ${unit}`;
 }
+
+/** A percentage as read in a table: "< 0.1 %", "7.6 %", "120 %"; "—" for none. */
+export function formatPercent(value: number): string {
+  if (Number.isNaN(value)) return "—";
+  if (!Number.isFinite(value)) return "∞ %";
+  const abs = Math.abs(value);
+  if (abs < 0.1) return "< 0.1 %";
+  return `${abs < 10 ? abs.toFixed(1) : abs.toFixed(0)} %`;
+}

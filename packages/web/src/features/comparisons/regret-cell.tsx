@@ -11,18 +11,16 @@ export function RegretCell({ value, regret, best, own }: { value: number; regret
   const t = regretPosition(regret);
   return (
     <div
-      className={`relative min-w-24 rounded px-1.5 py-1 font-mono text-xs tabular ${own ? "outline outline-2 -outline-offset-2 outline-ink" : ""}`}
+      className={`relative min-w-[4.6rem] rounded px-1.5 py-1 font-mono text-xs leading-tight tabular ${own ? "outline outline-2 -outline-offset-2 outline-ink" : ""}`}
       style={{ background, color: text }}
       data-testid="regret-cell"
       data-regret={Number.isFinite(regret) ? regret : String(regret)}
       title={own ? "its own criterion: the column this pick was tuned for" : undefined}
     >
-      <div className="flex items-baseline justify-between gap-2">
-        <span className="text-[13px]">{formatFigure(value)}</span>
-        <span className={best ? "font-semibold" : ""}>
-          {best ? <span aria-label="best of this column">◎ </span> : null}
-          {formatRegret(regret)}
-        </span>
+      <div className="whitespace-nowrap text-[13px]">{formatFigure(value)}</div>
+      <div className={`whitespace-nowrap text-[11px] ${best ? "font-semibold" : ""}`}>
+        {best ? <span aria-label="best of this column">◎ </span> : null}
+        {formatRegret(regret)}
       </div>
       {Number.isNaN(t) ? null : (
         <div aria-hidden className="mt-0.5 h-1 rounded-full" style={{ width: `${Math.max(4, t * 100)}%`, background: "currentColor", opacity: 0.55 }} />

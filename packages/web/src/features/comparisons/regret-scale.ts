@@ -7,10 +7,10 @@
  */
 
 /** Regret [%] at which the scale reaches its darkest step. */
-export const REGRET_SCALE_TOP = 100;
+export const REGRET_SCALE_TOP = 1000;
 /** Lightness [%] at 0 regret and at REGRET_SCALE_TOP (CSS HSL). */
 const LIGHTNESS_BEST = 99;
-const LIGHTNESS_WORST = 38;
+const LIGHTNESS_WORST = 34;
 const HUE = 28;
 const SATURATION = 38;
 /** Below this lightness the printed number turns white to keep its contrast. */
@@ -37,9 +37,10 @@ export function formatRegret(regret: number): string {
   if (Number.isNaN(regret)) return "—";
   if (regret === 0) return "best";
   if (!Number.isFinite(regret)) return regret > 0 ? "+∞ %" : "−∞ %";
-  const digits = Math.abs(regret) < 10 ? 1 : 0;
-  return `${regret > 0 ? "+" : "−"}${Math.abs(regret).toFixed(digits)} %`;
+  const abs = Math.abs(regret);
+  const text = abs < 10 ? abs.toFixed(1) : abs < 10_000 ? abs.toFixed(0) : abs.toExponential(1).replace("e+", "e");
+  return `${regret > 0 ? "+" : "−"}${text} %`;
 }
 
 /** Steps of the legend, regret [%] at each. */
-export const REGRET_LEGEND_STEPS = [0, 1, 3, 10, 30, 100] as const;
+export const REGRET_LEGEND_STEPS = [0, 3, 10, 30, 100, 300, 1000] as const;

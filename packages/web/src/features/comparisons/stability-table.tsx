@@ -1,6 +1,6 @@
 import type { ComparisonResultJson } from "./comparison-result-types.js";
 import { numberOf } from "./comparison-result-types.js";
-import { formatFigure } from "./format-value.js";
+import { formatPercent } from "./format-value.js";
 
 /** A pick "holds" under a variation when no parameter moves more than this [%]. */
 export const ROBUST_MOVE_PERCENT = 10;
@@ -44,7 +44,7 @@ export function StabilityTable({ result }: { result: ComparisonResultJson }) {
                     ) : (
                       <>
                         {knife ? <span className="mr-1 text-amber" aria-label="knife-edge">◆</span> : null}
-                        moves {formatFigure(move)} %<span className="block text-[10px] text-ink-faint">regret ±{formatFigure(shift)} pts</span>
+                        moves {formatPercent(move)}<span className="block text-[10px] text-ink-faint">regret ±{formatPercent(shift).replace(" %", " pts")}</span>
                       </>
                     )}
                   </td>
