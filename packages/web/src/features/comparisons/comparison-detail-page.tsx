@@ -101,19 +101,23 @@ export function ComparisonDetailPage() {
               </div>
             </Section>
             <Section title="Side by side: the picks' responses">
-              <PickOverlays slug={slug} comparisonId={c.id} variants={result.data.variants} labels={result.data.picks.map((p) => p.contender)} />
+              <PickOverlays
+                slug={slug}
+                comparisonId={c.id}
+                variants={result.data.variants}
+                labels={result.data.picks.map((p) => p.contender)}
+                names={result.data.picks.map((p, k) => result.data.columns[k]?.label ?? p.contender)}
+              />
             </Section>
             <Section title="On every variant" aside="▲ the variant that sets the pick's worst value of the column">
               <PerVariantTable result={result.data} />
             </Section>
-            <div className="grid grid-cols-1 gap-5 xl:grid-cols-2">
-              <Section title="Agreement of the criteria">
-                <AgreementMatrix result={result.data} />
-              </Section>
-              <Section title="Stability of the answer">
-                <StabilityTable result={result.data} />
-              </Section>
-            </div>
+            <Section title="Stability of the answer" aside="◆ a pick that moves more than 10 %: a knife-edge answer">
+              <StabilityTable result={result.data} />
+            </Section>
+            <Section title="Agreement of the criteria" aside="Kendall's τ over the pre-scan">
+              <AgreementMatrix result={result.data} />
+            </Section>
             <CautionNote />
           </>
         )

@@ -116,7 +116,7 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
 
 function PickName({ row }: { row: PickRow }) {
   return (
-    <div className="w-40 px-1.5 py-1">
+    <div className="w-32 px-1 py-1">
       <div className="font-medium">{row.label}</div>
       {!row.found ? <div className="text-[11px] text-rust">no pick: {row.reason}</div> : null}
       {row.atBound.length > 0 ? (

@@ -11,13 +11,27 @@ import { pickStyle } from "./pick-styles.js";
  * overlaid in each pick's style. The variant is chosen above the charts ("each pick's worst" by
  * default: the variant that sets its contender's aggregate); switching redraws all three.
  */
-export function PickOverlays({ slug, comparisonId, variants, labels }: { slug: string; comparisonId: string; variants: readonly string[]; labels: readonly string[] }) {
+export function PickOverlays({
+  slug,
+  comparisonId,
+  variants,
+  labels,
+  names,
+}: {
+  slug: string;
+  comparisonId: string;
+  variants: readonly string[];
+  /** Contender keys of the picks, in order (as the responses name them). */
+  labels: readonly string[];
+  /** What to call each pick in the legend (its column's label). */
+  names: readonly string[];
+}) {
   const [variant, setVariant] = useState<number | null>(null);
   const responses = usePickResponses(slug, comparisonId, variant, true);
   const choices: { value: number | null; label: string }[] = [{ value: null, label: "each pick's worst" }, ...variants.map((label, f) => ({ value: f, label }))];
   const picks = responses.data?.picks ?? [];
   const styleOf = (contender: string) => pickStyle(Math.max(0, labels.indexOf(contender)));
-  const nameOf = (p: (typeof picks)[number]) => `${p.contender}${variant === null ? ` (on ${p.variantLabel})` : ""}`;
+  const nameOf = (p: (typeof picks)[number]) => `${names[labels.indexOf(p.contender)] ?? p.contender}'s pick${variant === null ? ` (on ${p.variantLabel})` : ""}`;
   const drawn = picks.filter((p) => p.status === "ok");
   const line = (p: (typeof picks)[number], x: readonly number[], y: readonly number[], unit: string) => ({
     type: "scatter",
@@ -26,7 +40,7 @@ export function PickOverlays({ slug, comparisonId, variants, labels }: { slug: s
     x,
     y,
     line: { color: styleOf(p.contender).color, dash: styleOf(p.contender).dash, width: 2 },
-    hovertemplate: `${p.contender}: %{y:.4g}<br>${unit}<extra></extra>`,
+    hovertemplate: `${nameOf(p)}: %{y:.4g}<br>${unit}<extra></extra>`,
   });
   const setpoint = drawn[0];
   return (

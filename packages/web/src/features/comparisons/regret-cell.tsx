@@ -11,7 +11,7 @@ export function RegretCell({ value, regret, best, own }: { value: number; regret
   const t = regretPosition(regret);
   return (
     <div
-      className={`relative min-w-[4.6rem] rounded px-1.5 py-1 font-mono text-xs leading-tight tabular ${own ? "outline outline-2 -outline-offset-2 outline-ink" : ""}`}
+      className={`relative min-w-[4.2rem] rounded px-1.5 py-1 font-mono text-xs leading-tight tabular ${own ? "outline outline-2 -outline-offset-2 outline-ink" : ""}`}
       style={{ background, color: text }}
       data-testid="regret-cell"
       data-regret={Number.isFinite(regret) ? regret : String(regret)}
