@@ -25,11 +25,9 @@ export function smallComparison(name: string, revisions: readonly string[], extr
   return {
     name,
     family: { variants: revisions.map((plantRevisionId, i) => ({ plantRevisionId, label: `gain ${["1", "1.4", "0.7"][i] ?? i}` })) },
-    structure: {
-      kind: "pid",
-      tunable: { kp: { min: 0.2, max: 10, scale: "log" }, ki: { min: 0.1, max: 5, scale: "log" }, kd: { min: 0, max: 2 } },
-      filter: { mode: "ratio", n: 10 },
-    },
+    structure: "pid",
+    ranges: { kp: { min: 0.2, max: 10, scale: "log" }, ki: { min: 0.1, max: 5, scale: "log" }, kd: { min: 0, max: 2 } },
+    filter: { mode: "ratio", n: 10 },
     scenario: { kind: "setpoint-step", horizon: 12, dt: 0.01 },
     aggregate: { kind: "worst" },
     contenders: ["iae", "itae", "ise", { criterion: "quadratic", q: 1, r: 0.05, label: "J(r=0.05)" }],

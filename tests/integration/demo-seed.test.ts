@@ -24,7 +24,7 @@ afterAll(async () => {
 
 describe("demo seed", () => {
   it("when the seed runs on a seeded database, then it changes nothing", async () => {
-    const report = await seedDemo(loopyard.db, loopyard.auth, loopyard.runner);
+    const report = await seedDemo(loopyard.db, loopyard.auth, loopyard.jobs);
     expect(report).toEqual({ usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepsCreated: 0 });
   });
 

@@ -4,17 +4,50 @@
 export { MAX_PLANT_ORDER, transferFunctionSchema } from "./plants/transfer-function.js";
 export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
+export { SLUG_PATTERN, memberInputSchema, workspaceInputSchema, workspaceNameSchema } from "./schemas/workspace-input.js";
 export { CRITERION_IDS } from "./criteria/criterion-id.js";
 export {
-  DEFAULT_SWEEP_CRITERIA,
-  MAX_SWEEP_CANDIDATES,
+  DEFAULT_MAX_CONCURRENT_SWEEPS,
+  MAX_FAMILY_VARIANTS,
+  MAX_TITLE_LENGTH,
+  MAX_SEARCH_GENERATIONS,
+  MAX_SEARCH_ITERATIONS,
+  MAX_SEARCH_POPULATION,
+  MAX_SEARCH_STARTS,
   MAX_SIMULATION_SAMPLES,
+  MAX_STATE_FEEDBACK_GAINS,
+  MAX_SWEEP_CANDIDATES,
+  MAX_SWEEP_PARAMETERS,
+  MIN_PASSWORD_LENGTH,
+} from "./limits.js";
+export { DEFAULT_DERIVATIVE_FILTER, derivativeFilterSchema } from "./controllers/derivative-filter.js";
+export {
+  CONTROLLER_PARAMETERS,
+  REFERENCE_GAIN_PARAMETER,
+  SAMPLE_TIME_PARAMETER,
+  STATE_GAIN_PARAMETER,
+  controllerParameter,
+  satisfiesSign,
+} from "./controllers/controller-parameters.js";
+
+// The sweep contract: one definition schema, one plan, one chunk evaluation (web, server, CLI, comparisons).
+export { planSweep, plantStateCount, variantPlant, controllerParameterValue } from "./sweeps/plan-sweep.js";
+export { evaluateSweepChunk, evaluateSweepChunkWith } from "./sweeps/evaluate-sweep-chunk.js";
+export { SweepPlanError } from "./sweeps/sweep-plan-error.js";
+export { dottedField, firstSweepIssue, sweepIssues } from "./sweeps/sweep-issue.js";
+export { searchBudget } from "./sweeps/search-budget.js";
+export { searchObjectiveMatrix } from "./search/search-objectives.js";
+export { MAX_FREQUENCY_POINTS, PLOT_TAIL_GAIN, thinFrequencyResponse } from "./frequency/thin-frequency-response.js";
+export { MAX_TRACE_POINTS, downsampleIndices, pick } from "./traces/downsample-trace.js";
+export {
+  DEFAULT_SWEEP_CRITERIA,
+  checkSweepDefinition,
+  sweepDefinitionFields,
+  withDefaultFilter,
   parameterRangeSchema,
-  derivativeFilterSchema,
   sweepInputSchema,
   sweepScenarioSchema,
   criterionOptionsSchema,
-  DEFAULT_DERIVATIVE_FILTER,
   parameterSign,
   sweepStructure,
   sweepParameterNames,
@@ -24,11 +57,9 @@ export {
   sweepDesignSchema,
   sweepAggregateSchema,
   sweepFamilySchema,
-  MAX_FAMILY_VARIANTS,
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
 export { ROLES, hasRole } from "./api/roles.js";
-export { isDrawingPage } from "./api/page-paths.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 // Comparisons over the API: the submitted input (family by plant revisions) and the DTOs.
@@ -145,6 +176,7 @@ export { createNsga2Search } from "./search/nsga2-search.js";
 export {
   OPTIONAL_STRUCTURE_PARAMETERS,
   STRUCTURE_PARAMETERS,
+  StructureError,
   assertValidStructure,
   controllerFromVector,
   stateFeedbackNames,
@@ -168,7 +200,7 @@ export { MAX_NONLINEAR_STATES, nonlinearSchema } from "./plants/nonlinear.js";
 export { linearPlantModel } from "./plants/linear-plant-model.js";
 export { nonlinearPlantModel, linearizeNonlinearPlant } from "./plants/nonlinear-plant-model.js";
 export { stateSpaceToTransferFunction } from "./plants/state-space-to-transfer-function.js";
-export { CONTROLLER_KINDS, controllerSchema } from "./controllers/controller.js";
+export { CONTROLLER_KINDS, CONTROLLER_RULES, antiWindupSchema, controllerSchema } from "./controllers/controller.js";
 export { controllerRealization, antiWindupTrackingTime, assertValidController } from "./controllers/controller-realization.js";
 export { controllerTransferFunction } from "./controllers/controller-transfer-function.js";
 export { discretizeZohInputs } from "./linear-algebra/discretize-zoh-inputs.js";
@@ -215,11 +247,19 @@ export { scoreBaselines } from "./tuning/score-baselines.js";
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
+export type { MemberInput, WorkspaceInput } from "./schemas/workspace-input.js";
 export type { PidController } from "./controllers/pid.js";
 export type { CriterionId } from "./criteria/criterion-id.js";
+export type { DerivativeFilter } from "./controllers/derivative-filter.js";
+export type { ControllerParameter, FixedParameterKind, ParameterSign } from "./controllers/controller-parameters.js";
+export type { SweepPlan } from "./sweeps/plan-sweep.js";
+export type { SweepBatch, SweepBatchEvaluator, SweepChunk, SweepRow, SweepRowStatus, SweepSelection } from "./sweeps/evaluate-sweep-chunk.js";
+export type { SweepIssue } from "./sweeps/sweep-issue.js";
+export type { SearchBudgetDesign } from "./sweeps/search-budget.js";
+export type { ThinFrequencyResponse } from "./frequency/thin-frequency-response.js";
 export type {
   ParameterRange,
-  DerivativeFilter,
+  SweepShape,
   SweepInput,
   SweepInputParsed,
   SweepDesign,

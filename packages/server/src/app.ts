@@ -11,7 +11,6 @@ import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
-import { SweepRunner } from "./sweeps/sweep-runner.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
@@ -27,8 +26,6 @@ export interface LoopyardApp {
   app: Express;
   auth: Auth;
   db: RootDatabase;
-  /** The in-process runner (the demo seed runs its sweeps with it). */
-  runner: SweepRunner;
   /** Sweeps as pg-boss jobs, with the embedded worker unless turned off. */
   jobs: SweepJobSystem;
   /** Comparisons as pg-boss jobs, with the embedded comparison worker unless turned off. */
@@ -47,7 +44,6 @@ export function createApp(config: AppConfig): LoopyardApp {
   const database = createDatabase(config.databaseUrl);
   const { db } = database;
   const auth = createAuth(db, config);
-  const runner = new SweepRunner(db);
   const background = new BackgroundTasks();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
     embeddedWorker: config.embeddedWorker ?? true,
@@ -100,14 +96,12 @@ export function createApp(config: AppConfig): LoopyardApp {
     app,
     auth,
     db,
-    runner,
     jobs,
     comparisonJobs,
     close() {
       closing ??= (async () => {
         await comparisonJobs.close();
         await jobs.close();
-        await runner.close();
         await background.settle();
         await database.close();
       })();

@@ -19,7 +19,7 @@ import { createAuth } from "./auth/auth.js";
 import { createDatabase } from "./db/database.js";
 import { runMigrations } from "./db/migrate.js";
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "./seed/demo-seed.js";
-import { SweepRunner } from "./sweeps/sweep-runner.js";
+import { createSweepJobSystem } from "./jobs/sweep-job-system.js";
 import { chunkExpireSecondsFromEnv, startJobQueue } from "./jobs/job-queue.js";
 import { resumeSweepJobs } from "./sweeps/sweep-jobs.js";
 import { startSweepWorker } from "./workers/sweep-worker.js";
@@ -52,9 +52,11 @@ async function seedCommand(): Promise<void> {
   const authSecret = process.env.LOOPYARD_AUTH_SECRET ?? "seed-only-secret-not-used-for-any-session-0000";
   const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? "http://127.0.0.1:4470";
   const database = createDatabase(databaseUrl, { max: 6 });
+  // The demo sweeps run as jobs like any other; this process works them (and what else is pending) until they are done.
+  const jobs = createSweepJobSystem(database.db, databaseUrl, { embeddedWorker: true, resume: false });
   try {
     const auth = createAuth(database.db, { authSecret, publicUrl });
-    const report = await seedDemo(database.db, auth, new SweepRunner(database.db));
+    const report = await seedDemo(database.db, auth, jobs);
     // The demo comparison runs through the comparison queues, like any other.
     const comparisonCreated = await seedDemoComparison(database.db, databaseUrl);
     const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated);
@@ -65,6 +67,7 @@ async function seedCommand(): Promise<void> {
     );
     printDemoSignIns();
   } finally {
+    await jobs.close();
     await database.close();
   }
 }

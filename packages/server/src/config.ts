@@ -1,3 +1,4 @@
+import { DEFAULT_MAX_CONCURRENT_SWEEPS, MAX_SWEEP_CANDIDATES } from "@loopyard/core";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -89,8 +90,8 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): ServerConfi
     return value;
   };
   const limits = {
-    maxCandidates: wholeNumber("LOOPYARD_MAX_CANDIDATES", 1_000_000, 1),
-    maxConcurrentSweeps: wholeNumber("LOOPYARD_MAX_CONCURRENT_SWEEPS", 3, 1),
+    maxCandidates: wholeNumber("LOOPYARD_MAX_CANDIDATES", MAX_SWEEP_CANDIDATES, 1),
+    maxConcurrentSweeps: wholeNumber("LOOPYARD_MAX_CONCURRENT_SWEEPS", DEFAULT_MAX_CONCURRENT_SWEEPS, 1),
   };
   const workerThreads = env.LOOPYARD_WORKER_THREADS ? wholeNumber("LOOPYARD_WORKER_THREADS", 1, 0) : undefined;
   return {

@@ -5,7 +5,6 @@ export { configFromEnv, ConfigError, defaultMigrationsFolder, DEFAULT_DATABASE_U
 export { runMigrations } from "./db/migrate.js";
 export { HttpError } from "./http/http-error.js";
 export { DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_PLANTS, DEMO_SWEEPS, DEMO_USERS, DEMO_WORKSPACE, DEMO_SWEEP_NAME, seedDemo } from "./seed/demo-seed.js";
-export { SweepRunner } from "./sweeps/sweep-runner.js";
 
 export type { AppConfig, ServerConfig } from "./config.js";
 export type { LoopyardApp } from "./app.js";

@@ -9,7 +9,7 @@ import { StrictMode } from "react";
 import { createRoot } from "react-dom/client";
 import { QueryClientProvider } from "@tanstack/react-query";
 import { RouterProvider } from "react-router/dom";
-import { isDrawingPage } from "@loopyard/core";
+import { isDrawingPage } from "@loopyard/core/api";
 import { createQueryClient } from "./api/query-client.js";
 import { router } from "./router.js";
 import { preloadPlot } from "./components/charts/lazy-plot.js";

@@ -20,6 +20,11 @@ export type EvaluationOptions = EvaluateCandidateOptions;
 export interface BatchResult {
   status: Uint8Array;
   scores: Float64Array;
+  /**
+   * Why a candidate was rejected, by row i·F + f of an "invalid" status: the RangeError's or
+   * TypeError's sentence as a value (never swallowed). Absent or empty when none was rejected.
+   */
+  reasons?: Map<number, string>;
 }
 
 /** Options of evaluateBatch. */
@@ -36,7 +41,8 @@ export interface BatchOptions {
  * and its result on variant f is exactly evaluateCandidate(family[f], controller, scenario,
  * criteria, { poles: false, ...options.evaluation }), written into typed arrays (see BatchResult). A candidate whose
  * controller is rejected (evaluateCandidate throws a RangeError or TypeError) gets status
- * "invalid" and NaN scores instead of stopping the batch.
+ * "invalid", NaN scores and its sentence in `reasons` instead of stopping the batch; any other
+ * exception propagates.
  *
  * Each candidate's result depends only on its own parameter vector, never on the others or on
  * their order, so any split of the rows into chunks gives the same bytes (the worker pool relies
@@ -71,6 +77,7 @@ export function evaluateBatch(
   if (out.status.length !== n * nf || out.scores.length !== n * nf * nc) {
     throw new RangeError(`into: needs status of length ${n * nf} and scores of length ${n * nf * nc}`);
   }
+  const reasons = out.reasons ?? new Map<number, string>();
   const evaluationOptions: EvaluationOptions = { poles: false, ...options.evaluation };
   for (let i = 0; i < n; i++) {
     const controller = controllerFromVector(structure, candidates, i * d);
@@ -83,6 +90,7 @@ export function evaluateBatch(
       } catch (error) {
         if (!(error instanceof RangeError || error instanceof TypeError)) throw error;
         out.status[row] = STATUS_INVALID;
+        reasons.set(row, error.message);
         out.scores.fill(NaN, base, base + nc);
         continue;
       }
@@ -92,6 +100,7 @@ export function evaluateBatch(
       else for (let c = 0; c < nc; c++) out.scores[base + c] = scores[criteria[c] as CriterionId];
     }
   }
+  if (reasons.size > 0) out.reasons = reasons;
   return out;
 }
 

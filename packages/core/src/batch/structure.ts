@@ -1,5 +1,23 @@
 import type { AntiWindup, Controller, ControllerKind } from "../controllers/controller.js";
-import type { DerivativeFilter } from "../sweeps/sweep-input.js";
+import { CONTROLLER_PARAMETERS, type FixedParameterKind } from "../controllers/controller-parameters.js";
+import type { DerivativeFilter } from "../controllers/derivative-filter.js";
+import { MAX_STATE_FEEDBACK_GAINS } from "../limits.js";
+
+/**
+ * A structure refused by assertValidStructure or structureParameterNames: `field` is the path
+ * inside the structure ("structure.tunable[1]", "structure.fixed.kd"), `reason` the sentence
+ * without it, carried as data so that callers never rewrite the message.
+ */
+export class StructureError extends RangeError {
+  override name = "StructureError";
+  readonly field: string;
+  readonly reason: string;
+  constructor(field: string, reason: string) {
+    super(`${field}: ${reason}`);
+    this.field = field;
+    this.reason = reason;
+  }
+}
 
 /**
  * A controller structure with some parameters tuned by a sweep and the others held fixed:
@@ -20,22 +38,24 @@ export interface Structure {
   antiWindup?: AntiWindup;
 }
 
-/** Required parameter names of each controller kind (state feedback: see stateFeedbackNames). */
-export const STRUCTURE_PARAMETERS: Readonly<Record<Exclude<ControllerKind, "state-feedback">, readonly string[]>> = {
-  p: ["kp"],
-  pi: ["kp", "ki"],
-  pid: ["kp", "ki", "kd", "tf"],
-  pid2dof: ["kp", "ki", "kd", "tf", "b", "c"],
-  "lead-lag": ["k", "tLead", "tLag"],
-};
+/** Required parameter names of each controller kind, read from CONTROLLER_PARAMETERS (state feedback: see stateFeedbackNames). */
+export const STRUCTURE_PARAMETERS: Readonly<Record<FixedParameterKind, readonly string[]>> = Object.fromEntries(
+  Object.entries(CONTROLLER_PARAMETERS).map(([kind, table]) => [kind, table.map((p) => p.name)]),
+) as unknown as Record<FixedParameterKind, readonly string[]>;
 
 /** Optional parameter every kind accepts. */
 export const OPTIONAL_STRUCTURE_PARAMETERS: readonly string[] = ["sampleTime"];
 
 const STATE_GAIN = /^k\[(\d+)\]$/;
 
-/** Parameter names of state feedback on a plant with `states` states: k[0] … k[states−1], n. */
+/**
+ * Parameter names of state feedback on a plant with `states` states: k[0] … k[states−1], n.
+ * Throws a RangeError for more than MAX_STATE_FEEDBACK_GAINS states (before building any list).
+ */
 export function stateFeedbackNames(states: number): string[] {
+  if (!(Number.isInteger(states) && states >= 0 && states <= MAX_STATE_FEEDBACK_GAINS)) {
+    throw new StructureError("structure.tunable", `state feedback takes at most ${MAX_STATE_FEEDBACK_GAINS} gains k[0]…k[${MAX_STATE_FEEDBACK_GAINS - 1}], one per plant state`);
+  }
   return [...Array.from({ length: states }, (_, i) => `k[${i}]`), "n"];
 }
 
@@ -49,11 +69,12 @@ export function structureParameterNames(structure: Structure): string[] {
       .map((name) => STATE_GAIN.exec(name))
       .filter((m): m is RegExpExecArray => m !== null)
       .map((m) => Number(m[1]));
-    const m = indices.length === 0 ? 0 : Math.max(...indices) + 1;
+    // Checked before any list is built: k[999999999] must not allocate a billion names.
+    const m = indices.reduce((largest, i) => Math.max(largest, i + 1), 0);
     return stateFeedbackNames(m);
   }
   const names = STRUCTURE_PARAMETERS[structure.kind];
-  if (!names) throw new RangeError(`structure.kind: unknown controller structure "${String(structure.kind)}"`);
+  if (!names) throw new StructureError("structure.kind", `unknown controller structure "${String(structure.kind)}"`);
   return structure.filter && (structure.kind === "pid" || structure.kind === "pid2dof") ? names.filter((n) => n !== "tf") : [...names];
 }
 
@@ -62,47 +83,47 @@ export function structureParameterNames(structure: Structure): string[] {
  * in both; every required parameter given once (tf from `filter` when one is set); fixed values
  * finite; `filter` only on pid and pid2dof, with a finite n > 0 or tf ≥ 0; state-feedback gains
  * k[0] … k[m−1] contiguous with m = plantStates when that is given.
- * Throws a RangeError naming the field (`structure.tunable[i]`, `structure.fixed.<name>`, …).
+ * Throws a StructureError (a RangeError) with the field (`structure.tunable[i]`, `structure.fixed.<name>`, …) and the reason.
  */
 export function assertValidStructure(structure: Structure, plantStates?: number): void {
   if (structure === null || typeof structure !== "object") throw new TypeError("structure must be an object");
   const kind = structure.kind;
   if (kind !== "state-feedback" && !(kind in STRUCTURE_PARAMETERS)) {
-    throw new RangeError(`structure.kind: unknown controller structure "${String(kind)}"`);
+    throw new StructureError("structure.kind", `unknown controller structure "${String(kind)}"`);
   }
-  if (!Array.isArray(structure.tunable)) throw new RangeError("structure.tunable must be a list of parameter names");
-  if (structure.fixed === null || typeof structure.fixed !== "object") throw new RangeError("structure.fixed must be an object of numbers");
+  if (!Array.isArray(structure.tunable)) throw new StructureError("structure.tunable", "give a list of parameter names");
+  if (structure.fixed === null || typeof structure.fixed !== "object") throw new StructureError("structure.fixed", "give an object of numbers");
   const required = structureParameterNames(structure);
   const allowed = new Set([...required, ...OPTIONAL_STRUCTURE_PARAMETERS]);
   const given = new Set<string>();
   structure.tunable.forEach((name, i) => {
-    if (!allowed.has(name)) throw new RangeError(`structure.tunable[${i}]: "${String(name)}" is not a parameter of ${kind}; use ${[...allowed].join(", ")}`);
-    if (given.has(name)) throw new RangeError(`structure.tunable[${i}]: "${name}" appears twice`);
+    if (!allowed.has(name)) throw new StructureError(`structure.tunable[${i}]`, `"${String(name)}" is not a parameter of ${kind}; use ${[...allowed].join(", ")}`);
+    if (given.has(name)) throw new StructureError(`structure.tunable[${i}]`, `"${name}" appears twice`);
     given.add(name);
   });
   for (const [name, value] of Object.entries(structure.fixed)) {
-    if (!allowed.has(name)) throw new RangeError(`structure.fixed.${name}: not a parameter of ${kind}; use ${[...allowed].join(", ")}`);
-    if (given.has(name)) throw new RangeError(`structure.fixed.${name}: already tunable; a parameter is either tuned or fixed`);
-    if (typeof value !== "number" || !Number.isFinite(value)) throw new RangeError(`structure.fixed.${name} must be a finite number`);
+    if (!allowed.has(name)) throw new StructureError(`structure.fixed.${name}`, `"${name}" is not a parameter of ${kind}; use ${[...allowed].join(", ")}`);
+    if (given.has(name)) throw new StructureError(`structure.fixed.${name}`, `${name} is already tunable; a parameter is either tuned or fixed`);
+    if (typeof value !== "number" || !Number.isFinite(value)) throw new StructureError(`structure.fixed.${name}`, `${name} must be a finite number`);
     given.add(name);
   }
   for (const name of required) {
-    if (!given.has(name)) throw new RangeError(`structure.fixed.${name}: ${kind} needs ${name}; make it tunable or give a fixed value`);
+    if (!given.has(name)) throw new StructureError(`structure.fixed.${name}`, `${kind} needs ${name}; make it tunable or give a fixed value`);
   }
   if (structure.filter !== undefined) {
-    if (kind !== "pid" && kind !== "pid2dof") throw new RangeError("structure.filter: a derivative filter applies to pid and pid2dof only");
+    if (kind !== "pid" && kind !== "pid2dof") throw new StructureError("structure.filter", "a derivative filter applies to pid and pid2dof only");
     const f = structure.filter;
     if (f.mode === "ratio") {
-      if (!(Number.isFinite(f.n) && f.n > 0)) throw new RangeError("structure.filter.n must be a finite number > 0");
+      if (!(Number.isFinite(f.n) && f.n > 0)) throw new StructureError("structure.filter.n", "n must be a finite number > 0");
     } else if (f.mode === "fixed") {
-      if (!(Number.isFinite(f.tf) && f.tf >= 0)) throw new RangeError("structure.filter.tf must be a finite time ≥ 0 s");
-    } else throw new RangeError('structure.filter.mode must be "ratio" or "fixed"');
+      if (!(Number.isFinite(f.tf) && f.tf >= 0)) throw new StructureError("structure.filter.tf", "tf must be a finite time ≥ 0 s");
+    } else throw new StructureError("structure.filter.mode", 'mode must be "ratio" or "fixed"');
   }
   if (kind === "state-feedback") {
     const gains = required.length - 1;
-    if (gains === 0) throw new RangeError("structure.tunable: state feedback needs gains k[0], k[1], … (one per plant state)");
+    if (gains === 0) throw new StructureError("structure.tunable", "state feedback needs gains k[0], k[1], … (one per plant state)");
     if (plantStates !== undefined && gains !== plantStates) {
-      throw new RangeError(`structure.tunable: state feedback on this plant needs ${plantStates} gains k[0]…k[${plantStates - 1}], got ${gains}`);
+      throw new StructureError("structure.tunable", `state feedback on this plant needs ${plantStates} gains k[0]…k[${plantStates - 1}], got ${gains}`);
     }
   }
 }

@@ -1,8 +1,7 @@
-import { comparisonSpecSchema, type ComparisonSpec } from "../comparison/comparison-definition.js";
+import { comparisonSpecSchema } from "../comparison/comparison-definition.js";
 import { planComparison, type ComparisonPlan } from "../comparison/comparison-plan.js";
 import { runComparison } from "../comparison/run-comparison.js";
-import { vectorsBatch } from "../comparison/sweep-adapter.js";
-import type { Plant } from "../plants/plant.js";
+import { familyVariants, vectorsBatch } from "../comparison/sweep-adapter.js";
 import { createEvaluationPool } from "../pool/evaluation-pool.js";
 import { comparisonOutput } from "./compare-output.js";
 import { toCliJson } from "./json-output.js";
@@ -17,7 +16,8 @@ export interface CompareCommandOptions {
 
 /**
  * `loopyard compare FILE|-`: reads a comparison spec (comparisonSpecSchema: family, structure,
- * scenario, criterionOptions?, aggregate, contenders, judges, constraints?, budget?, seed?), runs
+ * ranges, fixed?, filter?, sampleTime?, antiWindup?, scenario, criterionOptions?, aggregate,
+ * contenders, judges, constraints?, budget?, seed?), runs
  * the comparison with its evaluations on a worker pool of `workers` threads (the picks do not
  * depend on the number) and returns its JSON text (see comparisonOutput). Throws a CliInputError
  * (one sentence, exit code 2) for a bad file, JSON or spec.
@@ -26,7 +26,7 @@ export async function compareCommand(source: string, options: CompareCommandOpti
   const spec = validateSpec(comparisonSpecSchema, await readSpec(source), "comparison spec");
   let plan: ComparisonPlan;
   try {
-    plan = planComparison(spec, familyOf(spec));
+    plan = planComparison(spec, familyVariants(spec.family));
   } catch (error) {
     asInputError(error);
   }
@@ -41,8 +41,4 @@ export async function compareCommand(source: string, options: CompareCommandOpti
   } finally {
     await pool.close();
   }
-}
-
-function familyOf(spec: ComparisonSpec): { name: string; plant: Plant }[] {
-  return spec.family.map((v, i) => ({ name: v.name ?? `v${i + 1}`, plant: v.plant as Plant }));
 }

@@ -1,16 +1,15 @@
 import { createWriteStream } from "node:fs";
 import { once } from "node:events";
-import { gridDesign } from "../batch/grid-design.js";
-import { latinHypercube } from "../batch/latin-hypercube.js";
-import { seededRandomDesign } from "../batch/random-design.js";
-import type { Plant } from "../plants/plant.js";
 import { createEvaluationPool } from "../pool/evaluation-pool.js";
+import { evaluateSweepChunkWith } from "../sweeps/evaluate-sweep-chunk.js";
+import { planSweep, type SweepPlan } from "../sweeps/plan-sweep.js";
+import { SweepPlanError } from "../sweeps/sweep-plan-error.js";
+import { firstSweepIssue } from "../sweeps/sweep-issue.js";
 import { CliInputError } from "./cli-error.js";
 import { createProgressReporter } from "./progress-reporter.js";
 import { readSpec } from "./read-spec.js";
-import { gridCounts, sweepSpecSchema, toParameterSpace, toStructure, variantNames, type SweepSpec } from "./sweep-spec.js";
+import { sweepSpecSchema, variantModels, variantNames, type SweepSpec } from "./sweep-spec.js";
 import { sweepLines, type SweepFormat } from "./sweep-table.js";
-import { asInputError, validateSpec } from "./validate-spec.js";
 
 /** Options of `loopyard sweep`. */
 export interface SweepCommandOptions {
@@ -26,38 +25,47 @@ export interface SweepCommandOptions {
 const LINES_PER_WRITE = 2000;
 
 /**
- * `loopyard sweep FILE`: reads a sweep spec, draws the candidates of its design, evaluates them on
- * every variant of the family in a worker pool of `workers` threads and writes one row per
- * candidate and variant (see sweepLines). Throws a CliInputError for a bad file, JSON or spec.
+ * The plan of a sweep spec through core's contract (sweepSpecSchema → planSweep), or a
+ * CliInputError whose sentence is the one the server and the web form give for the same sweep.
+ */
+export function planSweepSpec(value: unknown): { spec: SweepSpec; plan: SweepPlan } {
+  const parsed = sweepSpecSchema.safeParse(value);
+  if (!parsed.success) {
+    const issue = firstSweepIssue(parsed.error);
+    throw new CliInputError(`${issue.sentence}.`, issue.field);
+  }
+  const spec = parsed.data;
+  try {
+    return { spec, plan: planSweep(spec, variantModels(spec)) };
+  } catch (error) {
+    if (error instanceof SweepPlanError) throw new CliInputError(`${error.message}.`, error.field);
+    throw error;
+  }
+}
+
+/**
+ * `loopyard sweep FILE`: reads a sweep spec, plans it (planSweep), evaluates every candidate of its
+ * design on every variant in a worker pool of `workers` threads (evaluateSweepChunkWith) and writes
+ * one row per candidate and variant (see sweepLines). Search designs choose their candidates as they
+ * run and are refused. Throws a CliInputError for a bad file, JSON or spec.
  */
 export async function sweepCommand(source: string, options: SweepCommandOptions): Promise<void> {
-  const spec = validateSpec(sweepSpecSchema, await readSpec(source), "sweep spec");
-  const structure = toStructure(spec);
-  let candidates: Float64Array;
-  try {
-    candidates = designCandidates(spec);
-  } catch (error) {
-    asInputError(error);
+  const { spec, plan } = planSweepSpec(await readSpec(source));
+  if (plan.isSearch) {
+    throw new CliInputError("design: the CLI runs grid, latin-hypercube, sobol and random designs; run a search design on the server.", "design");
   }
-  const n = candidates.length / structure.tunable.length;
   const out = options.out === undefined ? process.stdout : await openOutput(options.out);
   const pool = createEvaluationPool({ workers: options.workers });
-  const progress = createProgressReporter(options.progress, n);
-  let result;
+  const progress = createProgressReporter(options.progress, plan.budget);
+  let chunk;
   try {
-    result = await pool.evaluate(
-      { family: spec.family.map((v) => v.plant as Plant), structure, candidates, scenario: spec.scenario,
-        criteria: spec.criteria,
-        ...(spec.criterionOptions === undefined ? {} : { evaluation: { criterion: spec.criterionOptions } }),
-      },
-      { onProgress: (done) => progress.update(done) },
-    );
+    chunk = await evaluateSweepChunkWith(plan, { start: 0, end: plan.budget }, (batch) => pool.evaluate(batch, { onProgress: (done) => progress.update(done) }));
   } finally {
     await pool.close();
   }
   progress.finish();
   let pending: string[] = [];
-  for (const line of sweepLines({ structure, candidates, variants: variantNames(spec), criteria: spec.criteria, result }, options.format)) {
+  for (const line of sweepLines({ parameters: plan.parameters, variants: variantNames(spec), criteria: plan.criteria, rows: chunk.rows }, options.format)) {
     pending.push(line);
     if (pending.length >= LINES_PER_WRITE) {
       if (!out.write(pending.join(""))) await once(out, "drain");
@@ -81,13 +89,4 @@ async function openOutput(path: string): Promise<NodeJS.WritableStream> {
     throw new CliInputError(`--out: cannot write ${path} (${code}); give a writable file path.`, "--out");
   }
   return stream;
-}
-
-/** The candidate matrix of a validated spec's design. */
-function designCandidates(spec: SweepSpec): Float64Array {
-  const space = toParameterSpace(spec);
-  const d = spec.design;
-  if (d.kind === "grid") return gridDesign(space, gridCounts(spec));
-  if (d.kind === "latin-hypercube") return latinHypercube(space, d.count, d.seed);
-  return seededRandomDesign(space, d.count, d.seed);
 }

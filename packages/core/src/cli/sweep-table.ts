@@ -1,62 +1,56 @@
-import type { BatchResult } from "../batch/evaluate-batch.js";
-import { batchStatusName } from "../batch/batch-status.js";
-import { controllerFromVector, type Structure } from "../batch/structure.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
+import type { SweepRow } from "../sweeps/evaluate-sweep-chunk.js";
 import { cliNumber } from "./json-output.js";
 
 /** Output formats of `loopyard sweep`. */
 export const SWEEP_FORMATS = ["csv", "jsonl"] as const;
 export type SweepFormat = (typeof SWEEP_FORMATS)[number];
 
-/** Everything needed to write a sweep's rows. */
+/** Everything needed to write a sweep's rows: the plan's names and evaluateSweepChunk's rows. */
 export interface SweepTable {
-  structure: Structure;
-  candidates: Float64Array;
+  /** plan.parameters: every controller parameter, tf included when a filter derives it. */
+  parameters: readonly string[];
   variants: readonly string[];
   criteria: readonly CriterionId[];
-  result: BatchResult;
+  rows: readonly SweepRow[];
 }
 
 /**
  * The lines of a sweep's output, one per candidate and variant (long format), candidate-major:
  *
- * - csv: header `index,variant,<tunable…>[,tf],status,<criteria…>`, then one row each; numbers in
- *   shortest round-trip form, Infinity as `inf`, NaN (not scored, or not applicable) as `nan`;
- *   `tf` is listed when the structure derives it from a filter.
- * - jsonl: `{"index","variant","params":{…},"status","criteria":{…}|null}` per line, Infinity as
- *   "inf", NaN as null; criteria null when the candidate was not scored.
+ * - csv: header `index,variant,<parameters…>,status,<criteria…>`, then one row each; numbers in
+ *   shortest round-trip form, Infinity as `inf`, NaN (not scored, or not applicable) as `nan`.
+ * - jsonl: `{"index","variant","params":{…},"status","criteria":{…}|null}` per line (plus
+ *   "reason" for a rejected controller), Infinity as "inf", NaN as null; criteria null when the
+ *   candidate was not scored on that variant.
  *
- * Every line ends with "\n".
+ * The status and scores are the variant's own (not the family's aggregate). Every line ends with "\n".
  */
 export function* sweepLines(table: SweepTable, format: SweepFormat): Generator<string> {
-  const { structure, candidates, variants, criteria, result } = table;
-  const d = structure.tunable.length;
-  const n = candidates.length / d;
+  const { parameters, variants, criteria, rows } = table;
   const nf = variants.length;
   const nc = criteria.length;
-  const withTf = structure.filter !== undefined;
-  const paramNames = [...structure.tunable, ...(withTf ? ["tf"] : [])];
-  if (format === "csv") yield `${["index", "variant", ...paramNames, "status", ...criteria].map(csvField).join(",")}\n`;
-  const params = new Array<number>(paramNames.length);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < d; j++) params[j] = candidates[i * d + j];
-    if (withTf) params[d] = (controllerFromVector(structure, candidates, i * d) as { tf: number }).tf;
+  if (format === "csv") yield `${["index", "variant", ...parameters, "status", ...criteria].map(csvField).join(",")}\n`;
+  for (const row of rows) {
     for (let f = 0; f < nf; f++) {
-      const row = i * nf + f;
-      const status = batchStatusName(result.status[row]);
+      const status = row.variantStatus[f] as string;
       const scored = status === "stable";
+      const score = (c: number): number =>
+        !scored ? Number.NaN : nf > 1 ? (row.variantScores?.[f * nc + c] ?? Number.NaN) : (row.scores?.[c] ?? Number.NaN);
       if (format === "csv") {
-        const cells = [String(i), csvField(variants[f]), ...params.map(csvNumber), status];
-        for (let c = 0; c < nc; c++) cells.push(csvNumber(result.scores[row * nc + c]));
+        const cells = [String(row.index), csvField(variants[f] as string), ...row.params.map(csvNumber), status];
+        for (let c = 0; c < nc; c++) cells.push(csvNumber(score(c)));
         yield `${cells.join(",")}\n`;
       } else {
-        const record = {
-          index: i,
+        const record: Record<string, unknown> = {
+          index: row.index,
           variant: variants[f],
-          params: Object.fromEntries(paramNames.map((name, j) => [name, cliNumber(params[j])])),
+          params: Object.fromEntries(parameters.map((name, j) => [name, cliNumber(row.params[j] as number)])),
           status,
-          criteria: scored ? Object.fromEntries(criteria.map((id, c) => [id, cliNumber(result.scores[row * nc + c])])) : null,
+          criteria: scored ? Object.fromEntries(criteria.map((id, c) => [id, cliNumber(score(c))])) : null,
         };
+        const reason = row.variantReasons?.[f];
+        if (reason) record.reason = reason;
         yield `${JSON.stringify(record)}\n`;
       }
     }

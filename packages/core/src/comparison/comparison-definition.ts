@@ -1,12 +1,11 @@
 import { z } from "zod";
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
-import { MAX_FAMILY_VARIANTS } from "../sweeps/sweep-input.js";
 import {
+  checkComparisonSweepFields,
   comparisonAggregateSchema,
-  comparisonCriterionOptionsSchema,
-  comparisonScenarioSchema,
-  comparisonStructureSchema,
-  comparisonVariantSchema,
+  comparisonFamilySchema,
+  comparisonSweepFields,
+  withComparisonDefaults,
 } from "./sweep-adapter.js";
 
 /** Most contenders of one comparison. */
@@ -68,8 +67,9 @@ export const comparisonBudgetSchema = z.strictObject({
 
 /**
  * A comparison without its family (the server resolves the family from the library):
- * - structure: the controller structure with its bounded box (every tunable axis with max > min),
- *   scenario and criterionOptions: exactly as in `loopyard sweep`;
+ * - structure (the controller kind), ranges (the box: { <param>: { min, max, scale? } }, every
+ *   axis with max > min; a range's count is ignored), fixed, filter, sampleTime, antiWindup,
+ *   scenario and criterionOptions: exactly as in a sweep definition, with the sweeps' checks;
  * - aggregate over the family: {kind:"worst"} | {kind:"mean"} | {kind:"percentile", p};
  * - contenders (1…MAX_CONTENDERS): criterion ids, or { criterion: "quadratic", q (default 1), r,
  *   label } — several quadratic costs with different r may compete; plain "quadratic" takes
@@ -82,9 +82,7 @@ export const comparisonBudgetSchema = z.strictObject({
  *   (default 1); the same definition and seed give the same picks.
  */
 const definitionObject = z.strictObject({
-  structure: comparisonStructureSchema,
-  scenario: comparisonScenarioSchema,
-  criterionOptions: comparisonCriterionOptionsSchema.optional(),
+  ...comparisonSweepFields,
   aggregate: comparisonAggregateSchema,
   contenders: z.array(contenderSchema).min(1, "give at least one contender").max(MAX_CONTENDERS, `at most ${MAX_CONTENDERS} contenders`),
   judges: z.array(criterionId).max(CRITERION_IDS.length, "list each judge once").default([]),
@@ -93,28 +91,46 @@ const definitionObject = z.strictObject({
   seed: z.number({ error: "seed must be a number" }).int("seed must be a whole number").default(1),
 });
 
-export const comparisonDefinitionSchema = definitionObject.superRefine((definition, ctx) => {
-  const issue = definitionIssue(definition);
-  if (issue) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
-});
+export const comparisonDefinitionSchema = definitionObject.overwrite(withComparisonDefaults).superRefine(checkDefinition);
 
 /**
- * The spec of `loopyard compare`: a comparison definition with its family written inline, 1…20
- * variants { name?, plant } (names default to v1, v2, …), as in `loopyard sweep`.
+ * The spec of `loopyard compare`: a comparison definition with its family written inline as in
+ * `loopyard sweep`: { name?, variants: [{ label?, plant, parameters? }] }, 1…20 variants (labels
+ * default to v1, v2, …).
  */
 export const comparisonSpecSchema = definitionObject
-  .extend({
-    family: z
-      .array(comparisonVariantSchema)
-      .min(1, "give at least one plant variant")
-      .max(MAX_FAMILY_VARIANTS, `at most ${MAX_FAMILY_VARIANTS} variants`),
-  })
+  .extend({ family: comparisonFamilySchema })
+  .overwrite(withComparisonDefaults)
   .superRefine((spec, ctx) => {
-    const names = new Set(spec.family.map((v, i) => v.name ?? `v${i + 1}`));
-    if (names.size !== spec.family.length) ctx.addIssue({ code: "custom", path: ["family"], message: "give each variant a different name" });
-    const issue = definitionIssue(spec);
-    if (issue) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+    const labels = spec.family.variants.map((v, i) => v.label || `v${i + 1}`);
+    if (new Set(labels).size !== labels.length) ctx.addIssue({ code: "custom", path: ["family", "variants"], message: "give each variant a different label" });
+    checkDefinition(spec, ctx);
   });
+
+/** The sweeps' checks of the shared fields, then the comparison's own (definitionIssue). */
+function checkDefinition(definition: ComparisonDefinition, ctx: z.RefinementCtx): void {
+  let failed = false;
+  const counting = {
+    value: ctx.value,
+    addIssue: (issue: Parameters<z.RefinementCtx["addIssue"]>[0]) => {
+      failed = true;
+      ctx.addIssue(issue);
+    },
+  } as z.RefinementCtx;
+  checkComparisonSweepFields(definition, definitionCriteria(definition), definition.budget.prescan, definition.seed, counting);
+  if (failed) return;
+  const issue = definitionIssue(definition);
+  if (issue) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+}
+
+/** Every registry criterion a definition names (contenders, judges, constraint keys that are ids). */
+function definitionCriteria(definition: ComparisonDefinition): CriterionId[] {
+  const ids = new Set<CriterionId>();
+  for (const c of definition.contenders) ids.add(typeof c === "string" ? c : "quadratic");
+  for (const j of definition.judges) ids.add(j);
+  for (const key of Object.keys(definition.constraints)) if (isCriterionId(key)) ids.add(key);
+  return [...ids];
+}
 
 export type ComparisonDefinition = z.output<typeof definitionObject>;
 export type ComparisonDefinitionInput = z.input<typeof definitionObject>;
@@ -126,17 +142,17 @@ export type ComparisonBudget = z.output<typeof comparisonBudgetSchema>;
 /**
  * Checks a parsed definition beyond its shape, as one issue with a field path and a sentence
  * (null when it holds): distinct contenders and labels, judges not already contenders, constraint
- * keys that are criterion ids, a box with max > min on every tunable axis and at most
+ * keys that are criterion ids, a box with max > min on every ranged parameter and at most
  * MAX_COMPARISON_PARAMETERS of them. planComparison throws a RangeError with the same sentence.
  */
 export function definitionIssue(definition: ComparisonDefinition): { path: (string | number)[]; message: string } | null {
-  const tunable = Object.entries(definition.structure.tunable);
-  if (tunable.length === 0) return { path: ["structure", "tunable"], message: "name at least one tunable parameter with its range" };
+  const tunable = Object.entries(definition.ranges);
+  if (tunable.length === 0) return { path: ["ranges"], message: "give at least one parameter a range; the comparison searches that box" };
   if (tunable.length > MAX_COMPARISON_PARAMETERS) {
-    return { path: ["structure", "tunable"], message: `at most ${MAX_COMPARISON_PARAMETERS} tunable parameters` };
+    return { path: ["ranges"], message: `at most ${MAX_COMPARISON_PARAMETERS} parameters with a range` };
   }
   for (const [name, axis] of tunable) {
-    if (!(axis.max > axis.min)) return { path: ["structure", "tunable", name, "max"], message: "max must exceed min; a comparison searches a box with some width" };
+    if (!(axis.max > axis.min)) return { path: ["ranges", name, "max"], message: "max must exceed min; a comparison searches a box with some width" };
   }
   const keys = new Set<string>();
   for (const [i, contender] of definition.contenders.entries()) {

@@ -66,13 +66,13 @@ export interface ComparisonPlan {
  * Plans a comparison of a parsed definition (comparisonDefinitionSchema) on a resolved family:
  * the columns (contenders, then judges), the constraints, the registry criteria to evaluate, the
  * structure, box and scenario (through the sweep adapter). Pure; allocates nothing that grows with
- * the budget. Throws a RangeError naming the field for a definition the schema let through but the
- * engine refuses (definitionIssue, structure checks) or an empty family.
+ * the budget (planSweep plans the pre-scan's Sobol design; its points are drawn when asked for).
+ * Throws a RangeError naming the field for a definition the schema let through but the engine
+ * refuses (definitionIssue), an empty family, or a SweepPlanError when the plants do not fit.
  */
 export function planComparison(definition: ComparisonDefinition, family: readonly ComparisonVariant[]): ComparisonPlan {
   const issue = definitionIssue(definition);
   if (issue) throw new RangeError(`${issue.path.join(".")}: ${issue.message}`);
-  const setup = comparisonSetup(definition.structure, definition.scenario, definition.criterionOptions, family);
   const options = definition.criterionOptions ?? {};
   const columns: ComparisonColumn[] = definition.contenders.map((contender) => {
     if (typeof contender === "string") {
@@ -95,6 +95,8 @@ export function planComparison(definition: ComparisonDefinition, family: readonl
   const needed = new Set<CriterionId>();
   for (const c of columns) for (const id of baseCriteriaOf(c)) needed.add(id);
   for (const c of constraints) needed.add(c.criterion);
+  const criteria = CRITERION_IDS.filter((id) => needed.has(id));
+  const setup = comparisonSetup(definition, family, criteria, definition.budget.prescan, definition.seed);
   return {
     definition,
     setup,
@@ -105,7 +107,7 @@ export function planComparison(definition: ComparisonDefinition, family: readonl
     columns,
     contenders: definition.contenders.length,
     constraints,
-    criteria: CRITERION_IDS.filter((id) => needed.has(id)),
+    criteria,
     budget: definition.budget,
     seed: definition.seed,
   };

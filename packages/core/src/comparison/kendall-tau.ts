@@ -24,15 +24,16 @@
  */
 export function kendallTau(x: ArrayLike<number>, y: ArrayLike<number>): number {
   if (x.length !== y.length) throw new RangeError(`y: length ${y.length} differs from x's ${x.length}`);
-  const order = sortedOrder(x);
-  return tauFromOrder(x, y, order, new KendallScratch(x.length));
+  const rx = rankSample(x);
+  return tauFromRanks(rx, rankSample(y).ranks, new KendallScratch(x.length));
 }
 
 /**
  * Kendall's τ_b between every pair of k samples of equal length n (e.g. k criteria over the same
  * n candidates), as a k × k row-major matrix: entry (a, b) = kendallTau(samples[a], samples[b]),
  * 1 on the diagonal for a sample with two distinct values (NaN when it has fewer). Each sample is
- * sorted once and the scratch arrays are shared, so the cost is O(k² · n log n) with small constants.
+ * ranked once (one sort) and the scratch arrays are shared, so the cost is one sort per sample and
+ * one O(n log n) merge count per pair, on 32-bit integer ranks.
  * Throws a RangeError when the samples differ in length.
  */
 export function kendallTauMatrix(samples: readonly ArrayLike<number>[]): Float64Array {
@@ -41,12 +42,15 @@ export function kendallTauMatrix(samples: readonly ArrayLike<number>[]): Float64
   samples.forEach((s, a) => {
     if (s.length !== n) throw new RangeError(`samples[${a}]: length ${s.length} differs from samples[0]'s ${n}`);
   });
-  const orders = samples.map((s) => sortedOrder(s));
+  const ranked = samples.map((s) => rankSample(s));
   const scratch = new KendallScratch(n);
   const out = new Float64Array(k * k);
   for (let a = 0; a < k; a++) {
-    for (let b = a; b < k; b++) {
-      const tau = tauFromOrder(samples[a], samples[b], orders[a], scratch);
+    // τ_b(x, x) = (n₀ − n₁)/(n₀ − n₁): 1 unless every value ties (or fewer than two remain).
+    const m = ranked[a].order.length;
+    out[a * k + a] = m >= 2 && ranked[a].distinct >= 2 ? 1 : NaN;
+    for (let b = a + 1; b < k; b++) {
+      const tau = tauFromRanks(ranked[a], ranked[b].ranks, scratch);
       out[a * k + b] = tau;
       out[b * k + a] = tau;
     }
@@ -54,65 +58,98 @@ export function kendallTauMatrix(samples: readonly ArrayLike<number>[]): Float64
   return out;
 }
 
+/** A sample's dense ranks (0 … distinct − 1, equal values equal ranks, −1 for NaN) and its non-NaN indices in ascending order. */
+interface RankedSample {
+  ranks: Int32Array;
+  order: Uint32Array;
+  distinct: number;
+}
+
 /** Preallocated work arrays of one τ computation over at most n pairs. */
 class KendallScratch {
-  readonly ys: Float64Array;
-  readonly buffer: Float64Array;
+  readonly ys: Int32Array;
+  readonly buffer: Int32Array;
   constructor(n: number) {
-    this.ys = new Float64Array(n);
-    this.buffer = new Float64Array(n);
+    this.ys = new Int32Array(n);
+    this.buffer = new Int32Array(n);
   }
 }
 
-/** Indices of the non-NaN values of v in ascending order of value (NaN indices dropped). */
-function sortedOrder(v: ArrayLike<number>): Uint32Array {
+/**
+ * Ranks a sample: its non-NaN values sorted once (the engine's numeric typed-array sort), each
+ * value's dense rank by binary search among the distinct values, and the indices ordered by rank
+ * (ties by index) by a counting sort.
+ */
+function rankSample(v: ArrayLike<number>): RankedSample {
   let m = 0;
   for (let i = 0; i < v.length; i++) if (!Number.isNaN(v[i])) m++;
-  const order = new Uint32Array(m);
+  const sorted = new Float64Array(m);
   let j = 0;
-  for (let i = 0; i < v.length; i++) if (!Number.isNaN(v[i])) order[j++] = i;
-  // A typed-array sort of (value, index) keys would need packing; a comparator sort is O(m log m).
-  const values = Float64Array.from(order, (i) => v[i]);
-  const positions = Uint32Array.from({ length: m }, (_, p) => p);
-  positions.sort((p, q) => (values[p] < values[q] ? -1 : values[p] > values[q] ? 1 : p - q));
-  return Uint32Array.from(positions, (p) => order[p]);
+  for (let i = 0; i < v.length; i++) if (!Number.isNaN(v[i])) sorted[j++] = v[i];
+  sorted.sort();
+  let distinct = 0;
+  for (let p = 0; p < m; p++) if (p === 0 || sorted[p] !== sorted[distinct - 1]) sorted[distinct++] = sorted[p];
+  const levels = sorted.subarray(0, distinct);
+  const ranks = new Int32Array(v.length).fill(-1);
+  const counts = new Uint32Array(distinct + 1);
+  for (let i = 0; i < v.length; i++) {
+    const value = v[i];
+    if (Number.isNaN(value)) continue;
+    let lo = 0;
+    let hi = distinct - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (levels[mid] < value) lo = mid + 1;
+      else hi = mid;
+    }
+    ranks[i] = lo;
+    counts[lo + 1]++;
+  }
+  for (let r = 0; r < distinct; r++) counts[r + 1] += counts[r];
+  const order = new Uint32Array(m);
+  for (let i = 0; i < v.length; i++) if (ranks[i] >= 0) order[counts[ranks[i]]++] = i;
+  return { ranks, order, distinct };
 }
 
 /**
- * τ_b of (x, y) given the indices of x's non-NaN values sorted by x. Pairs with y NaN are skipped;
- * within each group of equal x the y values are sorted (so x-ties are not counted as exchanges).
+ * τ_b of (x, y) from x's ranking and y's ranks. Pairs with y NaN (rank −1) are skipped; within each
+ * group of equal x the y ranks are sorted (so x-ties are not counted as exchanges).
  */
-function tauFromOrder(x: ArrayLike<number>, y: ArrayLike<number>, order: Uint32Array, scratch: KendallScratch): number {
+function tauFromRanks(x: RankedSample, yRanks: Int32Array, scratch: KendallScratch): number {
   const ys = scratch.ys;
+  const order = x.order;
+  const xRanks = x.ranks;
   // Gather y along x's order, skipping NaN y; count x-ties and joint ties group by group.
   let m = 0;
   let n1 = 0;
   let n3 = 0;
   let groupStart = 0;
-  let previousX = NaN;
-  for (let p = 0; p <= order.length; p++) {
-    const index = p < order.length ? order[p] : -1;
-    const yi = index >= 0 ? y[index] : NaN;
-    if (index >= 0 && Number.isNaN(yi)) continue;
-    const xi = index >= 0 ? x[index] : NaN;
-    if (index < 0 || xi !== previousX) {
-      // Close the group [groupStart, m) of equal x: sort its y, count its ties.
+  let previousX = -1;
+  for (let p = 0; p < order.length; p++) {
+    const index = order[p];
+    const yi = yRanks[index];
+    if (yi < 0) continue;
+    const xi = xRanks[index];
+    if (xi !== previousX) {
       const t = m - groupStart;
       if (t > 1) {
         n1 += (t * (t - 1)) / 2;
-        const group = ys.subarray(groupStart, m);
-        group.sort();
-        n3 += tiedPairs(group);
+        n3 += sortedTies(ys.subarray(groupStart, m).sort());
       }
       groupStart = m;
       previousX = xi;
     }
-    if (index >= 0) ys[m++] = yi;
+    ys[m++] = yi;
+  }
+  const t = m - groupStart;
+  if (t > 1) {
+    n1 += (t * (t - 1)) / 2;
+    n3 += sortedTies(ys.subarray(groupStart, m).sort());
   }
   if (m < 2) return NaN;
   const sequence = ys.subarray(0, m);
   const exchanges = mergeSortExchanges(sequence, scratch.buffer.subarray(0, m));
-  const n2 = tiedPairs(sequence); // sorted now
+  const n2 = sortedTies(sequence); // sorted now
   const n0 = (m * (m - 1)) / 2;
   const denominator = Math.sqrt((n0 - n1) * (n0 - n2));
   if (denominator === 0) return NaN;
@@ -120,7 +157,7 @@ function tauFromOrder(x: ArrayLike<number>, y: ArrayLike<number>, order: Uint32A
 }
 
 /** Σ t(t−1)/2 over the runs of equal values of a sorted array. */
-function tiedPairs(sorted: Float64Array): number {
+function sortedTies(sorted: Int32Array): number {
   let pairs = 0;
   let run = 1;
   for (let i = 1; i <= sorted.length; i++) {
@@ -133,16 +170,33 @@ function tiedPairs(sorted: Float64Array): number {
   return pairs;
 }
 
+/** Runs sorted by insertion before merging (short runs are cheaper by insertion; exchanges counted alike). */
+const INSERTION_RUN = 16;
+
 /**
- * Sorts a ascending in place (bottom-up merge sort, `buffer` of the same length) and returns the
- * number of pairs i < j with a_i > a_j (strictly; equal values are not exchanged) — Knight's S.
+ * Sorts a ascending in place (insertion-sorted runs, then bottom-up merges through `buffer` of the
+ * same length) and returns the number of pairs i < j with a_i > a_j (strictly; equal values are
+ * not exchanged) — Knight's S.
  */
-function mergeSortExchanges(a: Float64Array, buffer: Float64Array): number {
+function mergeSortExchanges(a: Int32Array, buffer: Int32Array): number {
   const n = a.length;
   let exchanges = 0;
+  for (let lo = 0; lo < n; lo += INSERTION_RUN) {
+    const hi = Math.min(lo + INSERTION_RUN, n);
+    for (let i = lo + 1; i < hi; i++) {
+      const v = a[i];
+      let j = i - 1;
+      while (j >= lo && a[j] > v) {
+        a[j + 1] = a[j];
+        j--;
+      }
+      exchanges += i - 1 - j;
+      a[j + 1] = v;
+    }
+  }
   let source = a;
   let target = buffer;
-  for (let width = 1; width < n; width *= 2) {
+  for (let width = INSERTION_RUN; width < n; width *= 2) {
     for (let lo = 0; lo < n; lo += 2 * width) {
       const mid = Math.min(lo + width, n);
       const hi = Math.min(lo + 2 * width, n);

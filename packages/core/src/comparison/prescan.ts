@@ -1,9 +1,7 @@
 import type { BatchResult } from "../batch/evaluate-batch.js";
-import { axisValue } from "../batch/parameter-space.js";
-import { sobolUnit } from "../batch/sobol-design.js";
 import type { ComparisonPlan } from "./comparison-plan.js";
 import { comparisonRows, type ComparisonRows } from "./comparison-rows.js";
-import { evaluateVectors } from "./sweep-adapter.js";
+import { designVectors, evaluateVectors } from "./sweep-adapter.js";
 
 /**
  * Pre-scan candidates start … end − 1 with their scores on every column and variant (see
@@ -19,18 +17,14 @@ export interface PrescanChunk extends ComparisonRows {
 export type PrescanResult = PrescanChunk;
 
 /**
- * Parameter vectors of pre-scan candidates start … end − 1: points of the d-dimensional Sobol
- * sequence scrambled by a digital shift from the comparison's seed (sobolUnit with skip = start),
- * mapped onto the box (axisValue: evenly in log(value) on a log axis). One design shared by every
- * contender; any split into chunks gives the same points. Throws a RangeError for a range outside
- * 0 … budget.prescan.
+ * Parameter vectors of pre-scan candidates start … end − 1: the sweep plan's Sobol design of
+ * budget.prescan points over the box, scrambled by a digital shift from the comparison's seed
+ * (sobolDesign: evenly in log(value) on a log axis). One design shared by every contender; any
+ * split into chunks gives the same points. Throws a RangeError for a range outside 0 … budget.prescan.
  */
 export function prescanVectors(plan: ComparisonPlan, start: number, end: number): Float64Array {
   checkRange(plan, start, end);
-  const d = plan.space.length;
-  const unit = sobolUnit(end - start, d, { skip: start, scramble: { seed: plan.seed } });
-  for (let i = 0; i < end - start; i++) for (let j = 0; j < d; j++) unit[i * d + j] = axisValue(plan.space[j], unit[i * d + j]);
-  return unit;
+  return designVectors(plan.setup, start, end);
 }
 
 /**

@@ -1,4 +1,5 @@
-import type { Controller } from "./controller.js";
+import { CONTROLLER_RULES, type Controller } from "./controller.js";
+import { CONTROLLER_PARAMETERS, REFERENCE_GAIN_PARAMETER, satisfiesSign } from "./controller-parameters.js";
 
 /**
  * A controller as a linear state space with two measured inputs, the setpoint r and the output y,
@@ -125,31 +126,26 @@ export function antiWindupTrackingTime(kp: number, ki: number, kd: number): numb
   return td > 0 ? Math.sqrt(ti * td) : ti;
 }
 
-/** Throws a RangeError naming the first bad field of a controller. */
+/**
+ * Throws a RangeError naming the first bad field of a controller: every parameter of the kind's
+ * table (CONTROLLER_PARAMETERS) finite and of its sign, then the cross-field rules (CONTROLLER_RULES).
+ */
 export function assertValidController(controller: Controller): void {
   if (controller === null || typeof controller !== "object") throw new TypeError("controller must be an object with a kind");
-  const fields: Record<string, readonly string[]> = {
-    p: ["kp"],
-    pi: ["kp", "ki"],
-    pid: ["kp", "ki", "kd", "tf"],
-    pid2dof: ["kp", "ki", "kd", "tf", "b", "c"],
-    "lead-lag": ["k", "tLead", "tLag"],
-    "state-feedback": ["n"],
-  };
-  const names = fields[controller.kind];
-  if (!names) throw new RangeError(`controller.kind: unknown controller structure "${String((controller as { kind?: unknown }).kind)}"`);
-  const record = controller as unknown as Record<string, unknown>;
-  for (const name of names) {
-    const v = record[name];
-    if (typeof v !== "number" || !Number.isFinite(v)) throw new RangeError(`controller.${name} must be a finite number, got ${String(v)}`);
+  const kind = controller.kind;
+  const table = kind === "state-feedback" ? [REFERENCE_GAIN_PARAMETER] : CONTROLLER_PARAMETERS[kind];
+  if (!table) throw new RangeError(`controller.kind: unknown controller structure "${String((controller as { kind?: unknown }).kind)}"`);
+  const record = controller as unknown as Record<string, unknown> & { kind: string };
+  for (const p of table) {
+    const v = record[p.name];
+    if (typeof v !== "number" || !Number.isFinite(v)) throw new RangeError(`controller.${p.name} must be a finite number, got ${String(v)}`);
+    if (!satisfiesSign(v, p.sign)) {
+      throw new RangeError(`controller.${p.name} must be ${p.sign === "positive" ? ">" : "≥"} 0${p.unit === "s" ? " s" : ""}, got ${v}`);
+    }
   }
-  if (controller.kind === "pid" || controller.kind === "pid2dof") {
-    if (controller.tf < 0) throw new RangeError(`controller.tf must be ≥ 0 s, got ${controller.tf}`);
-    if (controller.kd !== 0 && !(controller.tf > 0)) throw new RangeError("controller.tf must be > 0 s when kd ≠ 0; the derivative needs its filter");
-  }
-  if (controller.kind === "lead-lag") {
-    if (controller.tLead < 0 || controller.tLag < 0) throw new RangeError("controller.tLag: tLead and tLag must be ≥ 0 s");
-    if (controller.tLead > 0 && !(controller.tLag > 0)) throw new RangeError("controller.tLag must be > 0 s when tLead > 0");
+  for (const rule of CONTROLLER_RULES) {
+    const problem = rule(record);
+    if (problem) throw new RangeError(`controller.${problem.message}`);
   }
   if (controller.kind === "state-feedback") {
     if (!Array.isArray(controller.k) || controller.k.length === 0 || !controller.k.every((v) => Number.isFinite(v))) {

@@ -1,4 +1,12 @@
 import { z } from "zod";
+import { MAX_STATE_FEEDBACK_GAINS } from "../limits.js";
+import {
+  CONTROLLER_PARAMETERS,
+  REFERENCE_GAIN_PARAMETER,
+  SAMPLE_TIME_PARAMETER,
+  type ControllerParameter,
+  type FixedParameterKind,
+} from "./controller-parameters.js";
 import type { PidController } from "./pid.js";
 
 /** Anti-windup when the actuator saturates (only matters with actuator limits and integral action). */
@@ -70,32 +78,78 @@ export type ControllerKind = Controller["kind"];
 export const CONTROLLER_KINDS = ["p", "pi", "pid", "pid2dof", "lead-lag", "state-feedback"] as const satisfies readonly ControllerKind[];
 
 const gain = (name: string) => z.number({ error: `${name} must be a number` }).finite(`${name} must be finite`);
-const time = (name: string) => gain(name).min(0, `${name} must be ≥ 0 s`);
+
+/** The zod check of one table parameter: finite, with its sign (CONTROLLER_PARAMETERS). */
+function parameterNumber(p: ControllerParameter) {
+  const unit = p.unit === "s" ? " s" : "";
+  const base = gain(p.name);
+  if (p.sign === "positive") return base.gt(0, `${p.name} must be > 0${unit}`);
+  if (p.sign === "non-negative") return base.min(0, `${p.name} must be ≥ 0${unit}`);
+  return base;
+}
+
+/** The fields of a kind's table as a zod shape. */
+function tableShape<K extends FixedParameterKind>(kind: K) {
+  return Object.fromEntries(CONTROLLER_PARAMETERS[kind].map((p) => [p.name, parameterNumber(p)])) as Record<string, z.ZodNumber>;
+}
+
+/** Anti-windup of any controller (see AntiWindup). */
+export const antiWindupSchema = z
+  .discriminatedUnion("kind", [
+    z.object({ kind: z.literal("none") }),
+    z.object({ kind: z.literal("back-calculation"), tt: gain("tt").gt(0, "tt must be > 0 s").optional() }),
+    z.object({ kind: z.literal("conditional") }),
+  ])
+  .optional();
 
 const common = {
-  sampleTime: gain("sampleTime").gt(0, "sampleTime must be > 0 s").optional(),
-  antiWindup: z
-    .discriminatedUnion("kind", [
-      z.object({ kind: z.literal("none") }),
-      z.object({ kind: z.literal("back-calculation"), tt: gain("tt").gt(0, "tt must be > 0 s").optional() }),
-      z.object({ kind: z.literal("conditional") }),
-    ])
-    .optional(),
+  sampleTime: parameterNumber(SAMPLE_TIME_PARAMETER).optional(),
+  antiWindup: antiWindupSchema,
 };
 
-const derivativeNeedsFilter = (c: { kd: number; tf: number }) => c.kd === 0 || c.tf > 0;
-const filterIssue = { message: "tf must be > 0 s when kd ≠ 0: the derivative needs its filter", path: ["tf"] };
+/**
+ * Cross-field rules of a controller, stated once: assertValidController and controllerSchema both
+ * apply them. Each returns null when the controller obeys it, else the field and the sentence.
+ */
+export const CONTROLLER_RULES: readonly ((c: Record<string, unknown> & { kind: string }) => { field: string; message: string } | null)[] = [
+  (c) =>
+    (c.kind === "pid" || c.kind === "pid2dof") && c.kd !== 0 && !((c.tf as number) > 0)
+      ? { field: "tf", message: "tf must be > 0 s when kd ≠ 0: the derivative needs its filter" }
+      : null,
+  (c) =>
+    c.kind === "lead-lag" && (c.tLead as number) > 0 && !((c.tLag as number) > 0)
+      ? { field: "tLag", message: "tLag must be > 0 s when tLead > 0 (a proper controller)" }
+      : null,
+];
 
-/** Runtime check of any controller. */
+function withRules<T extends z.ZodType>(schema: T) {
+  return schema.superRefine((value, ctx) => {
+    for (const rule of CONTROLLER_RULES) {
+      const problem = rule(value as Record<string, unknown> & { kind: string });
+      if (problem) ctx.addIssue({ code: "custom", path: [problem.field], message: problem.message });
+    }
+  });
+}
+
+/**
+ * Runtime check of any controller, built from the parameter table (CONTROLLER_PARAMETERS) and the
+ * cross-field rules (CONTROLLER_RULES).
+ */
 export const controllerSchema = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("p"), kp: gain("kp"), ...common }),
-  z.object({ kind: z.literal("pi"), kp: gain("kp"), ki: gain("ki"), ...common }),
-  z.object({ kind: z.literal("pid"), kp: gain("kp"), ki: gain("ki"), kd: gain("kd"), tf: time("tf"), ...common }).refine(derivativeNeedsFilter, filterIssue),
-  z
-    .object({ kind: z.literal("pid2dof"), kp: gain("kp"), ki: gain("ki"), kd: gain("kd"), tf: time("tf"), b: gain("b"), c: gain("c"), ...common })
-    .refine(derivativeNeedsFilter, filterIssue),
-  z
-    .object({ kind: z.literal("lead-lag"), k: gain("k"), tLead: time("tLead"), tLag: time("tLag"), ...common })
-    .refine((c) => c.tLead === 0 || c.tLag > 0, { message: "tLag must be > 0 s when tLead > 0 (a proper controller)", path: ["tLag"] }),
-  z.object({ kind: z.literal("state-feedback"), k: z.array(gain("k")).min(1, "give one gain per plant state").max(10, "at most 10 gains"), n: gain("n"), ...common }),
+  withRules(z.object({ kind: z.literal("p"), ...tableShape("p"), ...common })),
+  withRules(z.object({ kind: z.literal("pi"), ...tableShape("pi"), ...common })),
+  withRules(z.object({ kind: z.literal("pid"), ...tableShape("pid"), ...common })),
+  withRules(z.object({ kind: z.literal("pid2dof"), ...tableShape("pid2dof"), ...common })),
+  withRules(z.object({ kind: z.literal("lead-lag"), ...tableShape("lead-lag"), ...common })),
+  withRules(
+    z.object({
+      kind: z.literal("state-feedback"),
+      k: z
+        .array(gain("k"))
+        .min(1, "give one gain per plant state")
+        .max(MAX_STATE_FEEDBACK_GAINS, `at most ${MAX_STATE_FEEDBACK_GAINS} gains`),
+      n: parameterNumber(REFERENCE_GAIN_PARAMETER),
+      ...common,
+    }),
+  ),
 ]);

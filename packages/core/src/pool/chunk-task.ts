@@ -23,3 +23,9 @@ export function chunkResultViews(bytes: Uint8Array, rows: number, criteria: numb
     status: new Uint8Array(bytes.buffer, bytes.byteOffset + scoreBytes, rows),
   };
 }
+
+/** A worker's answer when some candidate was rejected: the result buffer and [row, sentence] pairs. */
+export interface ChunkReply {
+  bytes: Uint8Array;
+  reasons: [number, string][];
+}

@@ -2,7 +2,7 @@ import { availableParallelism } from "node:os";
 import { Piscina } from "piscina";
 import type { BatchResult } from "../batch/evaluate-batch.js";
 import { assertValidStructure } from "../batch/structure.js";
-import { chunkResultViews, type ChunkTask } from "./chunk-task.js";
+import { chunkResultViews, type ChunkReply, type ChunkTask } from "./chunk-task.js";
 
 /** Most candidates per chunk: small enough for smooth progress, large enough to amortise a message. */
 export const DEFAULT_CHUNK_SIZE = 500;
@@ -101,7 +101,12 @@ export function createEvaluationPool(config: EvaluationPoolConfig = {}): Evaluat
         ...(batch.evaluation === undefined ? {} : { evaluation: batch.evaluation }),
       };
       runs.push(
-        (piscina.run(task, { transferList: [slice.buffer] }) as Promise<Uint8Array>).then((bytes) => {
+        (piscina.run(task, { transferList: [slice.buffer] }) as Promise<Uint8Array | ChunkReply>).then((reply) => {
+          const bytes = reply instanceof Uint8Array ? reply : reply.bytes;
+          if (!(reply instanceof Uint8Array)) {
+            result.reasons ??= new Map();
+            for (const [row, reason] of reply.reasons) result.reasons.set(start * nf + row, reason);
+          }
           const rows = (end - start) * nf;
           const views = chunkResultViews(bytes, rows, nc);
           result.status.set(views.status, start * nf);

@@ -1,9 +1,12 @@
 import { z } from "zod";
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
-import { CONTROLLER_KINDS, controllerSchema, type ControllerKind } from "../controllers/controller.js";
+import { antiWindupSchema, CONTROLLER_KINDS, type ControllerKind } from "../controllers/controller.js";
+import { controllerParameter } from "../controllers/controller-parameters.js";
+import { DEFAULT_DERIVATIVE_FILTER, derivativeFilterSchema } from "../controllers/derivative-filter.js";
 import {
   assertValidStructure,
   OPTIONAL_STRUCTURE_PARAMETERS,
+  StructureError,
   STRUCTURE_PARAMETERS,
   structureParameterNames,
   type Structure,
@@ -14,23 +17,28 @@ import { seededRandomDesign } from "../batch/random-design.js";
 import { sobolDesign } from "../batch/sobol-design.js";
 import type { ParameterSpace } from "../batch/parameter-space.js";
 import { sensitivityWeightSchema } from "../frequency/sensitivity-weight-schema.js";
+import {
+  MAX_FAMILY_VARIANTS,
+  MAX_TITLE_LENGTH,
+  MAX_SEARCH_GENERATIONS,
+  MAX_SEARCH_ITERATIONS,
+  MAX_SEARCH_POPULATION,
+  MAX_SEARCH_STARTS,
+  MAX_SIMULATION_SAMPLES,
+  MAX_STATE_FEEDBACK_GAINS,
+  MAX_SWEEP_CANDIDATES,
+  MAX_SWEEP_PARAMETERS,
+} from "../limits.js";
+import { searchBudget } from "./search-budget.js";
 
-/**
- * Largest number of candidates one sweep may hold (grid product or design count). The server may
- * set a lower per-workspace limit (LOOPYARD_MAX_CANDIDATES).
- */
-export const MAX_SWEEP_CANDIDATES = 1_000_000;
-/** Most plant variants in one sweep's family. */
-export const MAX_FAMILY_VARIANTS = 20;
+export { DEFAULT_DERIVATIVE_FILTER, derivativeFilterSchema, type DerivativeFilter } from "../controllers/derivative-filter.js";
+export { MAX_FAMILY_VARIANTS, MAX_SIMULATION_SAMPLES, MAX_SWEEP_CANDIDATES } from "../limits.js";
+
 /**
  * Criteria a sweep scores when none are chosen: the four of the first version, so sweeps stored
  * without a criteria list keep their meaning as CRITERION_IDS grows.
  */
 export const DEFAULT_SWEEP_CRITERIA: readonly CriterionId[] = ["iae", "ise", "itae", "effort"];
-/** Largest number of time samples one simulation may take (horizon / dt). */
-export const MAX_SIMULATION_SAMPLES = 200_000;
-/** Derivative filter of pid and pid2dof sweeps that give neither a filter nor tf: tf = kd/(10·kp). */
-export const DEFAULT_DERIVATIVE_FILTER = { mode: "ratio", n: 10 } as const;
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be finite`);
 
@@ -48,7 +56,7 @@ export const parameterRangeSchema = z
       .number()
       .int("count must be a whole number")
       .min(1, "count must be at least 1")
-      .max(1_000_000, "count must be at most 1000000")
+      .max(MAX_SWEEP_CANDIDATES, `count must be at most ${MAX_SWEEP_CANDIDATES}`)
       .default(1),
     scale: z.enum(["linear", "log"], { error: 'scale must be "linear" or "log"' }).optional(),
   })
@@ -58,16 +66,6 @@ export const parameterRangeSchema = z
 
 export type ParameterRange = z.infer<typeof parameterRangeSchema>;
 
-/**
- * Derivative filter of a swept pid or pid2dof: either a fixed time constant `tf` [s],
- * or `tf = kd / (n · kp)` (the filter is n times faster than the derivative time Td = kd/kp).
- */
-export const derivativeFilterSchema = z.discriminatedUnion("mode", [
-  z.object({ mode: z.literal("fixed"), tf: finite("tf").min(0, "tf must be ≥ 0 s") }),
-  z.object({ mode: z.literal("ratio"), n: finite("n").gt(0, "n must be > 0") }),
-]);
-
-export type DerivativeFilter = z.infer<typeof derivativeFilterSchema>;
 
 /**
  * The scenario of a sweep (see Scenario in simulation/scenario.ts): kind (default setpoint-step),
@@ -131,15 +129,15 @@ export const sweepDesignSchema = z.union(
       kind: z.literal("search"),
       method: z.literal("nelder-mead"),
       criterion: z.enum(CRITERION_IDS, { error: `unknown criterion; use one of ${CRITERION_IDS.join(", ")}` }),
-      starts: wholeCount("starts", 1000),
-      iterations: wholeCount("iterations", 100_000),
+      starts: wholeCount("starts", MAX_SEARCH_STARTS),
+      iterations: wholeCount("iterations", MAX_SEARCH_ITERATIONS),
       seed: seedSchema,
     }),
     z.object({
       kind: z.literal("search"),
       method: z.literal("nsga2"),
-      population: wholeCount("population", 10_000),
-      generations: wholeCount("generations", 10_000),
+      population: wholeCount("population", MAX_SEARCH_POPULATION),
+      generations: wholeCount("generations", MAX_SEARCH_GENERATIONS),
       seed: seedSchema,
     }),
   ],
@@ -167,12 +165,12 @@ export type SweepAggregate = z.infer<typeof sweepAggregateSchema>;
  * `plantRevisionId`.
  */
 export const sweepFamilySchema = z.object({
-  name: z.string().trim().max(120, "keep the family name under 120 characters").optional(),
+  name: z.string().trim().max(MAX_TITLE_LENGTH, `keep the family name under ${MAX_TITLE_LENGTH} characters`).optional(),
   variants: z
     .array(
       z.object({
         plantRevisionId: z.string().uuid("choose a plant revision"),
-        label: z.string().trim().max(120, "keep the label under 120 characters").optional(),
+        label: z.string().trim().max(MAX_TITLE_LENGTH, `keep the label under ${MAX_TITLE_LENGTH} characters`).optional(),
         parameters: z.record(z.string(), finite("every variant parameter")).optional(),
       }),
     )
@@ -182,199 +180,252 @@ export const sweepFamilySchema = z.object({
 
 export type SweepFamily = z.infer<typeof sweepFamilySchema>;
 
-/** The controller schema's own anti-windup field (none, back-calculation with tt, conditional). */
-const antiWindupSchema = controllerSchema.options[0].shape.antiWindup;
 
 /**
- * Which values a parameter may take in a sweep: "non-negative" (≥ 0: gains of P, PI, PID and 2-DOF
+ * Which values a parameter may take in a sweep, read from the controller's parameter table
+ * (CONTROLLER_PARAMETERS' sweepSign, else sign): "non-negative" (≥ 0: gains of P, PI, PID and 2-DOF
  * PID, setpoint weights, lead–lag gain, tf), "positive" (> 0: lead–lag times, sample time) or "any"
- * (state-feedback gains k[i] and the reference gain n may be negative).
+ * (state-feedback gains k[i] and the reference gain n may be negative). "any" for unknown names.
  */
 export function parameterSign(kind: ControllerKind, name: string): "non-negative" | "positive" | "any" {
-  if (kind === "state-feedback" && name !== "sampleTime") return "any";
-  if (name === "tLead" || name === "tLag" || name === "sampleTime") return "positive";
-  return "non-negative";
+  const entry = controllerParameter(kind, name);
+  return entry ? (entry.sweepSign ?? entry.sign) : "any";
+}
+
+/** A parameter name as a record key: short, and at most MAX_SWEEP_PARAMETERS of them (checked before any name list is built). */
+const parameterRecord = <T extends z.ZodType>(value: T, what: string) =>
+  z
+    .record(z.string().max(40, "a parameter name has at most 40 characters"), value)
+    .refine((r) => Object.keys(r).length <= MAX_SWEEP_PARAMETERS, { message: `give at most ${MAX_SWEEP_PARAMETERS} ${what}` });
+
+/**
+ * The fields of a sweep definition shared by the web form, the server and the CLI (the CLI's
+ * family carries plants inline instead of revisions, see the CLI's sweepSpecSchema).
+ */
+export const sweepDefinitionFields = {
+  structure: z.enum(CONTROLLER_KINDS, { error: `structure must be one of ${CONTROLLER_KINDS.join(", ")}` }).default("pid"),
+  ranges: parameterRecord(parameterRangeSchema, "ranges"),
+  fixed: parameterRecord(finite("every fixed parameter"), "fixed values").optional(),
+  filter: derivativeFilterSchema.optional(),
+  sampleTime: finite("sampleTime").gt(0, "sampleTime must be > 0 s").optional(),
+  antiWindup: antiWindupSchema,
+  scenario: sweepScenarioSchema,
+  criteria: z
+    .array(z.enum(CRITERION_IDS, { error: `unknown criterion; use one of ${CRITERION_IDS.join(", ")}` }))
+    .min(1, "choose at least one criterion")
+    .max(CRITERION_IDS.length, "list each criterion once")
+    .refine((ids) => new Set(ids).size === ids.length, { message: "list each criterion once" })
+    .default(() => [...DEFAULT_SWEEP_CRITERIA]),
+  criterionOptions: criterionOptionsSchema.optional(),
+  design: sweepDesignSchema.default(() => ({ kind: "grid" as const })),
+  aggregate: sweepAggregateSchema.default(() => ({ kind: "worst" as const })),
+};
+
+/** What every sweep definition holds once parsed (web/server input and CLI spec alike). */
+export interface SweepShape {
+  structure: ControllerKind;
+  ranges: Record<string, ParameterRange>;
+  fixed?: Record<string, number> | undefined;
+  filter?: z.output<typeof derivativeFilterSchema> | undefined;
+  sampleTime?: number | undefined;
+  antiWindup?: z.output<typeof antiWindupSchema>;
+  scenario: z.output<typeof sweepScenarioSchema>;
+  criteria: CriterionId[];
+  criterionOptions?: z.output<typeof criterionOptionsSchema> | undefined;
+  design: SweepDesign;
+  aggregate: SweepAggregate;
+  plantRevisionId?: string;
+  family?: { name?: string | undefined; variants: readonly { label?: string | undefined; parameters?: Record<string, number> | undefined; plantRevisionId?: string }[] } | undefined;
+}
+
+/** pid and pid2dof without a filter and without tf keep the version-1 default filter. */
+export function withDefaultFilter<S extends SweepShape>(s: S): S {
+  const tfGiven = "tf" in s.ranges || (s.fixed !== undefined && "tf" in s.fixed);
+  if ((s.structure === "pid" || s.structure === "pid2dof") && s.filter === undefined && !tfGiven) {
+    return { ...s, filter: { ...DEFAULT_DERIVATIVE_FILTER } };
+  }
+  return s;
 }
 
 /**
- * What a user submits to start a sweep (version 3).
+ * The checks of a sweep definition beyond its fields' own, stated once for the web form, the
+ * server and the CLI: names known for the structure (state gains k[i] bounded by
+ * MAX_STATE_FEEDBACK_GAINS before any name list is built), every required one given once, signs,
+ * sample time, family, design, candidate count, simulation size and the derivative filter. Each
+ * problem is an issue on its field whose message reads on its own (no field prefix; the field
+ * travels as the path, see sweepIssueSentence).
+ */
+export function checkSweepDefinition(s: SweepShape, ctx: z.RefinementCtx): void {
+  const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
+  const fixed = s.fixed ?? {};
+  const rangeNames = Object.keys(s.ranges);
+  if (rangeNames.length === 0) issue(["ranges"], "sweep at least one parameter (a range with count 1 is fine)");
+  if (s.criteria.includes("wsNorm") && s.criterionOptions?.weight === undefined) {
+    issue(["criterionOptions", "weight"], "the weighted-sensitivity norm needs a weight W(s): give num/den or the performance preset (M, omegaB, A)");
+  }
+
+  // Names: known for the structure, none both ranged and fixed, every required one given.
+  const kind = s.structure;
+  const isPidLike = kind === "pid" || kind === "pid2dof";
+  if (s.filter !== undefined && !isPidLike) issue(["filter"], `a derivative filter applies to pid and pid2dof only, not ${kind}`);
+  // State gains first: k[i] beyond the largest plant is refused before the structure lists its names.
+  let gainsOk = true;
+  for (const [where, names] of [["ranges", rangeNames], ["fixed", Object.keys(fixed)]] as const) {
+    for (const name of names) {
+      const gain = /^k\[(\d+)\]$/.exec(name);
+      if (kind === "state-feedback" && gain && Number(gain[1]) >= MAX_STATE_FEEDBACK_GAINS) {
+        gainsOk = false;
+        issue([where, name], `state feedback takes at most ${MAX_STATE_FEEDBACK_GAINS} gains k[0]…k[${MAX_STATE_FEEDBACK_GAINS - 1}], one per plant state; "${name}" is beyond them`);
+      }
+    }
+  }
+  if (!gainsOk) return;
+  const structure = sweepStructure(s);
+  let required: string[];
+  try {
+    required = structureParameterNames(structure);
+  } catch (error) {
+    if (!(error instanceof StructureError)) throw error;
+    issue(["structure"], error.reason);
+    return;
+  }
+  const allowed = new Set([...required, ...OPTIONAL_STRUCTURE_PARAMETERS]);
+  const allowedList = [...allowed].join(", ");
+  let namesOk = true;
+  for (const name of rangeNames) {
+    if (!allowed.has(name)) {
+      namesOk = false;
+      const hint = name === "tf" && s.filter ? "; tf comes from the filter (remove the filter to range tf)" : `; use ${allowedList}`;
+      issue(["ranges", name], `"${name}" is not a parameter of ${kind}${hint}`);
+    }
+  }
+  for (const name of Object.keys(fixed)) {
+    if (!allowed.has(name)) {
+      namesOk = false;
+      issue(["fixed", name], `"${name}" is not a parameter of ${kind}; use ${allowedList}`);
+    } else if (name in s.ranges) {
+      namesOk = false;
+      issue(["fixed", name], `${name} is also ranged; a parameter is either swept or fixed`);
+    }
+  }
+  if (s.sampleTime !== undefined && ("sampleTime" in s.ranges || "sampleTime" in fixed)) {
+    namesOk = false;
+    issue(["sampleTime"], "sampleTime is given twice (also in ranges or fixed); give it once");
+  }
+  for (const name of required) {
+    if (!(name in s.ranges) && !(name in fixed)) {
+      namesOk = false;
+      issue(["ranges", name], `${kind} needs ${name}; sweep it (ranges) or give a fixed value (fixed)`);
+    }
+  }
+  if (namesOk) {
+    try {
+      assertValidStructure(structure);
+    } catch (error) {
+      if (!(error instanceof StructureError)) throw error;
+      issue(["ranges"], error.reason);
+    }
+  }
+
+  // Signs and sample time.
+  const bounds = (name: string): { min: number; max: number } | undefined => {
+    const r = s.ranges[name];
+    if (r) return r;
+    const v = fixed[name] ?? (name === "sampleTime" ? s.sampleTime : undefined);
+    return v === undefined ? undefined : { min: v, max: v };
+  };
+  const where = (name: string): (string | number)[] =>
+    name in s.ranges ? ["ranges", name, "min"] : name === "sampleTime" && s.sampleTime !== undefined ? ["sampleTime"] : ["fixed", name];
+  for (const name of allowed) {
+    const b = bounds(name);
+    if (!b) continue;
+    const sign = parameterSign(kind, name);
+    if (sign === "non-negative" && b.min < 0) issue(where(name), `${name} must be ≥ 0`);
+    if (sign === "positive" && !(b.min > 0)) issue(where(name), `${name} must be > 0 s`);
+  }
+  const ts = bounds("sampleTime");
+  if (ts && ts.min > 0 && ts.min < s.scenario.dt) {
+    issue(where("sampleTime"), `sampleTime must be ≥ the time step (${s.scenario.dt} s)`);
+  }
+
+  // Family, design and the size of the sweep and of each simulation.
+  const firstVariant = s.family?.variants[0];
+  if (firstVariant?.plantRevisionId !== undefined && s.plantRevisionId !== undefined && firstVariant.plantRevisionId !== s.plantRevisionId) {
+    issue(["plantRevisionId"], "plantRevisionId must be the revision of the family's first variant");
+  }
+  if (s.design.kind === "search" && s.design.method === "nelder-mead" && !s.criteria.includes(s.design.criterion)) {
+    issue(["design", "criterion"], `the search criterion must be one of the sweep's criteria (${s.criteria.join(", ")})`);
+  }
+  const total = sweepCandidateCount(s);
+  if (total > MAX_SWEEP_CANDIDATES) {
+    issue(
+      s.design.kind === "grid" ? ["ranges"] : ["design"],
+      `${total} candidates is more than the ${MAX_SWEEP_CANDIDATES} allowed per sweep; ${s.design.kind === "grid" ? "lower the counts" : "lower the design's count"}`,
+    );
+  }
+  const samples = s.scenario.horizon / s.scenario.dt;
+  if (samples > MAX_SIMULATION_SAMPLES) {
+    issue(
+      ["scenario", "dt"],
+      `horizon/dt gives ${Math.ceil(samples)} samples, more than ${MAX_SIMULATION_SAMPLES}; raise the time step or shorten the horizon`,
+    );
+  }
+  if (s.scenario.dt > s.scenario.horizon / 10) issue(["scenario", "dt"], "the time step must be at most a tenth of the horizon");
+  if (s.scenario.load && s.scenario.load.time >= s.scenario.horizon) {
+    issue(["scenario", "load", "time"], "the load step must come before the end of the horizon");
+  }
+
+  // The derivative filter.
+  if (isPidLike && s.filter) {
+    const kd = bounds("kd");
+    const kp = bounds("kp");
+    if (s.filter.mode === "fixed" && s.filter.tf === 0 && kd && kd.max > 0) {
+      issue(["filter", "tf"], "tf must be > 0 s when kd can be non-zero: the derivative needs its filter");
+    }
+    if (s.filter.mode === "ratio" && kp && kd && kp.min === 0 && kd.max > 0) {
+      issue(where("kp"), "with the ratio filter tf = kd/(n·kp), kp must be > 0 wherever kd is non-zero; raise kp min or use a fixed tf");
+    }
+  }
+  if (isPidLike && !s.filter) {
+    const kd = bounds("kd");
+    const tf = bounds("tf");
+    if (kd && tf && kd.max > 0 && tf.min === 0) {
+      issue(where("tf"), "tf must be > 0 s when kd can be non-zero: the derivative needs its filter");
+    }
+  }
+}
+
+/**
+ * What a user submits to start a sweep (version 3): the sweep definition the web form builds and
+ * the server stores.
  *
  * - `family` (optional): the plant variants; without it the sweep has one variant,
  *   `plantRevisionId`. With it, `plantRevisionId` stays required and must be the first variant's
  *   revision (so every stored definition names a plant revision).
  * - `design` (default grid), `aggregate` over the family (default worst case); ranges may carry a
  *   `scale` ("log" needs min > 0).
- *
  * - `structure`: a controller kind (CONTROLLER_KINDS, default "pid").
  * - `ranges`: the swept parameters by name, each `{min, max, count}`; `fixed`: the other parameters
  *   of the structure by name. Every required parameter of the structure (STRUCTURE_PARAMETERS;
- *   state feedback: k[0] … k[m−1], n with m the plant's state count, checked by the server against
- *   the revision) is either ranged or fixed; a count-1 range works like a fixed value.
+ *   state feedback: k[0] … k[m−1], n with m the plant's state count, checked by planSweep against
+ *   the plants) is either ranged or fixed; a count-1 range works like a fixed value.
  * - `filter` (pid, pid2dof): how tf is derived; without it and without tf, tf = kd/(10·kp)
  *   (DEFAULT_DERIVATIVE_FILTER). A sweep that ranges or fixes tf has no filter.
  * - `sampleTime` [s] (≥ scenario.dt): a sampled controller; `antiWindup`: as the controller's.
  * - `scenario`, `criteria` (default DEFAULT_SWEEP_CRITERIA), `criterionOptions`.
  *
  * Definitions of version 1 (`structure: "pid"`, ranges kp, ki, kd, a filter, a setpoint-step
- * scenario) parse to the same sweep.
+ * scenario) parse to the same sweep. Checks: checkSweepDefinition.
  */
 export const sweepInputSchema = z
   .object({
-    name: z.string().trim().min(1, "give the sweep a name").max(120, "keep the name under 120 characters"),
+    name: z.string().trim().min(1, "give the sweep a name").max(MAX_TITLE_LENGTH, `keep the name under ${MAX_TITLE_LENGTH} characters`),
     plantRevisionId: z.string().uuid("choose a plant revision"),
-    structure: z.enum(CONTROLLER_KINDS, { error: `structure must be one of ${CONTROLLER_KINDS.join(", ")}` }).default("pid"),
-    ranges: z.record(z.string(), parameterRangeSchema),
-    fixed: z.record(z.string(), finite("every fixed parameter")).optional(),
-    filter: derivativeFilterSchema.optional(),
-    sampleTime: finite("sampleTime").gt(0, "sampleTime must be > 0 s").optional(),
-    antiWindup: antiWindupSchema,
-    scenario: sweepScenarioSchema,
-    criteria: z
-      .array(z.enum(CRITERION_IDS, { error: `unknown criterion; use one of ${CRITERION_IDS.join(", ")}` }))
-      .min(1, "choose at least one criterion")
-      .refine((ids) => new Set(ids).size === ids.length, { message: "list each criterion once" })
-      .default(() => [...DEFAULT_SWEEP_CRITERIA]),
-    criterionOptions: criterionOptionsSchema.optional(),
+    ...sweepDefinitionFields,
     family: sweepFamilySchema.optional(),
-    design: sweepDesignSchema.default(() => ({ kind: "grid" as const })),
-    aggregate: sweepAggregateSchema.default(() => ({ kind: "worst" as const })),
   })
-  .overwrite((s) => {
-    // pid and pid2dof without a filter and without tf keep the version-1 default filter.
-    const tfGiven = "tf" in s.ranges || (s.fixed !== undefined && "tf" in s.fixed);
-    if ((s.structure === "pid" || s.structure === "pid2dof") && s.filter === undefined && !tfGiven) {
-      return { ...s, filter: { ...DEFAULT_DERIVATIVE_FILTER } };
-    }
-    return s;
-  })
-  .superRefine((s, ctx) => {
-    const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
-    const fixed = s.fixed ?? {};
-    const rangeNames = Object.keys(s.ranges);
-    if (rangeNames.length === 0) issue(["ranges"], "sweep at least one parameter (a range with count 1 is fine)");
-    if (s.criteria.includes("wsNorm") && s.criterionOptions?.weight === undefined) {
-      issue(["criterionOptions", "weight"], "the weighted-sensitivity norm needs a weight W(s): give num/den or the performance preset (M, omegaB, A)");
-    }
-
-    // Names: known for the structure, none both ranged and fixed, every required one given.
-    const kind = s.structure;
-    const isPidLike = kind === "pid" || kind === "pid2dof";
-    if (s.filter !== undefined && !isPidLike) issue(["filter"], `a derivative filter applies to pid and pid2dof only, not ${kind}`);
-    const structure = sweepStructure(s as SweepInputParsed);
-    let required: string[];
-    try {
-      required = structureParameterNames(structure);
-    } catch (error) {
-      issue(["structure"], error instanceof Error ? error.message : String(error));
-      return;
-    }
-    const allowed = new Set([...required, ...OPTIONAL_STRUCTURE_PARAMETERS]);
-    const allowedList = [...allowed].join(", ");
-    let namesOk = true;
-    for (const name of rangeNames) {
-      if (!allowed.has(name)) {
-        namesOk = false;
-        const hint = name === "tf" && s.filter ? "; tf comes from the filter (remove the filter to range tf)" : `; use ${allowedList}`;
-        issue(["ranges", name], `ranges.${name}: "${name}" is not a parameter of ${kind}${hint}`);
-      }
-    }
-    for (const name of Object.keys(fixed)) {
-      if (!allowed.has(name)) {
-        namesOk = false;
-        issue(["fixed", name], `fixed.${name}: "${name}" is not a parameter of ${kind}; use ${allowedList}`);
-      } else if (name in s.ranges) {
-        namesOk = false;
-        issue(["fixed", name], `fixed.${name}: ${name} is also ranged; a parameter is either swept or fixed`);
-      }
-    }
-    if (s.sampleTime !== undefined && ("sampleTime" in s.ranges || "sampleTime" in fixed)) {
-      namesOk = false;
-      issue(["sampleTime"], "sampleTime is given twice (also in ranges or fixed); give it once");
-    }
-    for (const name of required) {
-      if (!(name in s.ranges) && !(name in fixed)) {
-        namesOk = false;
-        issue(["ranges", name], `ranges.${name}: ${kind} needs ${name}; sweep it (ranges) or give a fixed value (fixed)`);
-      }
-    }
-    if (namesOk) {
-      try {
-        assertValidStructure(structure);
-      } catch (error) {
-        issue(["ranges"], error instanceof Error ? error.message.replace(/^structure\.(tunable|fixed)/, "ranges") : String(error));
-      }
-    }
-
-    // Signs and sample time.
-    const bounds = (name: string): { min: number; max: number } | undefined => {
-      const r = s.ranges[name];
-      if (r) return r;
-      const v = fixed[name] ?? (name === "sampleTime" ? s.sampleTime : undefined);
-      return v === undefined ? undefined : { min: v, max: v };
-    };
-    const where = (name: string): (string | number)[] =>
-      name in s.ranges ? ["ranges", name, "min"] : name === "sampleTime" && s.sampleTime !== undefined ? ["sampleTime"] : ["fixed", name];
-    for (const name of allowed) {
-      const b = bounds(name);
-      if (!b) continue;
-      const sign = parameterSign(kind, name);
-      if (sign === "non-negative" && b.min < 0) issue(where(name), `${name} must be ≥ 0`);
-      if (sign === "positive" && !(b.min > 0)) issue(where(name), `${name} must be > 0 s`);
-    }
-    const ts = bounds("sampleTime");
-    if (ts && ts.min > 0 && ts.min < s.scenario.dt) {
-      issue(where("sampleTime"), `sampleTime must be ≥ the time step (${s.scenario.dt} s)`);
-    }
-
-    // Family, design and the size of the sweep and of each simulation.
-    const firstVariant = s.family?.variants[0];
-    if (firstVariant && firstVariant.plantRevisionId !== s.plantRevisionId) {
-      issue(["plantRevisionId"], "plantRevisionId must be the revision of the family's first variant");
-    }
-    if (s.design.kind === "search" && s.design.method === "nelder-mead" && !s.criteria.includes(s.design.criterion)) {
-      issue(["design", "criterion"], `the search criterion must be one of the sweep's criteria (${s.criteria.join(", ")})`);
-    }
-    const total = sweepCandidateCount(s as SweepInputParsed);
-    if (total > MAX_SWEEP_CANDIDATES) {
-      issue(
-        s.design.kind === "grid" ? ["ranges"] : ["design"],
-        `${total} candidates is more than the ${MAX_SWEEP_CANDIDATES} allowed per sweep; ${s.design.kind === "grid" ? "lower the counts" : "lower the design's count"}`,
-      );
-    }
-    const samples = s.scenario.horizon / s.scenario.dt;
-    if (samples > MAX_SIMULATION_SAMPLES) {
-      issue(
-        ["scenario", "dt"],
-        `horizon/dt gives ${Math.ceil(samples)} samples, more than ${MAX_SIMULATION_SAMPLES}; raise the time step or shorten the horizon`,
-      );
-    }
-    if (s.scenario.dt > s.scenario.horizon / 10) issue(["scenario", "dt"], "the time step must be at most a tenth of the horizon");
-    if (s.scenario.load && s.scenario.load.time >= s.scenario.horizon) {
-      issue(["scenario", "load", "time"], "the load step must come before the end of the horizon");
-    }
-
-    // The derivative filter.
-    if (isPidLike && s.filter) {
-      const kd = bounds("kd");
-      const kp = bounds("kp");
-      if (s.filter.mode === "fixed" && s.filter.tf === 0 && kd && kd.max > 0) {
-        issue(["filter", "tf"], "tf must be > 0 s when kd can be non-zero: the derivative needs its filter");
-      }
-      if (s.filter.mode === "ratio" && kp && kd && kp.min === 0 && kd.max > 0) {
-        issue(
-          where("kp"),
-          "with the ratio filter tf = kd/(n·kp), kp must be > 0 wherever kd is non-zero; raise kp min or use a fixed tf",
-        );
-      }
-    }
-    if (isPidLike && !s.filter) {
-      const kd = bounds("kd");
-      const tf = bounds("tf");
-      if (kd && tf && kd.max > 0 && tf.min === 0) {
-        issue(where("tf"), "tf must be > 0 s when kd can be non-zero: the derivative needs its filter");
-      }
-    }
-  });
+  .overwrite(withDefaultFilter)
+  .superRefine(checkSweepDefinition);
 
 export type SweepInput = z.input<typeof sweepInputSchema>;
 export type SweepInputParsed = z.output<typeof sweepInputSchema>;
@@ -385,7 +436,7 @@ export type SweepInputParsed = z.output<typeof sweepInputSchema>;
  * parameter in `fixed` (the top-level sampleTime included); the filter of pid and pid2dof; the
  * anti-windup. Does not validate (sweepInputSchema has).
  */
-export function sweepStructure(input: SweepInputParsed): Structure {
+export function sweepStructure(input: SweepShape): Structure {
   const kind = input.structure;
   const fixed: Record<string, number> = { ...(input.fixed ?? {}) };
   if (input.sampleTime !== undefined) fixed.sampleTime = input.sampleTime;
@@ -405,7 +456,7 @@ export function sweepStructure(input: SweepInputParsed): Structure {
  * when the filter derives it), then sampleTime when the sweep has one. These are the names of
  * SweepDetailDto.parameters and the order of CandidateDto.params.
  */
-export function sweepParameterNames(input: SweepInputParsed): string[] {
+export function sweepParameterNames(input: SweepShape): string[] {
   const structure = sweepStructure(input);
   const names = structureParameterNames(structure);
   if (structure.filter !== undefined) names.splice(names.indexOf("kd") + 1, 0, "tf");
@@ -419,7 +470,7 @@ export function sweepParameterNames(input: SweepInputParsed): string[] {
  * iterations, the most evaluations the search may use; nsga2: population × (generations + 1), the
  * initial population and its offspring generations).
  */
-export function sweepCandidateCount(input: SweepInputParsed): number {
+export function sweepCandidateCount(input: SweepShape): number {
   const design = input.design ?? { kind: "grid" };
   switch (design.kind) {
     case "grid":
@@ -429,12 +480,12 @@ export function sweepCandidateCount(input: SweepInputParsed): number {
     case "random":
       return design.count;
     case "search":
-      return design.method === "nelder-mead" ? design.starts * design.iterations : design.population * (design.generations + 1);
+      return searchBudget(design);
   }
 }
 
 /** The parameter space of a sweep: one axis per tunable name (sweepStructure order) with its scale. */
-export function sweepSpace(input: SweepInputParsed): ParameterSpace {
+export function sweepSpace(input: SweepShape): ParameterSpace {
   return sweepStructure(input).tunable.map((name) => {
     const r = input.ranges[name] as ParameterRange;
     return { name, min: r.min, max: r.max, scale: r.scale ?? "linear" };
@@ -458,7 +509,7 @@ export class UnsupportedDesignError extends Error {
  * Search designs choose their candidates as they go: this throws an UnsupportedDesignError for
  * them.
  */
-export function sweepCandidates(input: SweepInputParsed): { names: string[]; values: Float64Array } {
+export function sweepCandidates(input: SweepShape): { names: string[]; values: Float64Array } {
   const names = [...sweepStructure(input).tunable];
   if (names.length === 0) return { names, values: new Float64Array(0) };
   const space = sweepSpace(input);

@@ -113,12 +113,15 @@ describe("loopyard evaluate", () => {
 });
 
 const SWEEP = {
-  family: [
-    { name: "Ember 200", plant: { kind: "transfer-function", num: [1], den: [16, 10, 1], delay: 0 } },
-    { name: "Ember 800", plant: { kind: "transfer-function", num: [1.5], den: [80, 24, 1], delay: 1 } },
-  ],
-  structure: { kind: "pi", tunable: { kp: { min: 0.5, max: 4, scale: "log" }, ki: { min: 0.05, max: 0.6 } } },
-  design: { kind: "grid", counts: { kp: 4, ki: 3 } },
+  family: {
+    variants: [
+      { label: "Ember 200", plant: { kind: "transfer-function", num: [1], den: [16, 10, 1], delay: 0 } },
+      { label: "Ember 800", plant: { kind: "transfer-function", num: [1.5], den: [80, 24, 1], delay: 1 } },
+    ],
+  },
+  structure: "pi",
+  ranges: { kp: { min: 0.5, max: 4, count: 4, scale: "log" }, ki: { min: 0.05, max: 0.6, count: 3 } },
+  design: { kind: "grid" },
   scenario: { kind: "setpoint-step", horizon: 40, dt: 0.05 },
   criteria: ["iae", "effort", "settlingTime"],
 };
@@ -153,10 +156,10 @@ describe("loopyard sweep", () => {
   });
 
   it("when a tunable parameter does not belong to the structure, then exit 2 naming it", async () => {
-    const spec = { ...SWEEP, structure: { kind: "pi", tunable: { kp: { min: 0.5, max: 4 }, kd: { min: 0, max: 1 } }, fixed: { ki: 0.1 } } };
+    const spec = { ...SWEEP, ranges: { kp: { min: 0.5, max: 4, count: 2 }, kd: { min: 0, max: 1, count: 2 } }, fixed: { ki: 0.1 } };
     const { code, stderr } = await loopyard(["sweep", specFile("kd.json", spec)]);
     expect(code).toBe(2);
-    expectOneSentence(stderr, "structure.tunable.kd: not a parameter here");
+    expectOneSentence(stderr, 'ranges.kd: "kd" is not a parameter of pi; use kp, ki, sampleTime');
   });
 
   it("when --workers is not a whole number, then exit 2 naming the option", async () => {

@@ -52,7 +52,7 @@ describe("planComparison → pre-scan → refinePick", () => {
     // solved by kp = ki = k = √(1 + 1/r) (the PI cancels the plant pole), with J* = (1 + r(k − 1)²)/(2k).
     const p = plan(
       {
-        structure: { kind: "pi", tunable: PI_BOX },
+        structure: "pi", ranges: PI_BOX,
         aggregate: { kind: "worst" },
         contenders: [{ criterion: "quadratic", r: 1, label: "J1" }, { criterion: "quadratic", r: 0.25, label: "J4" }, "ise"],
         judges: ["effort"],
@@ -91,7 +91,7 @@ describe("planComparison → pre-scan → refinePick", () => {
       const r = 0.5;
       const p = plan(
         {
-          structure: { kind: "pi", tunable: PI_BOX },
+          structure: "pi", ranges: PI_BOX,
           aggregate,
           contenders: [{ criterion: "quadratic", r, label: "J" }],
           judges: ["ise", "effort"],
@@ -122,7 +122,7 @@ describe("planComparison → pre-scan → refinePick", () => {
     const limit = 1.4;
     const p = plan(
       {
-        structure: { kind: "pi", tunable: { kp: { min: 0.1, max: 10, scale: "log" }, ki: { min: 0.05, max: 5, scale: "log" } } },
+        structure: "pi", ranges: { kp: { min: 0.1, max: 10, scale: "log" }, ki: { min: 0.05, max: 5, scale: "log" } },
         aggregate: { kind: "worst" },
         contenders: ["ise", { criterion: "quadratic", r: 0.2, label: "J(r=0.2)" }],
         judges: ["ms", "effort"],
@@ -150,7 +150,7 @@ describe("planComparison → pre-scan → refinePick", () => {
 
 describe("runComparison invariants", () => {
   const definition = {
-    structure: { kind: "pi" as const, tunable: PI_BOX },
+    structure: "pi" as const, ranges: PI_BOX,
     aggregate: { kind: "worst" as const },
     contenders: ["ise" as const, "effort" as const, { criterion: "quadratic" as const, r: 0.1, label: "J(r=0.1)" }, { criterion: "quadratic" as const, r: 2, label: "J(r=2)" }],
     judges: ["ms" as const, "phaseMargin" as const],

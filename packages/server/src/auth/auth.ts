@@ -1,11 +1,12 @@
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { MIN_PASSWORD_LENGTH } from "@loopyard/core";
 import type { AppConfig } from "../config.js";
 import type { Database } from "../db/database.js";
 import { authSchema } from "../db/schema.js";
 
-/** Shortest password a user may choose. */
-export const MIN_PASSWORD_LENGTH = 10;
+/** Shortest password a user may choose (core's limit, which the sign-up form reads too). */
+export { MIN_PASSWORD_LENGTH };
 
 // Defensive: no usage data leaves the machine, even if an option below were lost.
 process.env.BETTER_AUTH_TELEMETRY = "0";

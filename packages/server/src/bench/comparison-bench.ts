@@ -33,11 +33,9 @@ function comparisonInput(name: string, revisions: readonly string[]) {
   return {
     name,
     family: { name: "B1 family", variants: revisions.map((plantRevisionId, i) => ({ plantRevisionId, label: VARIANTS[i]?.label })) },
-    structure: {
-      kind: "pid",
-      tunable: { kp: { min: 0.2, max: 10, scale: "log" }, ki: { min: 0.05, max: 5, scale: "log" }, kd: { min: 0, max: 5 } },
-      filter: { mode: "ratio", n: 10 },
-    },
+    structure: "pid",
+    ranges: { kp: { min: 0.2, max: 10, scale: "log" }, ki: { min: 0.05, max: 5, scale: "log" }, kd: { min: 0, max: 5 } },
+    filter: { mode: "ratio", n: 10 },
     scenario: { kind: "setpoint-step", horizon: 30, dt: 0.01 },
     aggregate: { kind: "worst" },
     contenders: ["iae", "itae", "ise", { criterion: "quadratic", q: 1, r: 0.1, label: "J(r=0.1)" }],

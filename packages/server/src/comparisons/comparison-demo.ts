@@ -29,11 +29,9 @@ export function demoComparisonInput(revisions: readonly string[]): ComparisonInp
   return comparisonInputSchema.parse({
     name: DEMO_COMPARISON_NAME,
     family: { name: "Ember line", variants: revisions.map((plantRevisionId, i) => ({ plantRevisionId, label: DEMO_COMPARISON_PLANTS[i]?.replace(" plate", "") })) },
-    structure: {
-      kind: "pid",
-      tunable: { kp: { min: 0.05, max: 30, scale: "log" }, ki: { min: 0.005, max: 3, scale: "log" }, kd: { min: 0.01, max: 300, scale: "log" } },
-      filter: { mode: "ratio", n: 10 },
-    },
+    structure: "pid",
+    ranges: { kp: { min: 0.05, max: 30, scale: "log" }, ki: { min: 0.005, max: 3, scale: "log" }, kd: { min: 0.01, max: 300, scale: "log" } },
+    filter: { mode: "ratio", n: 10 },
     scenario: { kind: "setpoint-step", horizon: 120, dt: 0.02 },
     aggregate: { kind: "worst" },
     contenders: ["iae", "itae", "ise", { criterion: "quadratic", q: 1, r: 0.1, label: "J(r=0.1)" }, { criterion: "quadratic", q: 1, r: 1, label: "J(r=1)" }],

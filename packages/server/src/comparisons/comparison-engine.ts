@@ -22,7 +22,6 @@ import type {
   ComparisonPlan,
   ComparisonVariant,
   CriterionId,
-  Plant,
   PrescanChunk,
   PickRefinement,
   PrescanResult,
@@ -58,23 +57,10 @@ export async function resolveFamily(db: Database, input: ComparisonInput): Promi
     // Two variants of one plant keep apart by number.
     if (names.has(name)) name = `${name} #${i + 1}`;
     names.add(name);
-    family.push({ name, plant: variantPlant(revision.model, variant.parameters, i) });
+    // Core applies a nonlinear plant's parameter overrides (and refuses ones that do not fit, naming the field).
+    family.push({ name, plant: revision.model, ...(variant.parameters && Object.keys(variant.parameters).length > 0 ? { parameters: variant.parameters } : {}) });
   }
   return family;
-}
-
-/** A variant's plant: the revision's model, a nonlinear plant's parameters overridden by the variant's. */
-export function variantPlant(model: Plant, parameters: Record<string, number> | undefined, i: number): Plant {
-  if (!parameters || Object.keys(parameters).length === 0) return model;
-  if (model.kind !== "nonlinear") {
-    throw new ComparisonDefinitionError(`family.variants.${i}.parameters: variant parameters apply to nonlinear plants only; give a separate revision for a linear variant`);
-  }
-  for (const name of Object.keys(parameters)) {
-    if (!(name in (model.parameters ?? {}))) {
-      throw new ComparisonDefinitionError(`family.variants.${i}.parameters: the plant has no parameter “${name}”; use ${Object.keys(model.parameters ?? {}).join(", ") || "none"}`);
-    }
-  }
-  return { ...model, parameters: { ...model.parameters, ...parameters } };
 }
 
 /** Core's definition inside a stored input (everything but name and family). */

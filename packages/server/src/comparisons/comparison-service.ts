@@ -1,4 +1,4 @@
-import { contenderKey, controllerFromVector, frequencyResponse, IllPosedLoopError, loopTransferFunction, simulateLoop } from "@loopyard/core";
+import { contenderKey, controllerFromVector, downsampleIndices, frequencyResponse, IllPosedLoopError, loopTransferFunction, pick, simulateLoop, thinFrequencyResponse } from "@loopyard/core";
 import type {
   ComparisonAcrossDto,
   ComparisonDetailDto,
@@ -17,7 +17,6 @@ import type { Database } from "../db/database.js";
 import { plantRevision } from "../db/schema.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
-import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { ComparisonDefinitionError, planOf, resolveFamily, storedInput, worstVariantOf } from "./comparison-engine.js";
 import { advanceComparison, cancelComparisonJobs, prescanChunks } from "./comparison-jobs.js";
@@ -79,7 +78,7 @@ async function summaries(db: Database, records: readonly ComparisonRecord[]): Pr
         status: record.status,
         contenders: (input.contenders ?? []).map((c) => contenderKey(c)),
         judges: [...(input.judges ?? [])],
-        structure: input.structure?.kind ?? "",
+        structure: input.structure ?? "",
         family: await familyOf(db, input),
         progress: progress.get(record.id) as ComparisonSummaryDto["progress"],
         createdAt: record.createdAt.toISOString(),
@@ -241,14 +240,10 @@ function pickResponse(plan: ComparisonPlan, p: ComparisonPick, f: number, varian
   let sensitivity: number[] = [];
   if (plant.kind !== "nonlinear") {
     try {
-      const response = frequencyResponse(loopTransferFunction(plant as LinearPlant, controller));
-      const magnitude = Array.from(response.omega, (_, i) => Math.hypot(response.S.re[i] as number, response.S.im[i] as number));
-      const keep = downsampleIndices(response.omega.length, SENSITIVITY_POINTS);
-      // Keep the peak so that the plotted maximum is the true Ms.
-      const peak = magnitude.reduce((best, m, i) => (m > (magnitude[best] as number) ? i : best), 0);
-      const kept = [...new Set([...keep, peak])].sort((a, b) => a - b);
-      omega = pick(response.omega, kept);
-      sensitivity = pick(magnitude, kept);
+      // Core's plotting grid: the band where the loop matters, log-spaced, the peaks of |S| and |T| kept (so the plotted maximum is Ms).
+      const thinned = thinFrequencyResponse(frequencyResponse(loopTransferFunction(plant as LinearPlant, controller)), SENSITIVITY_POINTS);
+      omega = thinned.omega;
+      sensitivity = thinned.S;
     } catch (error) {
       if (!(error instanceof RangeError || error instanceof TypeError)) throw error;
     }

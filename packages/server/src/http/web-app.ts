@@ -1,7 +1,7 @@
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import express, { type Express, type RequestHandler } from "express";
-import { isDrawingPage } from "@loopyard/core";
+import { isDrawingPage } from "@loopyard/core/api";
 
 /** The source of the plotting bundle, as Vite's manifest names its chunk (web: components/charts/lazy-plot.tsx). */
 const PLOT_BUNDLE_SOURCE = "src/components/charts/plotly-plot.tsx";

@@ -1,8 +1,7 @@
-import { openLoopStep, plantPoles, suggestHorizon } from "@loopyard/core";
+import { openLoopStep, plantPoles, suggestHorizon, downsampleIndices, pick } from "@loopyard/core";
 import type { PlantDetailDto, PlantInputParsed, PlantRevisionDto, PlantSummaryDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { notFound } from "../http/http-error.js";
-import { downsampleIndices, pick } from "../traces/downsample.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { assertUsablePlantModel, STEP_SAMPLES } from "./plant-model-check.js";
 import { findPlantWithRevisions, insertPlant, insertRevision, listPlantSummaries } from "./plant-repository.js";

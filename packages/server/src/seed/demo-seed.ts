@@ -1,10 +1,9 @@
 import type { PlantInputParsed, Role, SweepInputParsed, UserDto } from "@loopyard/core";
-import { plantInputSchema, sweepCandidateCount, sweepInputSchema } from "@loopyard/core";
+import { planSweep, plantInputSchema, sweepInputSchema } from "@loopyard/core";
 import type { Auth } from "../auth/auth.js";
 import type { Database } from "../db/database.js";
 import { findPlantIdByName, findPlantWithRevisions, insertPlant } from "../plants/plant-repository.js";
-import { findSweepIdByName, insertSweep } from "../sweeps/sweep-repository.js";
-import type { SweepRunner } from "../sweeps/sweep-runner.js";
+import { findSweepForRun, findSweepIdByName, insertSweep } from "../sweeps/sweep-repository.js";
 import { findUserByEmail } from "../users/user-repository.js";
 import { findWorkspaceBySlug, insertMembership, insertWorkspace } from "../workspaces/workspace-repository.js";
 
@@ -143,9 +142,12 @@ export interface SeedReport {
 /**
  * Seeds the demo workspace. Idempotent: what exists (matched by email, slug and name) is left
  * as it is, so a second run changes nothing. Users are created through better-auth so that
- * their passwords are hashed as at sign-up. The demo sweeps run to their end before this returns.
+ * their passwords are hashed as at sign-up. The demo sweeps are started as jobs like any other
+ * sweep (`jobs.start`, the path of POST /sweeps), and this waits until a worker has finished them
+ * (the caller runs one: the seed command and the app's embedded worker), so the demo shows finished
+ * sweeps once the seed returns.
  */
-export async function seedDemo(db: Database, auth: Auth, runner: SweepRunner): Promise<SeedReport> {
+export async function seedDemo(db: Database, auth: Auth, jobs: DemoSweepJobs, options: { waitMs?: number } = {}): Promise<SeedReport> {
   const report: SeedReport = { usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepsCreated: 0 };
 
   const users = new Map<string, UserDto>();
@@ -173,6 +175,7 @@ export async function seedDemo(db: Database, auth: Auth, runner: SweepRunner): P
   }
 
   const engineer = users.get("priya@halvard.example") as UserDto;
+  const started: { id: string; name: string }[] = [];
   for (const demo of DEMO_PLANTS) {
     if (await findPlantIdByName(db, workspace.id, demo.name)) continue;
     await insertPlant(db, workspace.id, engineer.id, plantInputSchema.parse(demo));
@@ -187,11 +190,41 @@ export async function seedDemo(db: Database, auth: Auth, runner: SweepRunner): P
       const revision = plant?.revisions[0];
       if (!revision) throw new Error(`the ${demo.plantName} has no revision to sweep`);
       const definition = demo.input(revision.id);
-      sweepId = await insertSweep(db, { workspaceId: workspace.id, createdBy: engineer.id, definition, total: sweepCandidateCount(definition) });
+      const total = planSweep(definition, [revision.model]).budget;
+      sweepId = await insertSweep(db, { workspaceId: workspace.id, createdBy: engineer.id, definition, total });
       report.sweepsCreated += 1;
     }
-    // Runs a new sweep, finishes one an interrupted seed left behind, and does nothing to a finished one.
-    await runner.runNow(sweepId);
+    // Starts a new sweep, resumes one an interrupted seed left behind, and does nothing to a finished one.
+    await jobs.start(sweepId);
+    started.push({ id: sweepId, name: demo.name });
   }
+  for (const sweep of started) await waitForSweep(db, sweep, options.waitMs ?? DEMO_SWEEP_WAIT_MS);
   return report;
+}
+
+/** What the seed asks of the job system: start a stored sweep as jobs (SweepJobSystem.start). */
+export interface DemoSweepJobs {
+  start(sweepId: string): Promise<void>;
+}
+
+/** Longest the seed waits for a demo sweep's jobs [ms]; the demo sweeps take seconds on one core. */
+export const DEMO_SWEEP_WAIT_MS = 10 * 60_000;
+/** Interval between reads of a demo sweep's status while waiting [ms]. */
+const POLL_MS = 100;
+
+/** Waits until a sweep is finished; throws a sentence when it failed, was cancelled or took too long. */
+async function waitForSweep(db: Database, sweep: { id: string; name: string }, waitMs: number): Promise<void> {
+  const deadline = Date.now() + waitMs;
+  for (;;) {
+    const record = await findSweepForRun(db, sweep.id);
+    if (!record) throw new Error(`the demo sweep “${sweep.name}” disappeared while the seed waited for it`);
+    if (record.status === "finished") return;
+    if (record.status === "failed" || record.status === "cancelled") {
+      throw new Error(`the demo sweep “${sweep.name}” ended ${record.status}; delete it and seed again`);
+    }
+    if (Date.now() > deadline) {
+      throw new Error(`the demo sweep “${sweep.name}” did not finish within ${waitMs / 1000} s; check that a sweep worker runs (npm run worker)`);
+    }
+    await new Promise((resolve) => setTimeout(resolve, POLL_MS));
+  }
 }

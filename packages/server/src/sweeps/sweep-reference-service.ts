@@ -1,8 +1,10 @@
-import { boundCurve, controllerFromVector, frequencyResponse, loopTransferFunction, scoreBaselines } from "@loopyard/core";
+import { boundCurve, frequencyResponse, loopTransferFunction, scoreBaselines, thinFrequencyResponse } from "@loopyard/core";
 import type {
   BaselineDto,
+  EvaluationOptions,
   FrequencyDto,
   FrequencyResponse,
+  Scenario,
   LinearPlant,
   Plant,
   ReferencesDto,
@@ -16,16 +18,8 @@ import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate } from "./candidate-repository.js";
 import { toScoreValue } from "./score-value.js";
 import { findStoredReferences, findSweepDetail, storeReferences } from "./sweep-repository.js";
-import { sweepSetup, tunableFromParams, type SweepSetup } from "./sweep-plan.js";
+import { loadSweepPlan } from "./sweep-evaluation.js";
 import { getSweep } from "./sweep-service.js";
-
-/** Most frequencies sent per curve: the adaptive grid thinned to about this many log-spaced points. */
-export const MAX_FREQUENCY_POINTS = 600;
-/**
- * The plotted band ends one decade above where |L| first stays below this level for good: beyond,
- * |S| = 1 and |T| = |L| to plotting accuracy (a strictly proper loop; common practice).
- */
-export const PLOT_TAIL_GAIN = 1e-4;
 
 async function sweepPlant(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<Plant> {
   const revision = await findRevisionInWorkspace(db, workspaceId, sweep.plant.revisionId);
@@ -83,11 +77,11 @@ export async function prepareReferences(db: Database, workspaceId: string, sweep
  */
 async function computeReferences(db: Database, workspaceId: string, sweep: SweepDetailDto): Promise<ReferencesDto> {
   const plant = await sweepPlant(db, workspaceId, sweep);
-  const setup = sweepSetup(sweep.definition);
+  const setup = await loadSweepPlan(db, sweep.definition);
   return { bound: boundOf(plant, setup.scenario), ...baselinesOf(plant, setup, sweep.criteria) };
 }
 
-function boundOf(plant: Plant, scenario: SweepSetup["scenario"]): ReferencesDto["bound"] {
+function boundOf(plant: Plant, scenario: Scenario): ReferencesDto["bound"] {
   if (plant.kind === "nonlinear") {
     return { ok: false, reason: "The bound needs a linear plant; this plant is nonlinear.", points: [] };
   }
@@ -100,7 +94,7 @@ function boundOf(plant: Plant, scenario: SweepSetup["scenario"]): ReferencesDto[
   }
 }
 
-function baselinesOf(plant: Plant, plan: SweepSetup, criteria: SweepDetailDto["criteria"]): Pick<ReferencesDto, "baselines" | "skipped"> {
+function baselinesOf(plant: Plant, plan: { scenario: Scenario; evaluation: EvaluationOptions }, criteria: SweepDetailDto["criteria"]): Pick<ReferencesDto, "baselines" | "skipped"> {
   let scored: ReturnType<typeof scoreBaselines>;
   try {
     scored = scoreBaselines(plant, plan.scenario, criteria, { evaluation: plan.evaluation });
@@ -144,8 +138,8 @@ export async function getCandidateFrequency(db: Database, access: MemberAccess, 
   }
   const stored = await findCandidate(db, sweepId, index);
   if (!stored) throw notFound(`This sweep has no evaluated candidate ${index}.`);
-  const plan = sweepSetup(sweep.definition);
-  const controller = controllerFromVector(plan.structure, tunableFromParams(plan, sweep.parameters, stored.params));
+  const plan = await loadSweepPlan(db, sweep.definition);
+  const controller = plan.controllerFromParameters(stored.params);
   const weight = sweepWeight(sweep);
   let response: FrequencyResponse;
   try {
@@ -160,47 +154,4 @@ export async function getCandidateFrequency(db: Database, access: MemberAccess, 
 function sweepWeight(sweep: SweepDetailDto): SensitivityWeight | undefined {
   const options = sweep.definition.criterionOptions as { weight?: SensitivityWeight } | undefined;
   return options?.weight;
-}
-
-/** Magnitudes on a thinned log grid over the band where the loop matters. */
-export function thinFrequencyResponse(response: FrequencyResponse): Omit<FrequencyDto, "index" | "status"> {
-  const { omega, S, T, L, weightMagnitude } = response;
-  const n = omega.length;
-  const mag = (c: { re: Float64Array; im: Float64Array }, i: number) => Math.hypot(c.re[i] as number, c.im[i] as number);
-  // Last index where |L| ≥ PLOT_TAIL_GAIN, then one decade more.
-  let last = n - 1;
-  for (let i = n - 1; i >= 0; i--) {
-    if (mag(L, i) >= PLOT_TAIL_GAIN) {
-      last = i;
-      break;
-    }
-  }
-  const upper = (omega[last] as number) * 10;
-  while (last < n - 1 && (omega[last + 1] as number) <= upper) last++;
-  const lo = Math.log(omega[0] as number);
-  const step = (Math.log(omega[last] as number) - lo) / (MAX_FREQUENCY_POINTS - 1);
-  const keep = new Set<number>([0, last]);
-  let next = lo;
-  for (let i = 0; i <= last; i++) {
-    if (Math.log(omega[i] as number) >= next) {
-      keep.add(i);
-      next = Math.log(omega[i] as number) + step;
-    }
-  }
-  // Keep the peaks so that the plotted maxima are the true Ms and Mt.
-  let peakS = 0;
-  let peakT = 0;
-  for (let i = 0; i <= last; i++) {
-    if (mag(S, i) > mag(S, peakS)) peakS = i;
-    if (mag(T, i) > mag(T, peakT)) peakT = i;
-  }
-  keep.add(peakS).add(peakT);
-  const indices = [...keep].sort((a, b) => a - b);
-  const result: Omit<FrequencyDto, "index" | "status"> = {
-    omega: indices.map((i) => omega[i] as number),
-    S: indices.map((i) => mag(S, i)),
-    T: indices.map((i) => mag(T, i)),
-  };
-  if (weightMagnitude) result.invW = indices.map((i) => 1 / (weightMagnitude[i] as number));
-  return result;
 }

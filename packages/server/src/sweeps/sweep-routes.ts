@@ -1,9 +1,10 @@
-import { Router } from "express";
+import { Router, type Request } from "express";
 import { z } from "zod";
-import { POINTS_BINARY_TYPE, sweepInputSchema } from "@loopyard/core";
+import { firstSweepIssue, POINTS_BINARY_TYPE, sweepInputSchema, sweepIssues } from "@loopyard/core";
+import type { SweepInputParsed } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
-import { parseBody, parseIdParam, parseQuery, pathParam } from "../http/validation.js";
+import { parseIdParam, parseQuery, pathParam } from "../http/validation.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
 import {
   cancelSweep,
@@ -37,6 +38,19 @@ function candidateIndex(param: string | string[] | undefined): number {
   return index;
 }
 
+/**
+ * The sweep definition of a POST body, or a 400 with core's sentence for its first problem
+ * (firstSweepIssue): the words the web form shows at the field and the CLI prints.
+ */
+function parseSweepBody(req: Request): SweepInputParsed {
+  if (req.body === undefined) throw new HttpError(400, "Send the request body as JSON with the header Content-Type: application/json.");
+  const result = sweepInputSchema.safeParse(req.body);
+  if (result.success) return result.data;
+  const first = firstSweepIssue(result.error);
+  const issues = sweepIssues(result.error).map((i) => ({ field: i.field, message: i.sentence }));
+  throw new HttpError(400, first.sentence, first.field ? { field: first.field, issues } : { issues });
+}
+
 /** /api/workspaces/:slug/sweeps */
 export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits, background: BackgroundTasks): Router {
   const router = Router({ mergeParams: true });
@@ -48,7 +62,7 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   });
 
   router.post("/", memberOf(db, "engineer", "Starting sweeps"), async (req, res) => {
-    const input = parseBody(sweepInputSchema, req);
+    const input = parseSweepBody(req);
     const access = accessOf(req);
     const created = await createSweep(db, jobs.start, access, input, limits);
     res.status(201).json(created);

@@ -1,41 +1,25 @@
-import { createNelderMeadSearch, createNsga2Search, criterionSense, sweepSpace } from "@loopyard/core";
-import type { CriterionId, NelderMeadSearch, Nsga2Search, SweepInputParsed } from "@loopyard/core";
+import { createNelderMeadSearch, createNsga2Search, searchObjectiveMatrix } from "@loopyard/core";
+import type { CriterionId, NelderMeadSearch, Nsga2Search, SweepBatchEvaluator, SweepPlan } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { finishSearchSweep, storedAggregates, storeSearchGeneration } from "./sweep-chunk-repository.js";
-import { evaluateCandidates, type BatchEvaluator, type SweepEvaluationContext } from "./sweep-evaluation.js";
+import { evaluateCandidates, type SweepEvaluationContext } from "./sweep-evaluation.js";
 
 type Search = (NelderMeadSearch | Nsga2Search) & { ask(): Float64Array; tell(values: Float64Array): void; readonly done: boolean };
 
-/** The ask/tell search of a search design (core createNelderMeadSearch / createNsga2Search), fresh and deterministic. */
-function createSearch(definition: SweepInputParsed): { search: Search; objectives: CriterionId[]; budget: number } {
-  const design = definition.design;
+/** The ask/tell search of a plan's search design (core createNelderMeadSearch / createNsga2Search), fresh and deterministic. */
+function createSearch(plan: SweepPlan): { search: Search; objectives: CriterionId[] } {
+  const design = plan.definition.design;
   if (design.kind !== "search") throw new Error("not a search design");
-  const space = sweepSpace(definition);
   if (design.method === "nelder-mead") {
     return {
-      search: createNelderMeadSearch(space, { starts: design.starts, iterations: design.iterations, seed: design.seed }) as Search,
+      search: createNelderMeadSearch(plan.space, { starts: design.starts, iterations: design.iterations, seed: design.seed }) as Search,
       objectives: [design.criterion],
-      budget: design.starts * design.iterations,
     };
   }
   return {
-    search: createNsga2Search(space, { population: design.population, generations: design.generations, seed: design.seed }) as Search,
-    objectives: [...definition.criteria],
-    budget: design.population * (design.generations + 1),
+    search: createNsga2Search(plan.space, { population: design.population, generations: design.generations, seed: design.seed }) as Search,
+    objectives: [...plan.criteria],
   };
-}
-
-/** Objective values of m candidates (m × k), every criterion turned so that smaller is better; NaN when not stable. */
-function objectiveValues(aggregate: (i: number) => number[] | null, m: number, criteria: readonly CriterionId[], objectives: readonly CriterionId[]): Float64Array {
-  const k = objectives.length;
-  const out = new Float64Array(m * k);
-  const columns = objectives.map((id) => criteria.indexOf(id));
-  const signs = objectives.map((id) => (criterionSense(id) === "larger" ? -1 : 1));
-  for (let i = 0; i < m; i++) {
-    const scores = aggregate(i);
-    for (let j = 0; j < k; j++) out[i * k + j] = scores ? signs[j]! * (scores[columns[j]!] ?? Number.NaN) : Number.NaN;
-  }
-  return out;
 }
 
 /**
@@ -46,8 +30,10 @@ function objectiveValues(aggregate: (i: number) => number[] | null, m: number, c
  * sweep (its total becomes the candidates stored) once the search is done or its budget used.
  * Returns null when the sweep is finished.
  */
-export async function runSearchGeneration(db: Database, context: SweepEvaluationContext, evaluate: BatchEvaluator): Promise<number | null> {
-  const { search, objectives, budget } = createSearch(context.definition);
+export async function runSearchGeneration(db: Database, context: SweepEvaluationContext, evaluate: SweepBatchEvaluator): Promise<number | null> {
+  const { search, objectives } = createSearch(context.plan);
+  const budget = context.plan.budget;
+  const criteria = context.plan.criteria;
   const stored = await storedAggregates(db, context.sweepId);
   const d = context.plan.d;
   let next = 0;
@@ -70,18 +56,18 @@ export async function runSearchGeneration(db: Database, context: SweepEvaluation
     }
     if (Array.from({ length: m }, (_, i) => stored.has(next + i)).every(Boolean)) {
       if (truncated) break;
-      search.tell(objectiveValues((i) => stored.get(next + i) ?? null, m, context.criteria, objectives));
+      search.tell(searchObjectiveMatrix((i) => stored.get(next + i) ?? null, m, criteria, objectives));
       next += m;
       continue;
     }
     const { rows, aggregate } = await evaluateCandidates(context, x, next, evaluate);
     await storeSearchGeneration(db, context.sweepId, rows);
-    const nc = context.criteria.length;
+    const nc = criteria.length;
     if (truncated || next + m >= budget) {
       await finishSearchSweep(db, context.sweepId);
       return null;
     }
-    search.tell(objectiveValues((i) => (rows[i]?.status === "stable" ? Array.from(aggregate.subarray(i * nc, (i + 1) * nc)) : null), m, context.criteria, objectives));
+    search.tell(searchObjectiveMatrix((i) => (rows[i]?.status === "stable" ? Array.from(aggregate.subarray(i * nc, (i + 1) * nc)) : null), m, criteria, objectives));
     return generation + 1;
   }
   await finishSearchSweep(db, context.sweepId);

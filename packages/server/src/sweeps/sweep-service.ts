@@ -1,8 +1,22 @@
-import { controllerFromVector, CRITERION_IDS, IllPosedLoopError, nonDominatedSort, orientForMinimisation, paretoFront, simulateLoop, sweepCandidateCount } from "@loopyard/core";
+import {
+  CRITERION_IDS,
+  DEFAULT_MAX_CONCURRENT_SWEEPS,
+  downsampleIndices,
+  IllPosedLoopError,
+  MAX_SWEEP_CANDIDATES,
+  nonDominatedSort,
+  orientForMinimisation,
+  paretoFront,
+  pick,
+  planSweep,
+  simulateLoop,
+  SweepPlanError,
+} from "@loopyard/core";
 import type {
   CandidateDto,
   CriterionId,
   FrontDto,
+  Plant,
   ResponseDto,
   SweepDetailDto,
   SweepInputParsed,
@@ -10,15 +24,13 @@ import type {
 } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
-import { findRevisionInWorkspace } from "../plants/plant-repository.js";
-import { downsampleIndices, pick } from "../traces/downsample.js";
+import { findPlantIdByName, findRevisionInWorkspace } from "../plants/plant-repository.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate, findCandidates } from "./candidate-repository.js";
 import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "./candidate-list-json.js";
-import { definitionVariants, SweepDefinitionError, variantPlant } from "./sweep-evaluation.js";
+import { definitionVariants, loadSweepPlan } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
 import { float64Column, int32Column, pointColumnsBytes } from "./points-repository.js";
-import { structureProblem, sweepSetup, tunableFromParams } from "./sweep-plan.js";
 import { countActiveSweeps, findSweepDetail, insertSweep, listSweepSummaries, markSweepCancelled } from "./sweep-repository.js";
 
 export const SWEEP_NOT_FOUND = "There is no such sweep in this workspace.";
@@ -41,7 +53,7 @@ export interface SweepLimits {
   maxConcurrentSweeps: number;
 }
 
-export const DEFAULT_SWEEP_LIMITS: SweepLimits = { maxCandidates: 1_000_000, maxConcurrentSweeps: 3 };
+export const DEFAULT_SWEEP_LIMITS: SweepLimits = { maxCandidates: MAX_SWEEP_CANDIDATES, maxConcurrentSweeps: DEFAULT_MAX_CONCURRENT_SWEEPS };
 
 /** Starts a stored sweep, or stops a cancelled one's jobs (the job system). */
 export type SweepStarter = (sweepId: string) => Promise<void>;
@@ -64,28 +76,27 @@ export async function createSweep(
   input: SweepInputParsed,
   limits: SweepLimits = DEFAULT_SWEEP_LIMITS,
 ): Promise<SweepDetailDto> {
-  const total = sweepCandidateCount(input);
+  const models: Plant[] = [];
+  for (const [i, variant] of definitionVariants(input).entries()) {
+    const field = input.family ? `family.variants.${i}.plantRevisionId` : "plantRevisionId";
+    const revision = await findRevisionInWorkspace(db, access.workspace.id, variant.plantRevisionId);
+    if (!revision) throw badRequest(`${field}: there is no such plant revision in this workspace`, field);
+    await assertLabelFitsRevision(db, access.workspace.id, variant.label, revision, i);
+    models.push(revision.model);
+  }
+  let plan;
+  try {
+    plan = planSweep(input, models);
+  } catch (error) {
+    if (error instanceof SweepPlanError) throw badRequest(error.message, error.field);
+    throw error;
+  }
+  const total = plan.budget;
   if (total > limits.maxCandidates) {
     throw new HttpError(
       422,
       `This sweep has ${total} candidates, more than the ${limits.maxCandidates} one sweep may hold in this workspace; lower the counts (or the design's count), or ask an admin to raise LOOPYARD_MAX_CANDIDATES.`,
     );
-  }
-  const structure = sweepSetup(input).structure;
-  const variants = definitionVariants(input);
-  for (const [i, variant] of variants.entries()) {
-    const field = input.family ? `family.variants.${i}.plantRevisionId` : "plantRevisionId";
-    const revision = await findRevisionInWorkspace(db, access.workspace.id, variant.plantRevisionId);
-    if (!revision) throw badRequest(`${field}: there is no such plant revision in this workspace`, field);
-    let plant;
-    try {
-      plant = variantPlant(revision.model, variant.parameters);
-    } catch (error) {
-      if (error instanceof SweepDefinitionError) throw badRequest(`family.variants.${i}.parameters: ${error.message}`, `family.variants.${i}.parameters`);
-      throw error;
-    }
-    const problem = structureProblem(structure, plant);
-    if (problem) throw badRequest(`ranges: ${problem}`, "ranges");
   }
   const active = await countActiveSweeps(db, access.workspace.id);
   if (active >= limits.maxConcurrentSweeps) {
@@ -102,6 +113,20 @@ export async function createSweep(
   });
   await startSweep(sweepId);
   return getSweep(db, access, sweepId);
+}
+
+/**
+ * A variant's label may not name another plant of the workspace: a label left from an earlier
+ * choice of plant ("Ember 200 plate" on an Ember 400 revision) would show wrong names against real
+ * numbers in the per-variant table. Labels that name no plant, or the revision's own, are fine.
+ */
+async function assertLabelFitsRevision(db: Database, workspaceId: string, label: string | undefined, revision: { plantId: string; name: string }, i: number): Promise<void> {
+  if (!label || label === revision.name) return;
+  const named = await findPlantIdByName(db, workspaceId, label);
+  if (named !== null && named !== revision.plantId) {
+    const field = `family.variants.${i}.label`;
+    throw badRequest(`${field}: “${label}” is the name of another plant; this variant is ${revision.name}, so change the label or leave it empty`, field);
+  }
 }
 
 /** Cancels a queued or running sweep: workers skip its remaining chunks; chunks already stored are kept. */
@@ -234,9 +259,10 @@ export async function getCandidateResponse(
   }
   const revision = await findRevisionInWorkspace(db, access.workspace.id, sweep.plant.revisionId);
   if (!revision) throw notFound("The plant revision of this sweep no longer exists.");
-  const plan = sweepSetup(sweep.definition);
-  const controller = controllerFromVector(plan.structure, tunableFromParams(plan, sweep.parameters, stored.params));
-  const trace = simulateOrExplain(() => simulateLoop(revision.model, controller, plan.scenario));
+  const plan = await loadSweepPlan(db, sweep.definition);
+  const controller = plan.controllerFromParameters(stored.params);
+  // The response is shown on the first variant's plant (the sweep's plantRevisionId), its overrides applied.
+  const trace = simulateOrExplain(() => simulateLoop(plan.family[0] ?? revision.model, controller, plan.scenario));
   const indices = downsampleIndices(trace.t.length);
   return {
     index,

@@ -1,14 +1,15 @@
 import { randomUUID } from "node:crypto";
 import { availableParallelism, hostname } from "node:os";
 import type PgBoss from "pg-boss";
-import { evaluateBatch } from "@loopyard/core";
+import { evaluateBatch, SweepPlanError } from "@loopyard/core";
+import type { SweepBatchEvaluator } from "@loopyard/core";
 import { createEvaluationPool, type EvaluationPool } from "@loopyard/core/pool";
 import type { Database } from "../db/database.js";
 import { enqueueSearchGeneration, SWEEP_CHUNK_QUEUE, SWEEP_SEARCH_QUEUE, type ChunkJobData, type SearchJobData } from "../jobs/job-queue.js";
 import { runSearchGeneration } from "../sweeps/sweep-search-job.js";
 import { reconcileFailedChunkJobs } from "../sweeps/sweep-jobs.js";
 import { chunkStatus, completeChunk, countChunkAttempt, failChunk } from "../sweeps/sweep-chunk-repository.js";
-import { evaluateRange, loadEvaluationContext, SweepDefinitionError, type BatchEvaluator, type SweepEvaluationContext } from "../sweeps/sweep-evaluation.js";
+import { evaluateRange, loadEvaluationContext, type SweepEvaluationContext } from "../sweeps/sweep-evaluation.js";
 import { findSweepForRun, markSweepFailed } from "../sweeps/sweep-repository.js";
 import { heartbeatWorker, pruneWorkers, registerWorker, removeWorker } from "./worker-repository.js";
 
@@ -74,26 +75,19 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
     try {
       return await contextOf(sweepId, definition);
     } catch (error) {
-      if (error instanceof SweepDefinitionError) {
-        await markSweepFailed(db, sweepId, `The sweep could not run: ${error.message}.`);
+      if (error instanceof SweepPlanError) {
+        await markSweepFailed(db, sweepId, `The sweep could not run: ${error.reason}.`);
         return null;
       }
       throw error;
     }
   }
 
-  const evaluate: BatchEvaluator = async (context, candidates) => {
-    const batch = {
-      family: context.family,
-      structure: context.plan.structure,
-      candidates,
-      scenario: context.plan.scenario,
-      criteria: context.criteria,
-      evaluation: context.plan.evaluation,
-    };
+  const evaluate: SweepBatchEvaluator = async (batch) => {
+    const d = batch.structure.tunable.length;
     // One task per pool thread: a chunk is already small, and fewer messages leave more time to evaluate.
-    if (pool) return pool.evaluate(batch, { chunkSize: Math.max(8, Math.ceil(candidates.length / context.plan.d / threads)) });
-    return evaluateBatch(batch.family, batch.structure, batch.candidates, batch.scenario, batch.criteria, { evaluation: batch.evaluation });
+    if (pool) return pool.evaluate(batch, { chunkSize: Math.max(8, Math.ceil(batch.candidates.length / d / threads)) });
+    return evaluateBatch(batch.family, batch.structure, batch.candidates, batch.scenario, batch.criteria, { evaluation: batch.evaluation ?? {} });
   };
 
   async function handle(job: PgBoss.JobWithMetadata<ChunkJobData>): Promise<void> {

@@ -1,26 +1,3 @@
-import { z } from "zod";
-import { ROLES } from "@loopyard/core";
-
-/** Shape of a workspace slug: lower-case words joined by single hyphens. */
-export const SLUG_PATTERN = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
-
-/** POST /api/workspaces */
-export const workspaceInputSchema = z.object({
-  name: z.string().trim().min(1, "give the workspace a name").max(120, "keep the name under 120 characters"),
-  slug: z
-    .string()
-    .trim()
-    .min(2, "the slug needs at least 2 characters")
-    .max(60, "keep the slug under 60 characters")
-    .regex(SLUG_PATTERN, "use lower-case letters, digits and single hyphens, e.g. ember-line")
-    .optional(),
-});
-
-/** POST /api/workspaces/:slug/members */
-export const memberInputSchema = z.object({
-  email: z.email("give the email address the person signed up with"),
-  role: z.enum(ROLES, { error: `choose one of the roles ${ROLES.join(", ")}` }),
-});
-
-export type WorkspaceInput = z.output<typeof workspaceInputSchema>;
-export type MemberInput = z.output<typeof memberInputSchema>;
+// The workspace and member schemas live in core, shared with the web app's pages.
+export { memberInputSchema, SLUG_PATTERN, workspaceInputSchema } from "@loopyard/core";
+export type { MemberInput, WorkspaceInput } from "@loopyard/core";

@@ -1,4 +1,5 @@
 import { useForm } from "react-hook-form";
+import { MIN_PASSWORD_LENGTH } from "@loopyard/core";
 import { Link, useNavigate } from "react-router";
 import { useSignUp } from "../../api/use-auth.js";
 import { Button } from "../../components/button.js";
@@ -12,8 +13,6 @@ interface SignUpValues {
   password: string;
 }
 
-/** Shortest password accepted (better-auth's default minimum). */
-const MIN_PASSWORD_LENGTH = 8;
 
 export function SignUpPage() {
   const navigate = useNavigate();

@@ -62,11 +62,12 @@ export function weightLabel(r: number): string {
 /** The form values as the API's comparison input. */
 export function toComparisonInput(values: ComparisonFormValues, context: SweepFormContext): Record<string, unknown> {
   const sweep = toSweepInput({ ...values, criteria: ["iae"] }, context);
-  const tunable: Record<string, { min: number; max: number; scale: "linear" | "log" }> = {};
+  // The box: a range's min and max (its count is not used); a range with min = max is a fixed value.
+  const ranges: Record<string, { min: number; max: number; scale?: "linear" | "log" }> = {};
   const fixed: Record<string, number> = {};
   for (const [name, range] of Object.entries(sweep.ranges)) {
     if (range.min === range.max) fixed[name] = range.min;
-    else tunable[name] = { min: range.min, max: range.max, scale: range.scale ?? "linear" };
+    else ranges[name] = { min: range.min, max: range.max, ...(range.scale ? { scale: range.scale } : {}) };
   }
   const weights = parseWeights(values.quadraticWeights ?? "");
   const constraints: Record<string, { max: number } | { min: number }> = {};
@@ -74,14 +75,14 @@ export function toComparisonInput(values: ComparisonFormValues, context: SweepFo
   return {
     name: sweep.name,
     family: sweep.family ?? { variants: [{ plantRevisionId: values.plantRevisionId, ...(values.firstVariant?.label ? { label: values.firstVariant.label } : {}) }] },
-    structure: {
-      kind: sweep.structure ?? "pid",
-      tunable,
-      fixed,
-      ...(sweep.filter ? { filter: sweep.filter } : {}),
-      ...(sweep.antiWindup ? { antiWindup: sweep.antiWindup } : {}),
-    },
+    structure: sweep.structure ?? "pid",
+    ranges,
+    ...(Object.keys(fixed).length > 0 ? { fixed } : {}),
+    ...(sweep.filter ? { filter: sweep.filter } : {}),
+    ...(sweep.sampleTime !== undefined ? { sampleTime: sweep.sampleTime } : {}),
+    ...(sweep.antiWindup ? { antiWindup: sweep.antiWindup } : {}),
     scenario: sweep.scenario,
+    ...(sweep.criterionOptions ? { criterionOptions: sweep.criterionOptions } : {}),
     aggregate: { kind: values.aggregate.kind, ...(values.aggregate.kind === "percentile" ? { p: values.aggregate.p } : {}) },
     contenders: [
       ...(Array.isArray(values.contenders) ? values.contenders : []),
@@ -111,10 +112,6 @@ export const COMPARISON_FORM_FIELDS = [
 /** The form field of a comparison input's path: the box at the structure's rows, quadratic contenders at the weights. */
 export function comparisonFieldOf(path: readonly PropertyKey[] | string): string {
   const dotted = dottedPath(path);
-  const axis = /^structure\.(?:tunable|fixed)\.([^.]+)(?:\.(min|max|scale))?/.exec(dotted);
-  if (axis) return `ranges.${parameterKey(axis[1] as string)}.${axis[2] === "max" ? "max" : "min"}`;
-  if (/^structure\.(filter|antiWindup)/.test(dotted)) return formFieldOf(dotted.replace(/^structure\./, ""));
-  if (dotted === "structure.kind") return "structure";
   const contender = /^contenders\.(\d+)/.exec(dotted);
   if (contender) return "contenders";
   if (/^judges/.test(dotted)) return "judges";
@@ -153,11 +150,15 @@ export function formFromComparison(detail: ComparisonDetailDto): ComparisonFormV
   const form = defaultComparisonForm(first?.plantRevisionId ?? "");
   form.name = `${detail.name} (again)`.slice(0, 120);
   form.firstVariant = { label: first?.label ?? "", parameters: formatOverrides(first?.parameters) };
-  form.variants = d.family.variants.slice(1).map((v, i) => ({ plantId: detail.family[i + 1]?.plantId ?? "", plantRevisionId: v.plantRevisionId, label: v.label ?? "", parameters: formatOverrides(v.parameters) }));
-  form.structure = d.structure.kind;
-  for (const [name, axis] of Object.entries(d.structure.tunable)) form.ranges[parameterKey(name)] = { min: axis.min, max: axis.max, count: 2, scale: axis.scale ?? "linear" };
-  for (const [name, value] of Object.entries(d.structure.fixed ?? {})) form.ranges[parameterKey(name)] = { min: value, max: value, count: 1, scale: "linear" };
-  if (d.structure.filter) form.filter = d.structure.filter.mode === "ratio" ? { ...form.filter, mode: "ratio", n: d.structure.filter.n } : { ...form.filter, mode: "fixed", tf: d.structure.filter.tf };
+  form.variants = d.family.variants.slice(1).map((v, i) => ({ plantId: detail.family[i + 1]?.plantId ?? "", plantRevisionId: v.plantRevisionId, label: v.label ?? "", labelTyped: v.label !== undefined && v.label !== detail.family[i + 1]?.plantName, parameters: formatOverrides(v.parameters) }));
+  form.structure = d.structure;
+  for (const [name, axis] of Object.entries(d.ranges)) form.ranges[parameterKey(name)] = { min: axis.min, max: axis.max, count: 2, scale: axis.scale ?? "linear" };
+  for (const [name, value] of Object.entries(d.fixed ?? {})) form.ranges[parameterKey(name)] = { min: value, max: value, count: 1, scale: "linear" };
+  if (d.filter) form.filter = d.filter.mode === "ratio" ? { ...form.filter, mode: "ratio", n: d.filter.n } : { ...form.filter, mode: "fixed", tf: d.filter.tf };
+  if (d.sampleTime !== undefined) {
+    form.sampled = true;
+    form.sampleTime = d.sampleTime;
+  }
   const s = d.scenario;
   form.scenario = {
     kind: s.kind,

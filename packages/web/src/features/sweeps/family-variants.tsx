@@ -49,7 +49,7 @@ export function FamilyVariants({
         className="mt-3"
         disabled={full || !next}
         title={full ? `A family holds at most ${MAX_FAMILY_VARIANTS} variants.` : undefined}
-        onClick={() => next && append({ plantId: next.id, plantRevisionId: next.latestRevision.id, label: next.name, parameters: "" })}
+        onClick={() => next && append({ plantId: next.id, plantRevisionId: next.latestRevision.id, label: next.name, labelTyped: false, parameters: "" })}
         data-testid="add-variant"
       >
         Add a variant
@@ -83,6 +83,11 @@ function VariantRow({
   const plant = usePlant(slug, plantId || undefined);
   const summary = plants.find((p) => p.id === plantId);
   const e = errors.variants?.[index];
+  const labelTyped = useWatch({ control, name: `variants.${index}.labelTyped` });
+  // The label follows the chosen plant's name until the user types one (a cleared label follows again).
+  useEffect(() => {
+    if (!labelTyped && summary) setValue(`variants.${index}.label`, summary.name);
+  }, [summary, labelTyped, index, setValue]);
   // A newly chosen plant starts at its latest revision.
   useEffect(() => {
     if (plant.data && !plant.data.revisions.some((r) => r.id === revisionId)) {
@@ -114,7 +119,7 @@ function VariantRow({
         </select>
       </Field>
       <Field label="Label" htmlFor={`variant-${index}-label`} name={`variants.${index}.label`} error={e?.label?.message}>
-        <input id={`variant-${index}-label`} className={inputClass} data-testid={`variant-${index}-label`} {...register(`variants.${index}.label`)} />
+        <input id={`variant-${index}-label`} className={inputClass} data-testid={`variant-${index}-label`} {...register(`variants.${index}.label`, { onChange: (event: { target: { value: string } }) => setValue(`variants.${index}.labelTyped`, event.target.value.trim() !== "") })} />
       </Field>
       <Button tone="plain" className="mt-5" onClick={onRemove} aria-label={`Remove variant ${index + 2}`}>
         Remove

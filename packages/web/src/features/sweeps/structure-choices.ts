@@ -1,4 +1,5 @@
-import { CONTROLLER_KINDS, parameterSign, type ControllerKind } from "@loopyard/core";
+import { CONTROLLER_KINDS, CONTROLLER_PARAMETERS, MAX_STATE_FEEDBACK_GAINS, parameterSign, REFERENCE_GAIN_PARAMETER } from "@loopyard/core";
+import type { ControllerKind, ControllerParameter, FixedParameterKind } from "@loopyard/core";
 
 /** How each controller structure is named in the sweep form, with its law. */
 export const STRUCTURES: Readonly<Record<ControllerKind, { label: string; law: string }>> = {
@@ -25,41 +26,38 @@ export function parameterKey(name: string): string {
   return name.replace(/\[(\d+)\]/g, "$1");
 }
 
-const UNITS: Record<string, string> = {
-  kp: "proportional gain",
-  ki: "integral gain [1/s]",
-  kd: "derivative gain [s]",
-  b: "setpoint weight on P",
-  c: "setpoint weight on D",
-  k: "gain",
-  tLead: "lead time [s]",
-  tLag: "lag time [s]",
-  n: "reference gain",
-};
+/** "integral gain [1/s]": a table parameter's description with its unit. */
+function describe(p: ControllerParameter): string {
+  return p.unit ? `${p.description} [${p.unit}]` : p.description;
+}
 
-const PARAMETERS: Readonly<Record<Exclude<ControllerKind, "state-feedback">, readonly string[]>> = {
-  p: ["kp"],
-  pi: ["kp", "ki"],
-  pid: ["kp", "ki", "kd"],
-  pid2dof: ["kp", "ki", "kd", "b", "c"],
-  "lead-lag": ["k", "tLead", "tLag"],
-};
+/** The form's rows per kind: core's parameter table; PID kinds leave tf to the derivative filter. */
+const PARAMETERS: Readonly<Record<FixedParameterKind, readonly ControllerParameter[]>> = Object.fromEntries(
+  Object.entries(CONTROLLER_PARAMETERS).map(([kind, table]) => [kind, table.filter((p) => p.name !== "tf")]),
+) as unknown as Record<FixedParameterKind, readonly ControllerParameter[]>;
 
 /**
  * The swept parameters of a structure, in the structure's order. PID kinds leave tf to the
  * derivative filter. State feedback has one gain per plant state (`stateNames` label them) and n.
  */
 export function parameterRows(kind: ControllerKind, stateNames: readonly string[]): ParameterRow[] {
-  const names =
-    kind === "state-feedback" ? [...stateNames.map((_, i) => `k[${i}]`), "n"] : [...PARAMETERS[kind]];
-  return names.map((name) => {
-    const gain = /^k\[(\d+)\]$/.exec(name);
-    const unit = gain ? `gain on ${stateNames[Number(gain[1])]}` : (UNITS[name] ?? "");
-    return { name, key: parameterKey(name), unit, sign: parameterSign(kind, name) };
-  });
+  if (kind === "state-feedback") {
+    const names = [...stateNames.map((_, i) => `k[${i}]`), REFERENCE_GAIN_PARAMETER.name];
+    return names.map((name, i) => ({
+      name,
+      key: parameterKey(name),
+      unit: i < stateNames.length ? `gain on ${stateNames[i]}` : describe(REFERENCE_GAIN_PARAMETER),
+      sign: parameterSign(kind, name),
+    }));
+  }
+  return PARAMETERS[kind].map((p) => ({ name: p.name, key: parameterKey(p.name), unit: describe(p), sign: parameterSign(kind, p.name) }));
 }
 
-/** Every form key a sweep form may hold a range for (all structures, up to 10 state gains). */
+/** Every form key a sweep form may hold a range for (all structures, up to MAX_STATE_FEEDBACK_GAINS state gains). */
 export const ALL_PARAMETER_KEYS: readonly string[] = [
-  ...new Set([...Object.values(PARAMETERS).flat(), "n", ...Array.from({ length: 10 }, (_, i) => `k${i}`)]),
+  ...new Set([
+    ...Object.values(PARAMETERS).flatMap((table) => table.map((p) => p.name)),
+    REFERENCE_GAIN_PARAMETER.name,
+    ...Array.from({ length: MAX_STATE_FEEDBACK_GAINS }, (_, i) => `k${i}`),
+  ]),
 ];

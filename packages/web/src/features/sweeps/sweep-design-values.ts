@@ -53,6 +53,8 @@ export interface VariantValues {
   plantId: string;
   plantRevisionId: string;
   label: string;
+  /** True once the user typed a label; until then (and again when it is cleared) the label follows the plant's name. */
+  labelTyped: boolean;
   parameters: string;
 }
 

@@ -1,4 +1,4 @@
-import { DEFAULT_SWEEP_CRITERIA, sweepInputSchema, type ControllerKind, type CriterionId, type ScenarioKind, type SweepInput } from "@loopyard/core";
+import { DEFAULT_SWEEP_CRITERIA, MAX_FAMILY_VARIANTS, sweepInputSchema, type ControllerKind, type CriterionId, type ScenarioKind, type SweepInput } from "@loopyard/core";
 import type { Resolver } from "react-hook-form";
 import { dottedPath, fieldErrors, type FieldIssue } from "../../forms/field-errors.js";
 import { toResolverErrors } from "../../forms/resolver-errors.js";
@@ -81,8 +81,6 @@ export interface SweepFormContext {
   stateNames: readonly string[];
 }
 
-/** Most variants a family may hold in the form (MAX_FAMILY_VARIANTS of the schema). */
-const FORM_VARIANTS = 20;
 
 export const SWEEP_FORM_FIELDS = [
   "name",
@@ -90,7 +88,7 @@ export const SWEEP_FORM_FIELDS = [
   "variants",
   "firstVariant.label",
   "firstVariant.parameters",
-  ...Array.from({ length: FORM_VARIANTS - 1 }, (_, i) => [`variants.${i}.plantRevisionId`, `variants.${i}.label`, `variants.${i}.parameters`]).flat(),
+  ...Array.from({ length: MAX_FAMILY_VARIANTS - 1 }, (_, i) => [`variants.${i}.plantRevisionId`, `variants.${i}.label`, `variants.${i}.parameters`]).flat(),
   "design",
   "design.count",
   "design.seed",

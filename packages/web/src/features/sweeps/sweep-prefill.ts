@@ -55,6 +55,8 @@ export function formFromSweep(sweep: Pick<SweepDetailDto, "name" | "definition" 
       plantId: sweep.family?.[i + 1]?.plantId ?? "",
       plantRevisionId: v.plantRevisionId,
       label: v.label ?? "",
+      // A stored label other than the plant's name was typed; the plant's own name keeps following it.
+      labelTyped: v.label !== undefined && v.label !== sweep.family?.[i + 1]?.plantName,
       parameters: formatOverrides(v.parameters),
     }));
   }

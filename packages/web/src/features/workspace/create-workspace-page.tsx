@@ -1,4 +1,5 @@
 import { useForm } from "react-hook-form";
+import { workspaceNameSchema } from "@loopyard/core";
 import { Link, useNavigate } from "react-router";
 import { useMe } from "../../api/use-me.js";
 import { useCreateWorkspace } from "../../api/use-workspace.js";
@@ -45,8 +46,11 @@ export function CreateWorkspacePage() {
             className={inputClass}
             aria-invalid={Boolean(formState.errors.name)}
             {...register("name", {
-              validate: (v) => (v.trim().length > 0 ? true : "give the workspace a name"),
-              maxLength: { value: 120, message: "keep the name under 120 characters" },
+              // The server's own rule (core workspaceNameSchema), so the page and the API agree.
+              validate: (v) => {
+                const result = workspaceNameSchema.safeParse(v);
+                return result.success ? true : (result.error.issues[0]?.message ?? "give the workspace a name");
+              },
             })}
           />
         </Field>

@@ -64,7 +64,7 @@ describe("family", () => {
     const rev = "00000000-0000-4000-8000-000000000001";
     expect(toFamily({ plantRevisionId: rev, label: "", parameters: "" }, [])).toBeUndefined();
     const family = toFamily({ plantRevisionId: rev, label: "200", parameters: "" }, [
-      { plantId: "p", plantRevisionId: "00000000-0000-4000-8000-000000000002", label: " 400 ", parameters: "k = 2" },
+      { plantId: "p", plantRevisionId: "00000000-0000-4000-8000-000000000002", label: " 400 ", labelTyped: true, parameters: "k = 2" },
     ]);
     expect(family).toEqual({
       variants: [

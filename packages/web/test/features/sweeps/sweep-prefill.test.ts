@@ -22,7 +22,8 @@ describe("formFromSweep", () => {
     });
     const form = formFromSweep({ name: "Ember family", definition, family: [variant(REV_A, "200"), variant(REV_B, "400")] });
     expect(form.name).toBe("Ember family (again)");
-    expect(form.variants).toEqual([{ plantId: "plant-400", plantRevisionId: REV_B, label: "400", parameters: "" }]);
+    // The stored label is the plant's own name, so it keeps following the plant (labelTyped false).
+    expect(form.variants).toEqual([{ plantId: "plant-400", plantRevisionId: REV_B, label: "400", labelTyped: false, parameters: "" }]);
     const again = sweepInputSchema.parse(toSweepInput(form, { stateNames: [] }));
     expect({ ...again, name: definition.name }).toEqual(definition);
   });
@@ -35,7 +36,7 @@ describe("formFromSweep", () => {
       scenario: { horizon: 60, dt: 0.05 },
     });
     const form = formFromSweep({ name: "one", definition, family: [variant(REV_A, "a")] });
-    form.variants = [{ plantId: "p", plantRevisionId: REV_B, label: "b", parameters: "gain 2" }];
+    form.variants = [{ plantId: "p", plantRevisionId: REV_B, label: "b", labelTyped: true, parameters: "gain 2" }];
     const result = await sweepFormResolver(form, { stateNames: [] }, { fields: {}, shouldUseNativeValidation: false });
     expect(JSON.stringify(result.errors)).toContain("is not of the form name = value");
   });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { downsampleIndices, MAX_TRACE_POINTS, pick } from "../../src/traces/downsample.js";
+import { downsampleIndices, MAX_TRACE_POINTS, pick } from "../../src/traces/downsample-trace.js";
 
 describe("downsampleIndices", () => {
   it("downsampleIndices(n) keeps every point when n is within the limit", () => {
