@@ -40,7 +40,7 @@ export function smallComparison(name: string, revisions: readonly string[], extr
 }
 
 /** Polls a comparison until it has stopped (finished, failed, cancelled) or the timeout passes. */
-export async function waitForComparison(client: ApiClient, slug: string, id: string, timeoutMs = 50_000) {
+export async function waitForComparison(client: ApiClient, slug: string, id: string, timeoutMs = 120_000) {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const response = await client.get(`/api/workspaces/${slug}/comparisons/${id}`);

@@ -80,7 +80,7 @@ describe("comparisons", () => {
       params.push((await team.viewer.get(`${path}/${created.body.id}/result`)).body.picks.map((p: { params: unknown }) => p.params));
     }
     expect(params[1]).toEqual(params[0]);
-  });
+  }, 150_000);
 
   it("when the responses are asked for, then each pick is simulated on its worst variant, or all on the chosen one", async () => {
     const path = `/api/workspaces/${team.slug}/comparisons`;
