@@ -51,7 +51,7 @@ describe("comparisons", () => {
     // Stability: each of the 3 variants left out, and the one quadratic weight r halved and doubled.
     expect(result.body.stability.map((e: { label: string }) => e.label)).toEqual(["without gain 1", "without gain 1.4", "without gain 0.7", "J(r=0.05) with r = 0.025", "J(r=0.05) with r = 0.1"]);
     expect(result.body.variants).toEqual(["gain 1", "gain 1.4", "gain 0.7"]);
-  });
+  }, 150_000);
 
   it("when finished comparisons share contenders, then the across page lines up each contender's regret on the chosen judge", async () => {
     const path = `/api/workspaces/${team.slug}/comparisons`;
