@@ -65,6 +65,10 @@ export {
 export { ROLES, hasRole, canCancelSweep } from "./api/roles.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
+// Comparisons over the API: the submitted input (family by plant revisions) and the DTOs.
+export { comparisonInputSchema } from "./api/comparison-input.js";
+export type { ComparisonInput } from "./api/comparison-input.js";
+export type * from "./api/comparison-dto.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";

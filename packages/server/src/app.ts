@@ -23,6 +23,9 @@ import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-syst
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
+// Comparisons: criteria pitted against each other, as jobs of their own queues.
+import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
+import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -36,6 +39,8 @@ export interface LoopyardApp {
   db: RootDatabase;
   /** Sweeps as pg-boss jobs, with the embedded worker unless turned off. */
   jobs: SweepJobSystem;
+  /** Comparisons as pg-boss jobs, with the embedded comparison worker unless turned off. */
+  comparisonJobs: ComparisonJobSystem;
   /** Stops the embedded worker (running chunks finish) and pg-boss, then closes the database pool. */
   close(): Promise<void>;
 }
@@ -52,6 +57,13 @@ export function createApp(config: AppConfig): LoopyardApp {
   const auth = createAuth(db, config);
   const background = new BackgroundTasks();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
+    embeddedWorker: config.embeddedWorker ?? true,
+    resume: config.resumeSweeps ?? true,
+    ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
+    ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
+  });
+  const comparisonJobs = createComparisonJobSystem(db, config.databaseUrl, {
+    after: jobs.ready,
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
@@ -104,6 +116,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     "/api/workspaces/:slug/sweeps",
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background),
   );
+  app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -120,8 +133,10 @@ export function createApp(config: AppConfig): LoopyardApp {
     auth,
     db,
     jobs,
+    comparisonJobs,
     close() {
       closing ??= (async () => {
+        await comparisonJobs.close();
         await jobs.close();
         await background.settle();
         await database.close();
