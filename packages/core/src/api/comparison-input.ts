@@ -1,10 +1,12 @@
 import { z } from "zod";
+import { MAX_TITLE_LENGTH } from "../limits.js";
+import { textField } from "../schemas/text.js";
 import { comparisonDefinitionSchema, type ComparisonDefinition } from "../comparison/comparison-definition.js";
 import { sweepFamilySchema, type SweepFamily } from "../sweeps/sweep-input.js";
 
 /** Fields of a comparison that the library resolves (the rest is core's ComparisonDefinition). */
 const headSchema = z.object({
-  name: z.string({ error: "give the comparison a name" }).trim().min(1, "give the comparison a name").max(120, "keep the name under 120 characters"),
+  name: textField({ label: "name", min: 1, required: "give the comparison a name", max: MAX_TITLE_LENGTH }),
   family: sweepFamilySchema,
 });
 
