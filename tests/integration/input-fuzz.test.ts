@@ -14,6 +14,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp, routeTable, type RouteEntry } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
+import { smallComparison } from "./comparison-fixtures.js";
 import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 const ANSWER_BUDGET_MS = 2_000;
@@ -24,7 +25,7 @@ const RUNS = 25;
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string };
 let healthWorst = 0;
 let healthWorstDuring = "";
 let phase = "set-up";
@@ -53,9 +54,21 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
         scenario: { kind: "setpoint-step", horizon: 5, dt: 0.01 },
         criteria: ["iae", "effort"],
       };
+    case "POST /api/workspaces/:slug/comparisons":
+      return smallComparison("Fuzz comparison", [ids.revisionId], {
+        structure: "pi",
+        ranges: { kp: { min: 0.2, max: 5, scale: "log" }, ki: { min: 0.1, max: 2, scale: "log" } },
+        filter: undefined,
+        scenario: { kind: "setpoint-step", horizon: 5, dt: 0.01 },
+        contenders: ["iae", "ise"],
+        judges: ["overshoot"],
+        constraints: {},
+        budget: { prescan: 16, starts: 1, evaluations: 20, stability: false },
+      });
     case "POST /api/workspaces/:slug/members":
       return { email: "jon@halvard.example", role: "viewer" };
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
+    case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
       return {};
     default:
@@ -126,16 +139,18 @@ function encode(text: string): string {
 }
 
 function fill(path: string): string {
-  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":index", "0").replace(":sessionId", randomUUID());
+  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":index", "0").replace(":sessionId", randomUUID());
 }
 
 beforeAll(async () => {
   server = await startTestServer({ limits: { maxCandidates: 1_000, maxConcurrentSweeps: 3 } });
   team = await workspaceWithTeam(server.url, "Fuzz");
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Fuzz base"));
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "" };
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "" };
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, validBody({ method: "POST", path: "/api/workspaces/:slug/sweeps", role: "engineer" }));
   ids.sweepId = sweep.body.id;
+  const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, validBody({ method: "POST", path: "/api/workspaces/:slug/comparisons", role: "engineer" }));
+  ids.comparisonId = comparison.body.id;
   await waitForSweep(team.viewer, team.slug, ids.sweepId);
   // /api/health polled all along: its worst time is checked at the end.
   const health = new ApiClient(server.url);
@@ -187,7 +202,7 @@ describe("fuzzing every input over HTTP", () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...getRoutes),
-        fc.constantFrom(":slug", ":plantId", ":sweepId", ":index", "?"),
+        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":index", "?"),
         segment,
         segment,
         async (route, where, value, query) => {

@@ -19,6 +19,7 @@ import { routeTable, type RouteEntry } from "../../packages/server/src/index.js"
 import { createApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
+import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
 import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
@@ -26,7 +27,7 @@ let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
 let lead: ApiClient;
 let nonMember: ApiClient;
 let other: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; plantName: string; sweepName: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; plantName: string; sweepName: string; comparisonName: string };
 
 /** A 2 × 2 PI grid on the two-lag plant, 5 s at 10 ms: four candidates, done in a moment. */
 function tinySweep(name: string, plantRevisionId: string) {
@@ -38,6 +39,20 @@ function tinySweep(name: string, plantRevisionId: string) {
     scenario: { kind: "setpoint-step", horizon: 5, dt: 0.01 },
     criteria: ["iae", "effort"],
   };
+}
+
+/** A one-variant comparison of IAE against ISE for a PI on the two-lag plant, with the smallest budget: done in a moment. */
+function tinyComparison(name: string, plantRevisionId: string) {
+  return smallComparison(name, [plantRevisionId], {
+    structure: "pi",
+    ranges: { kp: { min: 0.2, max: 5, scale: "log" }, ki: { min: 0.1, max: 2, scale: "log" } },
+    filter: undefined,
+    scenario: { kind: "setpoint-step", horizon: 5, dt: 0.01 },
+    contenders: ["iae", "ise"],
+    judges: ["overshoot"],
+    constraints: {},
+    budget: { prescan: 16, starts: 1, evaluations: 20, stability: false },
+  });
 }
 
 /** The API routes under test: all but better-auth's own (tested in auth and hostile-request tests). */
@@ -65,7 +80,10 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
       return twoLagPlant("Matrix plant");
     case "POST /api/workspaces/:slug/sweeps":
       return tinySweep("Matrix sweep", revisionId);
+    case "POST /api/workspaces/:slug/comparisons":
+      return tinyComparison("Matrix comparison", revisionId);
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
+    case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
       return undefined;
     case "POST /api/workspaces/:slug/members": {
@@ -83,6 +101,7 @@ function fill(path: string, slug: string): string {
     .replace(":slug", slug)
     .replace(":plantId", ids.plantId)
     .replace(":sweepId", ids.sweepId)
+    .replace(":comparisonId", ids.comparisonId)
     .replace(":index", "0")
     .replace(":sessionId", randomUUID());
 }
@@ -95,7 +114,7 @@ async function call(client: ApiClient, route: RouteEntry, slug: string) {
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.plantName, ids.sweepName]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.plantName, ids.sweepName, ids.comparisonName]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -114,7 +133,11 @@ beforeAll(async () => {
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, tinySweep(sweepName, plant.body.revision.id));
   expect(sweep.status).toBe(201);
   await waitForSweep(team.viewer, team.slug, sweep.body.id);
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, plantName, sweepName };
+  const comparisonName = `Matrix secret comparison ${randomUUID().slice(0, 8)}`;
+  const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, tinyComparison(comparisonName, plant.body.revision.id));
+  expect(comparison.status, JSON.stringify(comparison.body)).toBe(201);
+  await waitForComparison(team.viewer, team.slug, comparison.body.id);
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, comparisonId: comparison.body.id, plantName, sweepName, comparisonName };
 }, 120_000);
 
 afterAll(async () => {
@@ -160,8 +183,8 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId/.test(route.path)) expect(response.status).toBe(404);
-      if (route.method === "POST" && route.path.endsWith("/sweeps")) expect(response.status).toBeGreaterThanOrEqual(400);
+      if (/:plantId|:sweepId|:comparisonId/.test(route.path)) expect(response.status).toBe(404);
+      if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });
 
