@@ -1,23 +1,22 @@
-import { familyBoundCurve, frequencyResponse, loopTransferFunction, scoreFamilyBaselines, thinFrequencyResponse } from "@loopyard/core";
+import { familyBoundCurve, planSweep, scoreFamilyBaselines } from "@loopyard/core";
 import type {
   Aggregate,
   BaselineDto,
   FrequencyDto,
-  FrequencyResponse,
-  LinearPlant,
   Plant,
   ReferencesDto,
   SensitivityWeight,
   SweepDetailDto,
   SweepPlan,
 } from "@loopyard/core";
+import { limitExceeded, type Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate } from "./candidate-repository.js";
 import { toScoreValue } from "./score-value.js";
 import { findStoredReferences, findSweepDetail, storeReferences } from "./sweep-repository.js";
-import { loadSweepPlan } from "./sweep-evaluation.js";
+import { loadSweepModels, loadSweepPlan } from "./sweep-evaluation.js";
 import { sweepVariantPlant } from "./sweep-variant-plant.js";
 
 import { getSweep } from "./sweep-service.js";
@@ -138,26 +137,34 @@ function baselinesOf(family: Plant[], plan: SweepPlan, criteria: SweepDetailDto[
  * variant of the family (the first by default), from core frequencyResponse on
  * loopTransferFunction(plant, controller), the controller rebuilt as the runner evaluated it.
  * Linear plants only (400 otherwise). The adaptive grid is thinned to about
- * MAX_FREQUENCY_POINTS log-spaced points, keeping the peaks of |S| and |T|.
+ * MAX_FREQUENCY_POINTS log-spaced points, keeping the peaks of |S| and |T|. Computed on the
+ * server's compute pool under a time limit (422 past it).
  */
-export async function getCandidateFrequency(db: Database, access: MemberAccess, sweepId: string, index: number, variant = 0): Promise<FrequencyDto> {
+export async function getCandidateFrequency(
+  db: Database,
+  compute: Compute,
+  access: MemberAccess,
+  sweepId: string,
+  index: number,
+  variant = 0,
+): Promise<FrequencyDto> {
   const sweep = await getSweep(db, access, sweepId);
-  const plan = await loadSweepPlan(db, sweep.definition);
-  const plant = sweepVariantPlant(plan, variant);
+  const models = await loadSweepModels(db, sweep.definition);
+  const plant = sweepVariantPlant(planSweep(sweep.definition, models), variant);
   if (plant.kind === "nonlinear") {
     throw badRequest("The frequency response needs a linear plant; this sweep's plant is nonlinear, so only its time response can be shown.");
   }
   const stored = await findCandidate(db, sweepId, index);
   if (!stored) throw notFound(`This sweep has no evaluated candidate ${index}.`);
-  const controller = plan.controllerFromParameters(stored.params);
   const weight = sweepWeight(sweep);
-  let response: FrequencyResponse;
-  try {
-    response = frequencyResponse(loopTransferFunction(plant as LinearPlant, controller), weight ? { weight } : {});
-  } catch (error) {
-    throw new HttpError(409, `The frequency response of this candidate could not be computed (${refusal(error)}); choose another candidate.`);
+  const outcome = await compute.run("candidateFrequency", { definition: sweep.definition, models, params: stored.params, variant, ...(weight ? { weight } : {}) });
+  if (!outcome.ok) {
+    throw (
+      limitExceeded(outcome, "The frequency response of this candidate", "choose another candidate.") ??
+      new HttpError(409, `The frequency response of this candidate could not be computed (${outcome.reason}); choose another candidate.`)
+    );
   }
-  return { index, status: stored.status, ...thinFrequencyResponse(response) };
+  return { index, status: stored.status, ...outcome.value };
 }
 
 /** The sensitivity weight of the sweep's criterion options, when the definition carries one. */

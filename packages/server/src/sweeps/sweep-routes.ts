@@ -2,6 +2,7 @@ import { Router, type Request } from "express";
 import { z } from "zod";
 import { firstSweepIssue, POINTS_BINARY_TYPE, sweepInputSchema, sweepIssues } from "@loopyard/core";
 import type { SweepInputParsed } from "@loopyard/core";
+import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
 import { parseIdParam, parseQuery, pathParam } from "../http/validation.js";
@@ -57,7 +58,7 @@ function parseSweepBody(req: Request): SweepInputParsed {
 }
 
 /** /api/workspaces/:slug/sweeps */
-export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits, background: BackgroundTasks): Router {
+export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits, background: BackgroundTasks, compute: Compute): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading sweeps");
   const sweepIdOf = (value: unknown) => parseIdParam(value, SWEEP_NOT_FOUND);
@@ -113,7 +114,7 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
     const { variant } = parseQuery(variantQuerySchema, req);
-    res.json(await getCandidateResponse(db, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
+    res.json(await getCandidateResponse(db, compute, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
   });
 
   router.get("/:sweepId/references", canRead, async (req, res) => {
@@ -123,7 +124,7 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   router.get("/:sweepId/candidates/:index/frequency", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
     const { variant } = parseQuery(variantQuerySchema, req);
-    res.json(await getCandidateFrequency(db, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
+    res.json(await getCandidateFrequency(db, compute, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
   });
 
   return router;
