@@ -20,6 +20,8 @@ import { planSweep } from "../sweeps/plan-sweep.js";
 import { SweepPlanError } from "../sweeps/sweep-plan-error.js";
 import type { SweepShape } from "../sweeps/sweep-input.js";
 import { downsampleIndices, pick } from "../traces/downsample-trace.js";
+import type { ReferencesDto } from "../api/dto.js";
+import { sweepReferences, type SweepReferencesInput } from "./sweep-references-task.js";
 
 /**
  * Why a task gave no value: "budget" (its work budget ran out), "time" (its time limit passed; set
@@ -51,6 +53,8 @@ export interface ComputeTasks {
   candidateResponse: { input: CandidateTaskInput; output: { t: number[]; r: number[]; y: number[]; u: number[] } };
   /** |S|, |T| (and 1/|W|) of a candidate's loop on one linear variant, thinned. */
   candidateFrequency: { input: CandidateTaskInput & { weight?: SensitivityWeight }; output: ThinFrequencyResponse };
+  /** A sweep's bound curve and tuning-rule baselines (sweep-references-task.ts). */
+  sweepReferences: { input: SweepReferencesInput; output: ReferencesDto };
 }
 
 export type ComputeTaskName = keyof ComputeTasks;
@@ -83,6 +87,7 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
     const response = frequencyResponse(loopTransferFunction(plant as LinearPlant, controller), input.weight ? { weight: input.weight } : {});
     return thinFrequencyResponse(response);
   },
+  sweepReferences,
 };
 
 function candidateLoop({ definition, models, params, variant }: CandidateTaskInput) {

@@ -5,3 +5,4 @@ export { createComputePool } from "./compute-pool.js";
 export type { ComputeLimits, ComputePool, ComputePoolConfig } from "./compute-pool.js";
 export { runComputeTask } from "./compute-tasks.js";
 export type { CandidateTaskInput, ComputeFailure, ComputeOutcome, ComputeRequest, ComputeTaskName, ComputeTasks, PlantPreview } from "./compute-tasks.js";
+export type { SweepReferencesInput } from "./sweep-references-task.js";

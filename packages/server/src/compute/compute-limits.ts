@@ -12,6 +12,8 @@ export const COMPUTE_LIMITS: Record<ComputeTaskName, ComputeLimits> = {
   candidateResponse: { budget: { evaluations: 2_000_000 }, timeLimitMs: 10_000 },
   // The frequency response integrates nothing; its adaptive grid is bounded by the time limit.
   candidateFrequency: { budget: { evaluations: 1_000 }, timeLimitMs: 10_000 },
+  // Every tuning rule scored on every variant: several closed-loop simulations per variant.
+  sweepReferences: { budget: { evaluations: 20_000_000 }, timeLimitMs: 30_000 },
 };
 
 /** Worker threads of the web server's compute pool (the sweep worker has its own pool). */

@@ -73,7 +73,7 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
     const created = await createSweep(db, jobs.start, access, input, limits);
     res.status(201).json(created);
     // The bound and the baselines follow from the definition: ready by the time the sweep has results.
-    background.run(`computing the references of sweep ${created.id}`, () => prepareReferences(db, access.workspace.id, created.id));
+    background.run(`computing the references of sweep ${created.id}`, () => prepareReferences(db, compute, access.workspace.id, created.id));
   });
 
   router.post("/:sweepId/cancel", memberOf(db, "engineer", "Cancelling sweeps"), async (req, res) => {
@@ -118,7 +118,7 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   });
 
   router.get("/:sweepId/references", canRead, async (req, res) => {
-    res.json(await getReferences(db, accessOf(req), sweepIdOf(req.params.sweepId)));
+    res.json(await getReferences(db, compute, accessOf(req), sweepIdOf(req.params.sweepId)));
   });
 
   router.get("/:sweepId/candidates/:index/frequency", canRead, async (req, res) => {
