@@ -69,7 +69,6 @@ describe("a stiff plant", () => {
     const creating = team.engineer.post(plantsPath(), stiffPlant("Stiff ember coil"));
     const health = await slowestHealthWhile(creating);
     const response = await creating;
-    console.log(JSON.stringify({ health, message: response.body.error?.message }));
     expect(response.status).toBe(422);
     expect(response.body.error.message).toMatch(/^The open-loop step of this plant is more work than the lab allows for one request \(/);
     expect(response.body.error.message).toMatch(/rescale its gains or time constants/);
