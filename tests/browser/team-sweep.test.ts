@@ -37,6 +37,8 @@ describe("a family sweep with a Latin hypercube", () => {
     await page.fill("[data-testid=first-variant-label]", "Ember 200");
     await page.click("[data-testid=add-variant]");
     await page.selectOption("[data-testid=variant-0-plant]", { label: "Ember 400 plate" });
+    // Until the engineer types a label, it follows the chosen plant (it used to keep the first plant's name).
+    await page.waitForFunction(() => (document.querySelector("[data-testid=variant-0-label]") as HTMLInputElement | null)?.value === "Ember 400 plate");
     await page.fill("[data-testid=variant-0-label]", "Ember 400");
     await page.click("[data-testid=design-latin-hypercube]");
     await page.fill("[data-testid=design-count]", "400");

@@ -146,24 +146,26 @@ describe("sweeps over the structures and scenarios of the engine", () => {
     // Under u = kp(1 − x): dx/dt = 0.1x² + (0.5 − kp)x + kp. With discriminant (0.5 − kp)² − 0.4kp < 0 there is no
     // equilibrium and dx/dt > 0 everywhere, so x escapes in finite time (≈ 6.8 s for kp = 0.25, ≈ 12.8 s for kp = 1);
     // for kp = 1.75, 2.5, 3.25 the smaller root (≈ 1.61, 1.34, 1.24) is a stable equilibrium reached from x = 0
-    // (closed form: sign of the quadratic).
+    // (closed form: sign of the quadratic). kp = 0.25 is caught before simulating: linearised at the operating point
+    // x = 0 the closed loop is x' = (0.5 − kp)x, a pole at +0.25, so the local verdict calls it unstable (Lyapunov's
+    // indirect method, Khalil 2002, Thm 4.7); kp = 1 is locally stable (pole −0.5) and escapes only after the step.
     const candidates = await candidatesOf(sweep.id);
     expect(candidates.map((c) => [c.params[0], c.status])).toEqual([
-      [0.25, "diverged"],
+      [0.25, "unstable"],
       [1, "diverged"],
       [1.75, "stable"],
       [2.5, "stable"],
       [3.25, "stable"],
     ]);
-    expect(sweep.divergedCount).toBe(2);
-    expect(sweep.unstableCount).toBe(0);
+    expect(sweep.divergedCount).toBe(1);
+    expect(sweep.unstableCount).toBe(1);
     for (const c of candidates.slice(0, 2)) expect(c.scores).toBeNull();
     for (const c of candidates.slice(2)) {
       for (const score of c.scores ?? []) expect(typeof score === "number" && Number.isFinite(score)).toBe(true);
     }
     const front = await team.viewer.get(`${sweepsPath()}/${sweep.id}/front?x=iae&y=effort`);
     expect(front.body.indices.every((i: number) => i >= 2)).toBe(true);
-    const diverged = await team.viewer.get(`${sweepsPath()}/${sweep.id}/candidates/0/response`);
+    const diverged = await team.viewer.get(`${sweepsPath()}/${sweep.id}/candidates/1/response`);
     expect(diverged.status).toBe(200);
     expect(diverged.body.status).toBe("diverged");
   });

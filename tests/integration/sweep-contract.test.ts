@@ -1,4 +1,4 @@
-import { spawnSync } from "node:child_process";
+import { spawn } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -96,6 +96,16 @@ const CASES: BadSweep[] = [
   },
 ];
 
+function runCli(args: string[]): Promise<{ status: number | null; stderr: string }> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [CLI_MAIN, ...args], { stdio: ["ignore", "ignore", "pipe"] });
+    let stderr = "";
+    child.stderr.on("data", (d: Buffer) => (stderr += d.toString()));
+    child.on("error", reject);
+    child.on("close", (status) => resolve({ status, stderr }));
+  });
+}
+
 function errorAt(errors: Record<string, unknown>, field: string): string | undefined {
   let node: unknown = errors;
   for (const part of field.split(".")) node = (node as Record<string, unknown> | undefined)?.[part];
@@ -126,9 +136,33 @@ describe("one bad sweep, one sentence at every door", () => {
       const spec = { ...definition, family: { variants: [{ label: "plate", plant: PLANT.model }] } };
       const file = join(dir, `${c.field}-${CASES.indexOf(c)}.json`);
       writeFileSync(file, JSON.stringify(spec));
-      const cli = spawnSync(process.execPath, [CLI_MAIN, "sweep", file, "--workers", "1"], { encoding: "utf8" });
+      // Spawned without blocking: the test server runs in this process and must keep answering.
+      const cli = await runCli(["sweep", file, "--workers", "1"]);
       expect(cli.status).toBe(2);
       expect(cli.stderr).toBe(`loopyard: ${sentence}.\n`);
     });
   }
+});
+
+describe("a variant's label and its revision", () => {
+  it("when a variant's label names another plant of the workspace, then the answer is 400 naming that label", async () => {
+    const other = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Contract other plate"));
+    const otherRevision = other.body.revision.id as string;
+    const form = defaultSweepForm(revisionId, 60);
+    form.name = "Label left from another plant";
+    // The bug this guards: the second variant kept the first plant's name after another plant was picked.
+    form.variants = [{ plantId: other.body.plant.id, plantRevisionId: otherRevision, label: PLANT.name, labelTyped: false, parameters: "" }];
+    const input = toSweepInput(form, { stateNames: [] });
+    const response = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, input);
+    expect(response.status).toBe(400);
+    expect(response.body.error.field).toBe("family.variants.1.label");
+    expect(response.body.error.message).toBe(
+      `family.variants.1.label: “${PLANT.name}” is the name of another plant; this variant is Contract other plate, so change the label or leave it empty`,
+    );
+    // The plant's own name, or a label that names no plant, is fine.
+    form.variants[0]!.label = "Contract other plate";
+    const own = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, toSweepInput(form, { stateNames: [] }));
+    expect(own.status).toBe(201);
+    await team.engineer.post(`/api/workspaces/${team.slug}/sweeps/${own.body.id}/cancel`, {});
+  });
 });

@@ -401,12 +401,15 @@ describe("cancel, limits and diverging variants (embedded worker)", () => {
     const sweep = await waitUntil(team.viewer, team.slug, created.body.id, finished, 60_000);
     expect(sweep.status).toBe("finished");
     expect(sweep.progress.chunksFailed).toBe(0);
-    expect(sweep.divergedCount).toBe(2);
+    expect(sweep.divergedCount).toBe(1);
+    expect(sweep.unstableCount).toBe(1);
     // Under u = kp(1 − x): dx/dt = b·x² + (0.5 − kp)·x + kp has no equilibrium (finite escape from x = 0) when
     // (0.5 − kp)² − 4·b·kp < 0 and, for kp < 0.5, no positive one. b = 0.1: kp = 0.25 and 1 escape; b = 0.05:
     // kp = 0.25 escapes, kp = 1 settles at the smaller root (0.5 − √0.05)/0.1 ≈ 2.76 (closed form: sign of the quadratic).
+    // kp = 0.25 is judged before simulating: linearised at x = 0 the loop is x' = (0.5 − kp)x, a pole at +0.25 on both
+    // variants, so it is unstable (local verdict; Khalil 2002, Thm 4.7).
     const candidates = await candidatesOf(team.viewer, team.slug, sweep.id);
-    expect(candidates.map((c) => c.status)).toEqual(["diverged", "diverged", "stable", "stable", "stable"]);
+    expect(candidates.map((c) => c.status)).toEqual(["unstable", "diverged", "stable", "stable", "stable"]);
     expect(candidates[1]?.scores).toBeNull();
     expect(candidates[1]?.variantScores?.[0]).toBeNull();
     expect(candidates[1]?.variantScores?.[1]?.every((v) => typeof v === "number")).toBe(true);

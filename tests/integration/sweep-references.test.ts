@@ -2,6 +2,7 @@ import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { exactQuadraticCosts, lqrBound } from "@loopyard/core";
 import type { CandidateListDto, FrequencyDto, ReferencesDto, SweepDetailDto } from "@loopyard/core";
+import { REFERENCES_VERSION } from "../../packages/server/src/sweeps/sweep-reference-service.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient } from "./api-client.js";
 import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
@@ -105,7 +106,7 @@ describe("GET …/sweeps/:sweepId/references", () => {
       const deadline = Date.now() + 20_000;
       while ((await stored()) == null && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 50));
       const first = await stored();
-      expect(first?.version).toBe(1);
+      expect(first?.version).toBe(REFERENCES_VERSION);
       expect(first.references.bound.ok).toBe(true);
       const path = `/api/workspaces/${team.slug}/sweeps/${created.body.id}/references`;
       const read = await team.viewer.get(path);
@@ -117,17 +118,17 @@ describe("GET …/sweeps/:sweepId/references", () => {
       const again = await team.viewer.get(path);
       expect(again.status).toBe(200);
       expect(again.body).toEqual(first.references);
-      expect((await stored()).version).toBe(1);
+      expect((await stored()).version).toBe(REFERENCES_VERSION);
     } finally {
       await db.end();
     }
     await waitForSweep(team.viewer, team.slug, created.body.id);
   });
 
-  it("when a non-member asks, then the answer is 403; signed out, 401", async () => {
+  it("when a non-member asks, then the answer is 404 as for no such workspace; signed out, 401", async () => {
     expect((await new ApiClient(server.url).get(`${sweepPath()}/references`)).status).toBe(401);
     const stranger = await workspaceWithTeam(server.url, "References stranger");
-    expect((await stranger.viewer.get(`${sweepPath()}/references`)).status).toBe(403);
+    expect((await stranger.viewer.get(`${sweepPath()}/references`)).status).toBe(404);
   });
 });
 

@@ -68,8 +68,11 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     // One line per 5xx only; a passing run stays quiet.
     requestLogLevel: "warn",
   });
-  // A database the test made unreachable keeps the job queue from starting; the API still answers.
-  if (options.databaseUrl === undefined) await loopyard.jobs.ready;
+  // A database the test made unreachable keeps the job queues from starting; the API still answers.
+  if (options.databaseUrl === undefined) {
+    await loopyard.jobs.ready;
+    await loopyard.comparisonJobs.ready;
+  }
   server.on("request", loopyard.app);
   return {
     url,

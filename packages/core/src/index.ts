@@ -39,6 +39,7 @@ export { SweepPlanError } from "./sweeps/sweep-plan-error.js";
 export { dottedField, firstSweepIssue, sweepIssues } from "./sweeps/sweep-issue.js";
 export { searchBudget } from "./sweeps/search-budget.js";
 export { searchObjectiveMatrix } from "./search/search-objectives.js";
+export { createSweepSearch, runSweepSearch } from "./sweeps/sweep-search.js";
 export { MAX_FREQUENCY_POINTS, PLOT_TAIL_GAIN, thinFrequencyResponse } from "./frequency/thin-frequency-response.js";
 export { MAX_TRACE_POINTS, downsampleIndices, pick } from "./traces/downsample-trace.js";
 export {
@@ -64,6 +65,10 @@ export {
 export { ROLES, hasRole, canCancelSweep } from "./api/roles.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
+// Comparisons over the API: the submitted input (family by plant revisions) and the DTOs.
+export { comparisonInputSchema } from "./api/comparison-input.js";
+export type { ComparisonInput } from "./api/comparison-input.js";
+export type * from "./api/comparison-dto.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";
@@ -212,6 +217,7 @@ export type { Budgeted, WorkBudget } from "./simulation/work-budget.js";
 export { continuousClosedLoop, closedLoopSteadyState, LOOP_INPUTS } from "./simulation/continuous-closed-loop.js";
 export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulation/exact-loop.js";
 export { runGridLoop } from "./simulation/grid-loop.js";
+export { runJointLoop } from "./simulation/joint-loop.js";
 export { DIVERGENCE_FACTOR, divergenceBound } from "./simulation/loop-bound.js";
 export { loopTransferFunction } from "./simulation/loop-transfer-function.js";
 export { isContinuousLoopStable, isLoopStable, loopVerdict } from "./evaluation/evaluate-candidate.js";
@@ -265,6 +271,7 @@ export type { SweepPlan } from "./sweeps/plan-sweep.js";
 export type { SweepBatch, SweepBatchEvaluator, SweepChunk, SweepRow, SweepRowStatus, SweepSelection } from "./sweeps/evaluate-sweep-chunk.js";
 export type { SweepIssue } from "./sweeps/sweep-issue.js";
 export type { SearchBudgetDesign } from "./sweeps/search-budget.js";
+export type { SweepSearch } from "./sweeps/sweep-search.js";
 export type { ThinFrequencyResponse } from "./frequency/thin-frequency-response.js";
 export type {
   ParameterRange,
@@ -328,6 +335,7 @@ export type { ResolvedScenario } from "./simulation/resolve-scenario.js";
 export type { DormandPrinceTolerance } from "./simulation/dormand-prince.js";
 export type { ContinuousClosedLoop } from "./simulation/continuous-closed-loop.js";
 export type { GridLoopConfig, GridPlant } from "./simulation/grid-loop.js";
+export type { JointLoopConfig } from "./simulation/joint-loop.js";
 export type { EvaluateCandidateOptions } from "./evaluation/evaluate-candidate.js";
 export type { ComplexSamples, FrequencyResponse, FrequencyResponseOptions } from "./frequency/frequency-response.js";
 export type { FrequencyPeak } from "./frequency/grid-peak.js";

@@ -3,6 +3,7 @@ import { toNodeHandler } from "better-auth/node";
 import type { AppConfig } from "./config.js";
 import { CLIENT_ADDRESS_HEADER, createAuth, type Auth } from "./auth/auth.js";
 import { authInputGuard } from "./auth/auth-input-guard.js";
+import { loadCommonPasswords } from "./auth/common-passwords.js";
 import { SESSION_COOKIE_PATTERN, SessionCache } from "./auth/session-cache.js";
 import { forgetCachedSessions, requireSession } from "./auth/session-middleware.js";
 import { createDatabase, type RootDatabase } from "./db/database.js";
@@ -23,6 +24,9 @@ import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-syst
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
+// Comparisons: criteria pitted against each other, as jobs of their own queues.
+import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
+import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -36,6 +40,8 @@ export interface LoopyardApp {
   db: RootDatabase;
   /** Sweeps as pg-boss jobs, with the embedded worker unless turned off. */
   jobs: SweepJobSystem;
+  /** Comparisons as pg-boss jobs, with the embedded comparison worker unless turned off. */
+  comparisonJobs: ComparisonJobSystem;
   /** Stops the embedded worker (running chunks finish) and pg-boss, then closes the database pool. */
   close(): Promise<void>;
 }
@@ -58,8 +64,16 @@ export function createApp(config: AppConfig): LoopyardApp {
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
+  const comparisonJobs = createComparisonJobSystem(db, config.databaseUrl, {
+    after: jobs.ready,
+    embeddedWorker: config.embeddedWorker ?? true,
+    resume: config.resumeSweeps ?? true,
+    ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
+    ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
+  });
 
   const sessions = new SessionCache();
+  void loadCommonPasswords();
   const limits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
   const publicOrigin = new URL(config.publicUrl).origin;
   const trustedOrigins = [publicOrigin, ...(config.extraTrustedOrigins ?? []).map((url) => new URL(url).origin)];
@@ -104,6 +118,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     "/api/workspaces/:slug/sweeps",
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
+  app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -120,8 +135,10 @@ export function createApp(config: AppConfig): LoopyardApp {
     auth,
     db,
     jobs,
+    comparisonJobs,
     close() {
       closing ??= (async () => {
+        await comparisonJobs.close();
         await jobs.close();
         await background.settle();
         await compute.close();

@@ -24,6 +24,8 @@ import { createSweepJobSystem } from "./jobs/sweep-job-system.js";
 import { chunkExpireSecondsFromEnv, startJobQueue } from "./jobs/job-queue.js";
 import { resumeSweepJobs } from "./sweeps/sweep-jobs.js";
 import { startSweepWorker } from "./workers/sweep-worker.js";
+import { createComparisonJobSystem } from "./comparisons/comparison-job-system.js";
+import { seedDemoComparison } from "./comparisons/comparison-demo.js";
 
 const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve|worker>";
 
@@ -50,17 +52,19 @@ async function seedCommand(): Promise<void> {
   // Seeding creates no sessions anyone uses, so a throwaway secret is fine when none is given.
   const authSecret = process.env.LOOPYARD_AUTH_SECRET ?? "seed-only-secret-not-used-for-any-session-0000";
   const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? "http://127.0.0.1:4470";
-  const database = createDatabase(databaseUrl, { max: 4 });
+  const database = createDatabase(databaseUrl, { max: 6 });
   // The demo sweeps run as jobs like any other; this process works them (and what else is pending) until they are done.
   const jobs = createSweepJobSystem(database.db, databaseUrl, { embeddedWorker: true, resume: false });
   try {
     const auth = createAuth(database.db, { authSecret, publicUrl });
     const report = await seedDemo(database.db, auth, jobs);
-    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated;
+    // The demo comparison runs through the comparison queues, like any other.
+    const comparisonCreated = await seedDemoComparison(database.db, databaseUrl);
+    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated);
     console.log(
       changed === 0
         ? "Demo data already present; nothing changed."
-        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps.`,
+        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps, ${Number(comparisonCreated)} comparison.`,
     );
     printDemoSignIns();
   } finally {
@@ -116,6 +120,9 @@ async function workerCommand(): Promise<void> {
   const boss = await startJobQueue(databaseUrl, { expireSeconds: chunkExpireSecondsFromEnv() });
   const worker = await startSweepWorker(database.db, boss, threads === undefined ? {} : { threads });
   await resumeSweepJobs(database.db, boss);
+  // Comparisons: their own queues and pool, resumed likewise.
+  const comparisons = createComparisonJobSystem(database.db, databaseUrl, threads === undefined ? {} : { workerThreads: threads });
+  await comparisons.ready;
   console.log(`Loopyard worker ${worker.id} is working sweep chunks with ${worker.threads} threads on ${redact(databaseUrl)}.`);
   let stopping = false;
   const stop = (signal: string) => {
@@ -123,6 +130,7 @@ async function workerCommand(): Promise<void> {
     stopping = true;
     console.log(`${signal} received; finishing the running chunks…`);
     (async () => {
+      await comparisons.close();
       await worker.close();
       await boss.stop({ graceful: true, timeout: 10_000, wait: true });
       await database.close();

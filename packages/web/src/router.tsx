@@ -9,6 +9,10 @@ import { PlantRevisePage } from "./features/plants/plant-revise-page.js";
 import { SweepDetailPage } from "./features/sweeps/sweep-detail-page.js";
 import { SweepListPage } from "./features/sweeps/sweep-list-page.js";
 import { SweepNewPage } from "./features/sweeps/sweep-new-page.js";
+import { ComparisonDetailPage } from "./features/comparisons/comparison-detail-page.js";
+import { ComparisonListPage } from "./features/comparisons/comparison-list-page.js";
+import { ComparisonNewPage } from "./features/comparisons/comparison-new-page.js";
+import { ComparisonsAcrossPage } from "./features/comparisons/comparisons-across-page.js";
 import { CreateWorkspacePage } from "./features/workspace/create-workspace-page.js";
 import { NotFoundPage } from "./features/workspace/not-found-page.js";
 import { RootRedirect } from "./features/workspace/root-redirect.js";
@@ -36,6 +40,10 @@ export const router = createBrowserRouter([
           { path: "sweeps", element: <SweepListPage /> },
           { path: "sweeps/new", element: <SweepNewPage /> },
           { path: "sweeps/:sweepId", element: <SweepDetailPage /> },
+          { path: "comparisons", element: <ComparisonListPage /> },
+          { path: "comparisons/new", element: <ComparisonNewPage /> },
+          { path: "comparisons/across", element: <ComparisonsAcrossPage /> },
+          { path: "comparisons/:comparisonId", element: <ComparisonDetailPage /> },
           { path: "*", element: <NotFoundPage inWorkspace /> },
         ],
       },

@@ -1,7 +1,8 @@
 import { createWriteStream } from "node:fs";
 import { once } from "node:events";
 import { createEvaluationPool } from "../pool/evaluation-pool.js";
-import { evaluateSweepChunkWith } from "../sweeps/evaluate-sweep-chunk.js";
+import { evaluateSweepChunkWith, type SweepRow } from "../sweeps/evaluate-sweep-chunk.js";
+import { runSweepSearch } from "../sweeps/sweep-search.js";
 import { planSweep, type SweepPlan } from "../sweeps/plan-sweep.js";
 import { SweepPlanError } from "../sweeps/sweep-plan-error.js";
 import { firstSweepIssue } from "../sweeps/sweep-issue.js";
@@ -45,27 +46,29 @@ export function planSweepSpec(value: unknown): { spec: SweepSpec; plan: SweepPla
 
 /**
  * `loopyard sweep FILE`: reads a sweep spec, plans it (planSweep), evaluates every candidate of its
- * design on every variant in a worker pool of `workers` threads (evaluateSweepChunkWith) and writes
- * one row per candidate and variant (see sweepLines). Search designs choose their candidates as they
- * run and are refused. Throws a CliInputError for a bad file, JSON or spec.
+ * design on every variant in a worker pool of `workers` threads (evaluateSweepChunkWith; a search
+ * design generation by generation, runSweepSearch) and writes one row per candidate and variant
+ * (see sweepLines). Throws a CliInputError for a bad file, JSON or spec.
  */
 export async function sweepCommand(source: string, options: SweepCommandOptions): Promise<void> {
   const { spec, plan } = planSweepSpec(await readSpec(source));
-  if (plan.isSearch) {
-    throw new CliInputError("design: the CLI runs grid, latin-hypercube, sobol and random designs; run a search design on the server.", "design");
-  }
   const out = options.out === undefined ? process.stdout : await openOutput(options.out);
   const pool = createEvaluationPool({ workers: options.workers });
   const progress = createProgressReporter(options.progress, plan.budget);
-  let chunk;
+  let rows: SweepRow[];
   try {
-    chunk = await evaluateSweepChunkWith(plan, { start: 0, end: plan.budget }, (batch) => pool.evaluate(batch, { onProgress: (done) => progress.update(done) }));
+    if (plan.isSearch) {
+      // A search asks for its candidates generation by generation, up to its budget.
+      rows = await runSweepSearch(plan, (batch) => pool.evaluate(batch), (done) => progress.update(done));
+    } else {
+      rows = (await evaluateSweepChunkWith(plan, { start: 0, end: plan.budget }, (batch) => pool.evaluate(batch, { onProgress: (done) => progress.update(done) }))).rows;
+    }
   } finally {
     await pool.close();
   }
   progress.finish();
   let pending: string[] = [];
-  for (const line of sweepLines({ parameters: plan.parameters, variants: variantNames(spec), criteria: plan.criteria, rows: chunk.rows }, options.format)) {
+  for (const line of sweepLines({ parameters: plan.parameters, variants: variantNames(spec), criteria: plan.criteria, rows }, options.format)) {
     pending.push(line);
     if (pending.length >= LINES_PER_WRITE) {
       if (!out.write(pending.join(""))) await once(out, "drain");

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { textField } from "../schemas/text.js";
 import { MAX_FAMILY_VARIANTS, MAX_TITLE_LENGTH } from "../limits.js";
 import { plantModelSchema } from "../plants/plant.js";
 import type { Plant } from "../plants/plant.js";
@@ -14,14 +15,14 @@ import { checkSweepDefinition, sweepDefinitionFields, withDefaultFilter } from "
  */
 export const sweepSpecSchema = z
   .strictObject({
-    name: z.string().trim().min(1, "give the sweep a name").max(MAX_TITLE_LENGTH, `keep the name under ${MAX_TITLE_LENGTH} characters`).optional(),
+    name: textField({ label: "name", min: 1, required: "give the sweep a name", max: MAX_TITLE_LENGTH }).optional(),
     ...sweepDefinitionFields,
     family: z.strictObject({
-      name: z.string().trim().max(MAX_TITLE_LENGTH, `keep the family name under ${MAX_TITLE_LENGTH} characters`).optional(),
+      name: textField({ label: "family name", max: MAX_TITLE_LENGTH }).optional(),
       variants: z
         .array(
           z.strictObject({
-            label: z.string().trim().max(MAX_TITLE_LENGTH, `keep the label under ${MAX_TITLE_LENGTH} characters`).optional(),
+            label: textField({ label: "label", max: MAX_TITLE_LENGTH }).optional(),
             plant: plantModelSchema,
             parameters: z.record(z.string(), z.number({ error: "every variant parameter must be a number" }).finite("every variant parameter must be finite")).optional(),
           }),

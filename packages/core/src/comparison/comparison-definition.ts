@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { textField } from "../schemas/text.js";
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 import {
   checkComparisonSweepFields,
@@ -39,7 +40,7 @@ export const quadraticContenderSchema = z.strictObject({
   criterion: z.literal("quadratic", { error: 'criterion must be "quadratic" (other criteria are given by their id)' }),
   q: finite("q").min(0, "q must be ≥ 0").default(1),
   r: finite("r").min(0, "r must be ≥ 0"),
-  label: z.string().trim().min(1, "label must not be empty").max(40, "keep the label under 40 characters").optional(),
+  label: textField({ label: "label", min: 1, required: "label must not be empty", max: 40 }).optional(),
 });
 
 /** A contender: a criterion id, or a weighted quadratic cost { criterion: "quadratic", q?, r, label? }. */

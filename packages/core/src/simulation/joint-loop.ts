@@ -355,7 +355,9 @@ class JointLoop {
       const heldRate = this.history ? this.demandRateAct(t + hi, this.zNew, this.fEnd) : 0;
       this.swapEnd();
       t += hi;
-      this.refresh(t, held);
+      // The actuator is continuous at a switch (held only for the history's left limit): a gap of
+      // the bisection's size between u_s and the ramp must not read as a jump that starts a ramp.
+      this.refresh(t, NaN);
       if (this.history) this.history.push(t, held, heldRate, this.uAct, this.actRate(t));
       if (this.queue) this.queue.add(t, 1);
     }

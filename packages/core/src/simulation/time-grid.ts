@@ -1,4 +1,4 @@
-import { MAX_SIMULATION_SAMPLES } from "../sweeps/sweep-input.js";
+import { MAX_SIMULATION_SAMPLES } from "../limits.js";
 
 /**
  * The uniform time grid t_k = k·dt, k = 0…N, N = round(horizon/dt), shared by every simulation.

@@ -15,8 +15,14 @@ import { isSchurStable } from "./schur-cohn.js";
  * pole on the unit circle in exact arithmetic (an integrator left without feedback) from being called stable.
  */
 export const SAMPLED_STABILITY_TOLERANCE = 1e-12;
-/** Largest closed-loop order judged by eigenvalues; larger loops (long dead times) go to the Schur–Cohn recursion. */
-export const MAX_SAMPLED_EIGEN_ORDER = 120;
+/**
+ * Largest closed-loop order judged by eigenvalues (O(N³); about 1 ms at N = 14 on the development
+ * machine); larger loops — long dead times in samples — go to the O(N²) Schur–Cohn recursion (about
+ * 2 ms at N = 214). The recursion works on polynomial coefficients, which blur roots that cluster
+ * near z = 1 (several slow poles at a short sample time, |1 − z| ≲ 1e-3): there the verdict is only
+ * as good as those coefficients.
+ */
+export const MAX_SAMPLED_EIGEN_ORDER = 24;
 /** Largest closed-loop order judged at all (O(N²) Schur–Cohn); beyond, the verdict is left to the simulation. */
 export const MAX_SAMPLED_ORDER = 4000;
 /** Relative tolerance within which θ counts as a whole number of samples (as the grid loop). */

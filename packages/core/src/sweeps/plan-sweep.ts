@@ -122,7 +122,7 @@ export function planSweep(definition: SweepShape, models: readonly Plant[]): Swe
   };
   const checkRange = (start: number, end: number) => {
     if (!(Number.isInteger(start) && Number.isInteger(end) && 0 <= start && start <= end && end <= budget)) {
-      throw new RangeError(`candidates [${start}, ${end}) lie outside the sweep's ${budget} candidates`);
+      throw new RangeError(`chunk [${start}, ${end}) lies outside the sweep's ${budget} candidates`);
     }
   };
   const controllerOf = (values: ArrayLike<number>, offset = 0) => controllerFromVector(structure, values, offset);

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { textField } from "../schemas/text.js";
 import { CRITERION_IDS, type CriterionId } from "../criteria/criterion-id.js";
 import { antiWindupSchema, CONTROLLER_KINDS, type ControllerKind } from "../controllers/controller.js";
 import { controllerParameter } from "../controllers/controller-parameters.js";
@@ -165,12 +166,12 @@ export type SweepAggregate = z.infer<typeof sweepAggregateSchema>;
  * `plantRevisionId`.
  */
 export const sweepFamilySchema = z.object({
-  name: z.string().trim().max(MAX_TITLE_LENGTH, `keep the family name under ${MAX_TITLE_LENGTH} characters`).optional(),
+  name: textField({ label: "family name", max: MAX_TITLE_LENGTH }).optional(),
   variants: z
     .array(
       z.object({
         plantRevisionId: z.string().uuid("choose a plant revision"),
-        label: z.string().trim().max(MAX_TITLE_LENGTH, `keep the label under ${MAX_TITLE_LENGTH} characters`).optional(),
+        label: textField({ label: "label", max: MAX_TITLE_LENGTH }).optional(),
         parameters: z.record(z.string(), finite("every variant parameter")).optional(),
       }),
     )
@@ -419,7 +420,7 @@ export function checkSweepDefinition(s: SweepShape, ctx: z.RefinementCtx): void 
  */
 export const sweepInputSchema = z
   .object({
-    name: z.string().trim().min(1, "give the sweep a name").max(MAX_TITLE_LENGTH, `keep the name under ${MAX_TITLE_LENGTH} characters`),
+    name: textField({ label: "name", min: 1, required: "give the sweep a name", max: MAX_TITLE_LENGTH }),
     plantRevisionId: z.string().uuid("choose a plant revision"),
     ...sweepDefinitionFields,
     family: sweepFamilySchema.optional(),

@@ -162,6 +162,26 @@ describe("loopyard sweep", () => {
     expectOneSentence(stderr, 'ranges.kd: "kd" is not a parameter of pi; use kp, ki, sampleTime');
   });
 
+  it("loopyard sweep runs a search design generation by generation within its budget, improving on its first simplexes", async () => {
+    // Budget: starts × iterations = 2 × 15 = 30 evaluations (searchBudget). Nelder–Mead only moves to
+    // better vertices, so the best IAE found is at most the best of the first simplexes (Nelder & Mead 1965).
+    const spec = {
+      ...SWEEP,
+      family: { variants: [SWEEP.family.variants[0]] },
+      ranges: { kp: { min: 0.5, max: 8 }, ki: { min: 0.05, max: 1 } },
+      design: { kind: "search", method: "nelder-mead", criterion: "iae", starts: 2, iterations: 15, seed: 3 },
+      criteria: ["iae", "effort"],
+    };
+    const { code, stdout } = await loopyard(["sweep", specFile("search.json", spec), "--workers", "1"]);
+    expect(code).toBe(0);
+    const rows = stdout.trimEnd().split("\n").slice(1).map((line) => line.split(","));
+    expect(rows.length).toBeLessThanOrEqual(30);
+    expect(rows.map((r) => Number(r[0]))).toEqual(rows.map((_, i) => i));
+    const iae = (r: string[]) => (r[4] === "stable" ? Number(r[5]) : Infinity);
+    const firstSimplexes = Math.min(...rows.slice(0, 6).map(iae));
+    expect(Math.min(...rows.map(iae))).toBeLessThanOrEqual(firstSimplexes);
+  });
+
   it("when --workers is not a whole number, then exit 2 naming the option", async () => {
     const { code, stderr } = await loopyard(["sweep", specFile("w.json", SWEEP), "--workers", "two"]);
     expect(code).toBe(2);

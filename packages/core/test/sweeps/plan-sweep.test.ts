@@ -37,6 +37,44 @@ describe("planSweep", () => {
     expect(() => plan.controllerAt(3)).toThrow(RangeError);
   });
 
+  it("planSweep of a first-format PID sweep stores kp, ki, kd and the derived tf = kd/(10·kp) (the version-1 rule), and rebuilds the vector from them", () => {
+    const plan = planSweep(
+      sweepInputSchema.parse({
+        name: "v1",
+        plantRevisionId: REVISION,
+        ranges: { kp: { min: 2, max: 2, count: 1 }, ki: { min: 0.5, max: 0.5, count: 1 }, kd: { min: 0, max: 1, count: 2 } },
+        scenario: { horizon: 10, dt: 0.01 },
+      }),
+      [threeLags],
+    );
+    expect(plan.parameters).toEqual(["kp", "ki", "kd", "tf"]);
+    expect(plan.evaluation).toEqual({ poles: false });
+    const params = plan.parametersOf(plan.controllerAt(1));
+    expect(params.slice(0, 3)).toEqual([2, 0.5, 1]);
+    // tf = kd/(n·kp) = 1/(10·2) (DEFAULT_DERIVATIVE_FILTER).
+    expect(params[3]).toBeCloseTo(1 / 20, 15);
+    expect(Array.from(plan.tunableOf(params))).toEqual([2, 0.5, 1]);
+  });
+
+  it("planSweep of a state-feedback sweep stores the gains k[i] then n, with criterion options passed to evaluation", () => {
+    // 1/(s² + 3s + 2) has two states in its controllable canonical realisation.
+    const twoStates: Plant = { kind: "transfer-function", num: [1], den: [1, 3, 2], delay: 0 };
+    const plan = planSweep(
+      sweepInputSchema.parse({
+        name: "sf",
+        plantRevisionId: REVISION,
+        structure: "state-feedback",
+        ranges: { "k[0]": { min: -1, max: 1, count: 2 }, "k[1]": { min: 0, max: 2, count: 2 } },
+        fixed: { n: 3 },
+        scenario: { horizon: 10, dt: 0.01 },
+        criterionOptions: { q: 2 },
+      }),
+      [twoStates],
+    );
+    expect(plan.evaluation).toEqual({ poles: false, criterion: { q: 2 } });
+    expect(plan.parametersOf(plan.controllerAt(3))).toEqual([1, 2, 3]);
+  });
+
   it("planSweep refuses state feedback whose gains are not one per plant state, naming ranges", () => {
     const sf = sweepInputSchema.parse({
       name: "sf",

@@ -35,7 +35,7 @@ const CHOSEN_PASSWORD: Record<string, "password" | "newPassword"> = {
  * is replaced by its normalised form; email and passwords have length caps; a password being chosen
  * is not on the common-password list. 400 with a sentence naming the field.
  */
-export const authInputGuard: RequestHandler = (req, _res, next) => {
+export const authInputGuard: RequestHandler = async (req, _res, next) => {
   if (req.method !== "POST" || typeof req.body !== "object" || req.body === null || Array.isArray(req.body)) {
     next();
     return;
@@ -48,7 +48,7 @@ export const authInputGuard: RequestHandler = (req, _res, next) => {
   if (parsed.data.name !== undefined) (req.body as { name: string }).name = parsed.data.name;
   const field = CHOSEN_PASSWORD[req.path];
   const chosen = field === undefined ? undefined : parsed.data[field];
-  if (typeof chosen === "string" && isCommonPassword(chosen)) {
+  if (typeof chosen === "string" && (await isCommonPassword(chosen))) {
     next(badRequest(`${field}: this password is on the list of the most common passwords that guessing scripts try first; choose another (a few unrelated words work well).`, field));
     return;
   }

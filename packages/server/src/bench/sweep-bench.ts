@@ -14,7 +14,7 @@ import type { AddressInfo } from "node:net";
 import { availableParallelism, cpus } from "node:os";
 import { join as joinPath, resolve as resolvePath } from "node:path";
 import pg from "pg";
-import { POINTS_BINARY_TYPE, evaluateBatch, seededRandomDesign, sweepInputSchema, sweepStructure } from "@loopyard/core";
+import { DEFAULT_MAX_CONCURRENT_SWEEPS, MAX_SWEEP_CANDIDATES, POINTS_BINARY_TYPE, evaluateBatch, seededRandomDesign, sweepInputSchema, sweepStructure } from "@loopyard/core";
 import type { Plant, Scenario, SweepDetailDto } from "@loopyard/core";
 import { createEvaluationPool } from "@loopyard/core/pool";
 import { createApp } from "../app.js";
@@ -128,7 +128,7 @@ async function main(): Promise<void> {
       publicUrl: base,
       // The built web app, so the sweep's page can be timed in chromium at the end.
       webDist: existsSync(joinPath(WEB_DIST, "index.html")) ? WEB_DIST : null,
-      limits: { maxCandidates: 1_000_000, maxConcurrentSweeps: 3 },
+      limits: { maxCandidates: MAX_SWEEP_CANDIDATES, maxConcurrentSweeps: DEFAULT_MAX_CONCURRENT_SWEEPS },
     });
     http.on("request", app.app);
     await app.jobs.ready;

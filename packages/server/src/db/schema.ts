@@ -276,4 +276,94 @@ export const worker = pgTable("worker", {
   heartbeatAt: timestamp("heartbeat_at", { withTimezone: true }).defaultNow().notNull(),
 });
 
+// ---------------------------------------------------------------- comparisons (criteria against each other)
+
+/** Status of a comparison; the same states as a sweep's. */
+export const comparisonStatusEnum = pgEnum("comparison_status", ["queued", "running", "finished", "failed", "cancelled"]);
+
+/** State of one piece of a comparison's work (a pre-scan chunk or a contender's refinement), one pg-boss job each. */
+export const comparisonTaskStatusEnum = pgEnum("comparison_task_status", ["pending", "done", "failed"]);
+
+/**
+ * A comparison: contending criteria pitted against each other on one family, structure, box and
+ * scenario. definition: the ComparisonInput as submitted (family by plant revisions), frozen when it
+ * starts. It runs as jobs: the pre-scan in chunks (comparison_chunk), then one refinement per
+ * contender (comparison_pick), then one analysis whose result (cross-score, per variant, agreement,
+ * stability, summary) is stored in `result`. prescan_total: candidates of the pre-scan;
+ * contenders: how many picks.
+ */
+export const comparison = pgTable(
+  "comparison",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    definition: jsonb("definition").notNull(),
+    status: comparisonStatusEnum("status").notNull().default("queued"),
+    prescanTotal: integer("prescan_total").notNull(),
+    contenders: integer("contenders").notNull(),
+    result: jsonb("result"),
+    error: text("error"),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [
+    index("comparison_workspace_created_idx").on(table.workspaceId, table.createdAt),
+    index("comparison_unfinished_idx")
+      .on(table.status)
+      .where(sql`${table.status} in ('queued', 'running')`),
+  ],
+);
+
+/**
+ * One chunk of a comparison's pre-scan: design points [start, end), one pg-boss job. `data` holds
+ * the chunk's evaluated points as core returns them (JSON; non-finite numbers as strings), stored
+ * in the same transaction that marks the chunk done.
+ */
+export const comparisonChunk = pgTable(
+  "comparison_chunk",
+  {
+    comparisonId: uuid("comparison_id")
+      .notNull()
+      .references(() => comparison.id, { onDelete: "cascade" }),
+    chunk: integer("chunk").notNull(),
+    start: integer("start").notNull(),
+    end: integer("end").notNull(),
+    status: comparisonTaskStatusEnum("status").notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    data: jsonb("data"),
+    error: text("error"),
+    workerId: text("worker_id"),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [primaryKey({ columns: [table.comparisonId, table.chunk] })],
+);
+
+/**
+ * The pick of one contender (by its index in the definition's contenders): the local refinement
+ * from the pre-scan's best points, one pg-boss job, stored with its completion in one transaction.
+ */
+export const comparisonPick = pgTable(
+  "comparison_pick",
+  {
+    comparisonId: uuid("comparison_id")
+      .notNull()
+      .references(() => comparison.id, { onDelete: "cascade" }),
+    contender: integer("contender").notNull(),
+    status: comparisonTaskStatusEnum("status").notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    data: jsonb("data"),
+    error: text("error"),
+    workerId: text("worker_id"),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [primaryKey({ columns: [table.comparisonId, table.contender] })],
+);
+
 export const authSchema = { user, session, account, verification };

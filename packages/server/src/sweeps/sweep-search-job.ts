@@ -1,26 +1,8 @@
-import { createNelderMeadSearch, createNsga2Search, searchObjectiveMatrix } from "@loopyard/core";
-import type { CriterionId, NelderMeadSearch, Nsga2Search, SweepBatchEvaluator, SweepPlan } from "@loopyard/core";
+import { createSweepSearch, searchObjectiveMatrix } from "@loopyard/core";
+import type { SweepBatchEvaluator } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { finishSearchSweep, storedAggregates, storeSearchGeneration } from "./sweep-chunk-repository.js";
 import { evaluateCandidates, type SweepEvaluationContext } from "./sweep-evaluation.js";
-
-type Search = (NelderMeadSearch | Nsga2Search) & { ask(): Float64Array; tell(values: Float64Array): void; readonly done: boolean };
-
-/** The ask/tell search of a plan's search design (core createNelderMeadSearch / createNsga2Search), fresh and deterministic. */
-function createSearch(plan: SweepPlan): { search: Search; objectives: CriterionId[] } {
-  const design = plan.definition.design;
-  if (design.kind !== "search") throw new Error("not a search design");
-  if (design.method === "nelder-mead") {
-    return {
-      search: createNelderMeadSearch(plan.space, { starts: design.starts, iterations: design.iterations, seed: design.seed }) as Search,
-      objectives: [design.criterion],
-    };
-  }
-  return {
-    search: createNsga2Search(plan.space, { population: design.population, generations: design.generations, seed: design.seed }) as Search,
-    objectives: [...plan.criteria],
-  };
-}
 
 /**
  * One generation of a search sweep as a job. The search is deterministic (seeded), so the job
@@ -31,7 +13,7 @@ function createSearch(plan: SweepPlan): { search: Search; objectives: CriterionI
  * Returns null when the sweep is finished.
  */
 export async function runSearchGeneration(db: Database, context: SweepEvaluationContext, evaluate: SweepBatchEvaluator): Promise<number | null> {
-  const { search, objectives } = createSearch(context.plan);
+  const { search, objectives } = createSweepSearch(context.plan);
   const budget = context.plan.budget;
   const criteria = context.plan.criteria;
   const stored = await storedAggregates(db, context.sweepId);

@@ -16,4 +16,10 @@ export const queryKeys = {
     ["workspace", slug, "sweeps", sweepId, "front", x, y] as const,
   response: (slug: string, sweepId: string, index: number, variant = 0) =>
     ["workspace", slug, "sweeps", sweepId, "response", index, variant] as const,
+  // Comparisons of criteria.
+  comparisons: (slug: string) => ["workspace", slug, "comparisons"] as const,
+  comparison: (slug: string, id: string) => ["workspace", slug, "comparisons", id] as const,
+  comparisonResult: (slug: string, id: string) => ["workspace", slug, "comparisons", id, "result"] as const,
+  comparisonResponses: (slug: string, id: string, variant: number | null) => ["workspace", slug, "comparisons", id, "responses", variant ?? "worst"] as const,
+  comparisonsAcross: (slug: string, judge: string) => ["workspace", slug, "comparisons", "across", judge] as const,
 };

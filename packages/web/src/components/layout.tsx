@@ -18,6 +18,7 @@ const NAV = [
   { to: "", label: "Home", end: true, testId: "nav-home" },
   { to: "plants", label: "Library", end: false, testId: "nav-library" },
   { to: "sweeps", label: "Sweeps", end: false, testId: "nav-sweeps" },
+  { to: "comparisons", label: "Compare criteria", end: false, testId: "nav-comparisons" },
 ] as const;
 
 /** The frame of every workspace page: top bar (wordmark, workspace, user menu), left nav, content. */

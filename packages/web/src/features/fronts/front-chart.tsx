@@ -95,14 +95,8 @@ export function FrontChart({
   // size estimated from the container's width before plotly first draws, corrected if plotly's differs.
   const box = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState<number | null>(null);
-  useLayoutEffect(() => {
-    const element = box.current;
-    if (!element) return;
-    setWidth(element.clientWidth);
-    const observer = new ResizeObserver(() => setWidth(element.clientWidth));
-    observer.observe(element);
-    return () => observer.disconnect();
-  }, []);
+  // Read once before the first draw; later sizes come from plotly after it resizes (onRelayout → measure).
+  useLayoutEffect(() => setWidth(box.current?.clientWidth ?? null), []);
   const estimated = width === null ? null : { width: Math.max(1, width - MARGIN.l - MARGIN.r), height: CHART_HEIGHT - MARGIN.t - MARGIN.b };
   const [measured, setMeasured] = useState<{ width: number; height: number; estimated: number } | null>(null);
   const size = measured !== null && measured.estimated === width ? measured : estimated;

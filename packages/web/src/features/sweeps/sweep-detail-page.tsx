@@ -63,7 +63,19 @@ export function SweepDetailPage() {
           </span>
         }
         back={back}
-        actions={runAgain}
+        actions={
+          <>
+            {/* Comparisons: the same family, structure and box with criteria pitted against each other. */}
+            <ButtonLink
+              to={`/w/${slug}/comparisons/new?sweep=${encodeURIComponent(s.id)}`}
+              disabledReason={workspace.data && !canEdit ? roleSentence("Starting comparisons", "engineer", workspaceName, role) : null}
+              testId="compare-criteria-from-sweep"
+            >
+              Compare criteria
+            </ButtonLink>
+            {runAgain}
+          </>
+        }
         subtitle={
           <>
             <Link to={`/w/${slug}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="text-ink hover:text-moss">
