@@ -212,6 +212,8 @@ export { solveLinear } from "./linear-algebra/solve-linear.js";
 export { resolveScenario } from "./simulation/resolve-scenario.js";
 export { gaussianNoise } from "./simulation/gaussian-noise.js";
 export { DormandPrince, DEFAULT_TOLERANCE } from "./simulation/dormand-prince.js";
+export { WorkBudgetError, withWorkBudget } from "./simulation/work-budget.js";
+export type { Budgeted, WorkBudget } from "./simulation/work-budget.js";
 export { continuousClosedLoop, closedLoopSteadyState, LOOP_INPUTS } from "./simulation/continuous-closed-loop.js";
 export { runExactLoop, scoreExactSetpointLoop, FAST_CRITERIA } from "./simulation/exact-loop.js";
 export { runGridLoop } from "./simulation/grid-loop.js";

@@ -17,6 +17,7 @@ import { candidateIndexGuard } from "./http/candidate-index-guard.js";
 import { urlGuard } from "./http/url-guard.js";
 import { BackgroundTasks } from "./http/background-tasks.js";
 import { serveWebApp, webAppMissing } from "./http/web-app.js";
+import { createCompute } from "./compute/compute.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
@@ -56,6 +57,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   const { db } = database;
   const auth = createAuth(db, config);
   const background = new BackgroundTasks();
+  const compute = createCompute();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
@@ -110,11 +112,11 @@ export function createApp(config: AppConfig): LoopyardApp {
 
   app.use("/api", requireSession(auth, sessions));
   app.use("/api/me", meRoutes(db, sessions));
-  app.use("/api/workspaces/:slug/plants", plantRoutes(db));
+  app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",
-    sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background),
+    sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
   app.use("/api/workspaces", workspaceRoutes(db));
@@ -139,6 +141,7 @@ export function createApp(config: AppConfig): LoopyardApp {
         await comparisonJobs.close();
         await jobs.close();
         await background.settle();
+        await compute.close();
         await database.close();
       })();
       return closing;

@@ -1,4 +1,5 @@
 import type { CompiledSystem } from "../expressions/compile-system.js";
+import { chargeEvaluations } from "./work-budget.js";
 
 /*
  * Dormand–Prince 5(4) tableau, as in J. R. Dormand and P. J. Prince, "A family of embedded
@@ -83,6 +84,7 @@ export class DormandPrince {
     let h = this.h > 0 ? this.h : (t1 - t0);
     f(t, x, parameters, u0, k1);
     this.evaluations++;
+    chargeEvaluations(1);
     for (let attempt = 0; attempt < MAX_ATTEMPTS; attempt++) {
       const remaining = t1 - t;
       if (remaining <= 1e-14 * Math.max(1, Math.abs(t1))) return true;
@@ -101,6 +103,7 @@ export class DormandPrince {
       for (let i = 0; i < n; i++) next[i] = x[i] + step * (B1 * k1[i] + B3 * k3[i] + B4 * k4[i] + B5 * k5[i] + B6 * k6[i]);
       f(t + step, next, parameters, u0 + uRate * (t + step - t0), k7);
       this.evaluations += 6;
+      chargeEvaluations(6);
       let err = 0;
       for (let i = 0; i < n; i++) {
         const e = step * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);

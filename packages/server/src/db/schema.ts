@@ -166,6 +166,12 @@ export const plantRevision = pgTable(
     name: text("name").notNull(),
     unitsNote: text("units_note").notNull().default(""),
     model: jsonb("model").notNull(),
+    /**
+     * The revision's poles and open-loop step as its page shows them ({ version, poles, step }),
+     * computed once off the main thread when the revision is created (null for revisions stored
+     * before; filled in on their first view). Derived from `model` alone.
+     */
+    preview: jsonb("preview"),
     createdBy: text("created_by")
       .notNull()
       .references(() => user.id),

@@ -1,40 +1,50 @@
-import { DeclaredNameError, ExpressionError, nonlinearPlantModel, openLoopStep, plantPoles, suggestHorizon } from "@loopyard/core";
 import type { Plant } from "@loopyard/core";
+import type { ComputeFailure, PlantPreview } from "@loopyard/core/pool";
+import { limitExceeded, type Compute } from "../compute/compute.js";
 import { badRequest, type HttpError } from "../http/http-error.js";
 
 /** Samples of the open-loop step response over the suggested horizon. */
 export const STEP_SAMPLES = 600;
 
 /**
- * Checks that the library can work with a plant model before it is stored: a nonlinear plant's
- * expressions compile (core compileSystem's whitelist; nothing typed is run as JavaScript) and its
- * operating point is finite; every kind has poles and an open-loop step. Throws a 400 naming
- * `model.<field>` (e.g. model.derivatives.0 for the offending expression).
+ * Version of a stored preview: raise it when what the plantPreview task returns changes, so that
+ * previews stored by an earlier version are computed again on their next view.
  */
-export function assertUsablePlantModel(model: Plant): void {
-  try {
-    if (model.kind === "nonlinear") nonlinearPlantModel(model);
-    const horizon = suggestHorizon(model);
-    plantPoles(model);
-    openLoopStep(model, horizon, horizon / STEP_SAMPLES);
-  } catch (error) {
-    const http = toBadRequest(error);
-    if (http) throw http;
-    throw error;
-  }
+export const PREVIEW_VERSION = 1;
+
+/** A preview as stored with its revision. */
+export interface StoredPreview extends PlantPreview {
+  version: number;
+}
+
+/**
+ * Checks that the library can work with a plant model and computes what its page shows, on the
+ * server's compute pool (core's plantPreview task: a nonlinear plant's expressions compile — core
+ * compileSystem's whitelist; nothing typed is run as JavaScript —, its poles, its open-loop step over
+ * the suggested horizon), under a work budget and a time limit. Throws a 400 naming `model.<field>`
+ * for a refused model (e.g. model.derivatives.0 for the offending expression) and a 422 when the
+ * step needs more work than a request may do (a very stiff model).
+ */
+export async function previewPlantModel(compute: Compute, model: Plant): Promise<StoredPreview> {
+  const outcome = await compute.run("plantPreview", { model, samples: STEP_SAMPLES });
+  if (outcome.ok) return { version: PREVIEW_VERSION, ...outcome.value };
+  throw (
+    limitExceeded(
+      outcome,
+      "The open-loop step of this plant",
+      "the model is probably very stiff (time constants far apart); rescale its gains or time constants and try again.",
+    ) ?? toBadRequest(outcome)
+  );
 }
 
 /** The 400 for a refused model: the compiler's errors carry their field; core's RangeErrors name `plant.<field>`. */
-function toBadRequest(error: unknown): HttpError | null {
-  if (error instanceof ExpressionError || error instanceof DeclaredNameError) {
-    const field = error.field ? `model.${error.field}` : "model";
-    return badRequest(`${field}: ${error.message}`, field);
+function toBadRequest(failure: ComputeFailure): HttpError {
+  if (failure.error === "ExpressionError" || failure.error === "DeclaredNameError") {
+    const field = failure.field ? `model.${failure.field}` : "model";
+    return badRequest(`${field}: ${failure.reason}`, field);
   }
-  if (error instanceof RangeError || error instanceof TypeError) {
-    const named = /^plant\.([\w.[\]]+)/.exec(error.message);
-    const field = named ? `model.${named[1]}` : "model";
-    const message = error.message.replace(/^plant\.([\w.[\]]+)/, field);
-    return badRequest(message.startsWith(field) ? message : `${field}: ${message}`, field);
-  }
-  return null;
+  const named = /^plant\.([\w.[\]]+)/.exec(failure.reason);
+  const field = named ? `model.${named[1]}` : "model";
+  const message = failure.reason.replace(/^plant\.([\w.[\]]+)/, field);
+  return badRequest(message.startsWith(field) ? message : `${field}: ${message}`, field);
 }

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, max } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, max } from "drizzle-orm";
 import type { Plant, PlantInputParsed, PlantRevisionDto, PlantSummaryDto, UserDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { plant, plantRevision, user } from "../db/schema.js";
@@ -135,7 +135,7 @@ export async function findRevisionById(db: Database, revisionId: string): Promis
 }
 
 /** Creates a plant and its revision 1 in one transaction; returns the plant id. */
-export async function insertPlant(db: Database, workspaceId: string, userId: string, input: PlantInputParsed): Promise<string> {
+export async function insertPlant(db: Database, workspaceId: string, userId: string, input: PlantInputParsed, preview: unknown = null): Promise<string> {
   return db.transaction(async (tx) => {
     const [created] = await tx
       .insert(plant)
@@ -148,6 +148,7 @@ export async function insertPlant(db: Database, workspaceId: string, userId: str
       name: input.name,
       unitsNote: input.unitsNote,
       model: input.model,
+      preview,
       createdBy: userId,
     });
     return created.id;
@@ -159,7 +160,7 @@ export async function insertPlant(db: Database, workspaceId: string, userId: str
  * locked for the transaction so that two simultaneous edits get consecutive numbers.
  * Returns the new revision number.
  */
-export async function insertRevision(db: Database, plantId: string, userId: string, input: PlantInputParsed): Promise<number> {
+export async function insertRevision(db: Database, plantId: string, userId: string, input: PlantInputParsed, preview: unknown = null): Promise<number> {
   return db.transaction(async (tx) => {
     await tx.select({ id: plant.id }).from(plant).where(eq(plant.id, plantId)).for("update");
     const [last] = await tx.select({ number: max(plantRevision.number) }).from(plantRevision).where(eq(plantRevision.plantId, plantId));
@@ -170,9 +171,25 @@ export async function insertRevision(db: Database, plantId: string, userId: stri
       name: input.name,
       unitsNote: input.unitsNote,
       model: input.model,
+      preview,
       createdBy: userId,
     });
     await tx.update(plant).set({ name: input.name, kind: input.model.kind, updatedAt: new Date() }).where(eq(plant.id, plantId));
     return number;
   });
+}
+
+/** The stored preview of a revision (poles and open-loop step), null when none is stored yet. */
+export async function findRevisionPreview(db: Database, revisionId: string): Promise<unknown> {
+  const rows = await db.select({ preview: plantRevision.preview }).from(plantRevision).where(eq(plantRevision.id, revisionId)).limit(1);
+  return rows[0]?.preview ?? null;
+}
+
+/**
+ * Stores the preview of a revision stored without one (or with an outdated one: `replace` true).
+ * The preview is derived from the model alone, so the model itself is never changed.
+ */
+export async function storeRevisionPreview(db: Database, revisionId: string, preview: unknown, replace: boolean): Promise<void> {
+  const where = replace ? eq(plantRevision.id, revisionId) : and(eq(plantRevision.id, revisionId), isNull(plantRevision.preview));
+  await db.update(plantRevision).set({ preview }).where(where);
 }

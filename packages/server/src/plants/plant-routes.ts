@@ -1,6 +1,7 @@
 import { Router } from "express";
 import { z } from "zod";
 import { plantInputSchema } from "@loopyard/core";
+import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
@@ -11,7 +12,7 @@ const detailQuerySchema = z.object({
 });
 
 /** /api/workspaces/:slug/plants */
-export function plantRoutes(db: Database): Router {
+export function plantRoutes(db: Database, compute: Compute): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading the plant library");
 
@@ -21,19 +22,19 @@ export function plantRoutes(db: Database): Router {
 
   router.post("/", memberOf(db, "engineer", "Creating plants"), async (req, res) => {
     const input = parseBody(plantInputSchema, req);
-    res.status(201).json(await createPlant(db, accessOf(req), input));
+    res.status(201).json(await createPlant(db, compute, accessOf(req), input));
   });
 
   router.get("/:plantId", canRead, async (req, res) => {
     const { revision } = parseQuery(detailQuerySchema, req);
     const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
-    res.json(await getPlantDetail(db, accessOf(req), plantId, revision));
+    res.json(await getPlantDetail(db, compute, accessOf(req), plantId, revision));
   });
 
   router.post("/:plantId/revisions", memberOf(db, "engineer", "Editing plants"), async (req, res) => {
     const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
     const input = parseBody(plantInputSchema, req);
-    res.status(201).json(await createRevision(db, accessOf(req), plantId, input));
+    res.status(201).json(await createRevision(db, compute, accessOf(req), plantId, input));
   });
 
   return router;

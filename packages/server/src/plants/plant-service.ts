@@ -1,10 +1,10 @@
-import { openLoopStep, plantPoles, suggestHorizon, downsampleIndices, pick } from "@loopyard/core";
 import type { PlantDetailDto, PlantInputParsed, PlantRevisionDto, PlantSummaryDto } from "@loopyard/core";
+import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { notFound } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
-import { assertUsablePlantModel, STEP_SAMPLES } from "./plant-model-check.js";
-import { findPlantWithRevisions, insertPlant, insertRevision, listPlantSummaries } from "./plant-repository.js";
+import { previewPlantModel, PREVIEW_VERSION, type StoredPreview } from "./plant-model-check.js";
+import { findPlantWithRevisions, findRevisionPreview, insertPlant, insertRevision, listPlantSummaries, storeRevisionPreview } from "./plant-repository.js";
 
 /** What the poles of a nonlinear plant are. */
 export const NONLINEAR_POLES_NOTE =
@@ -16,9 +16,14 @@ export async function listPlants(db: Database, access: MemberAccess): Promise<Pl
   return listPlantSummaries(db, access.workspace.id);
 }
 
-/** A plant with one revision (the latest unless `revisionNumber`), its poles and open-loop step. */
+/**
+ * A plant with one revision (the latest unless `revisionNumber`), its poles and open-loop step,
+ * read from the preview stored with the revision; a revision stored without one (before previews
+ * were stored) gets it computed once on the compute pool and stored.
+ */
 export async function getPlantDetail(
   db: Database,
+  compute: Compute,
   access: MemberAccess,
   plantId: string,
   revisionNumber?: number,
@@ -30,40 +35,43 @@ export async function getPlantDetail(
   if (!revision) {
     throw notFound(`${found.summary.name} has no revision ${revisionNumber}; it has revisions 1 to ${found.revisions.length}.`);
   }
+  const preview = await previewOf(db, compute, revision);
   return {
     plant: found.summary,
     revision,
     revisions: found.revisions.map(({ id, number, createdAt, createdBy }) => ({ id, number, createdAt, createdBy })),
-    poles: plantPoles(revision.model),
+    poles: preview.poles,
     polesNote: revision.model.kind === "nonlinear" ? NONLINEAR_POLES_NOTE : null,
-    step: stepOf(revision),
+    step: preview.step,
   };
 }
 
-function stepOf(revision: PlantRevisionDto): { t: number[]; y: number[] } {
-  const horizon = suggestHorizon(revision.model);
-  const { t, y } = openLoopStep(revision.model, horizon, horizon / STEP_SAMPLES);
-  const indices = downsampleIndices(t.length);
-  return { t: pick(t, indices), y: pick(y, indices) };
+async function previewOf(db: Database, compute: Compute, revision: PlantRevisionDto): Promise<StoredPreview> {
+  const stored = (await findRevisionPreview(db, revision.id)) as StoredPreview | null;
+  if (stored?.version === PREVIEW_VERSION) return stored;
+  const preview = await previewPlantModel(compute, revision.model);
+  await storeRevisionPreview(db, revision.id, preview, stored !== null);
+  return preview;
 }
 
-/** Adds a plant with its revision 1 to the library (engineer+ checked by the route). */
-export async function createPlant(db: Database, access: MemberAccess, input: PlantInputParsed): Promise<PlantDetailDto> {
-  assertUsablePlantModel(input.model);
-  const plantId = await insertPlant(db, access.workspace.id, access.user.id, input);
-  return getPlantDetail(db, access, plantId);
+/** Adds a plant with its revision 1 (and its preview) to the library (engineer+ checked by the route). */
+export async function createPlant(db: Database, compute: Compute, access: MemberAccess, input: PlantInputParsed): Promise<PlantDetailDto> {
+  const preview = await previewPlantModel(compute, input.model);
+  const plantId = await insertPlant(db, access.workspace.id, access.user.id, input, preview);
+  return getPlantDetail(db, compute, access, plantId);
 }
 
 /** Adds a new immutable revision; earlier revisions (and sweeps on them) stay as they were. */
 export async function createRevision(
   db: Database,
+  compute: Compute,
   access: MemberAccess,
   plantId: string,
   input: PlantInputParsed,
 ): Promise<PlantDetailDto> {
   const found = await findPlantWithRevisions(db, access.workspace.id, plantId);
   if (!found) throw notFound(PLANT_NOT_FOUND);
-  assertUsablePlantModel(input.model);
-  const number = await insertRevision(db, plantId, access.user.id, input);
-  return getPlantDetail(db, access, plantId, number);
+  const preview = await previewPlantModel(compute, input.model);
+  const number = await insertRevision(db, plantId, access.user.id, input, preview);
+  return getPlantDetail(db, compute, access, plantId, number);
 }

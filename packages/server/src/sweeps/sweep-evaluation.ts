@@ -22,13 +22,18 @@ export function definitionVariants(definition: SweepInputParsed): { plantRevisio
  * plants no longer fit.
  */
 export async function loadSweepPlan(db: Database, definition: SweepInputParsed): Promise<SweepPlan> {
+  return planSweep(definition, await loadSweepModels(db, definition));
+}
+
+/** The models of a definition's variants, in family order (see loadSweepPlan). */
+export async function loadSweepModels(db: Database, definition: SweepInputParsed): Promise<Plant[]> {
   const models: Plant[] = [];
   for (const [i, variant] of definitionVariants(definition).entries()) {
     const revision = await findRevisionById(db, variant.plantRevisionId);
     if (!revision) throw new SweepPlanError(definition.family ? `family.variants.${i}.plantRevisionId` : "plantRevisionId", "a plant revision of this sweep no longer exists");
     models.push(revision.model);
   }
-  return planSweep(definition, models);
+  return models;
 }
 
 export async function loadEvaluationContext(db: Database, sweepId: string, definition: SweepInputParsed): Promise<SweepEvaluationContext> {

@@ -2,6 +2,7 @@ import { Router, type Request } from "express";
 import { z } from "zod";
 import { firstSweepIssue, POINTS_BINARY_TYPE, sweepInputSchema, sweepIssues } from "@loopyard/core";
 import type { SweepInputParsed } from "@loopyard/core";
+import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
 import { parseIdParam, parseQuery, pathParam } from "../http/validation.js";
@@ -57,7 +58,7 @@ function parseSweepBody(req: Request): SweepInputParsed {
 }
 
 /** /api/workspaces/:slug/sweeps */
-export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits, background: BackgroundTasks): Router {
+export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLimits, background: BackgroundTasks, compute: Compute): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading sweeps");
   const sweepIdOf = (value: unknown) => parseIdParam(value, SWEEP_NOT_FOUND);
@@ -72,7 +73,7 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
     const created = await createSweep(db, jobs.start, access, input, limits);
     res.status(201).json(created);
     // The bound and the baselines follow from the definition: ready by the time the sweep has results.
-    background.run(`computing the references of sweep ${created.id}`, () => prepareReferences(db, access.workspace.id, created.id));
+    background.run(`computing the references of sweep ${created.id}`, () => prepareReferences(db, compute, access.workspace.id, created.id));
   });
 
   router.post("/:sweepId/cancel", memberOf(db, "engineer", "Cancelling sweeps"), async (req, res) => {
@@ -113,17 +114,17 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
     const { variant } = parseQuery(variantQuerySchema, req);
-    res.json(await getCandidateResponse(db, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
+    res.json(await getCandidateResponse(db, compute, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
   });
 
   router.get("/:sweepId/references", canRead, async (req, res) => {
-    res.json(await getReferences(db, accessOf(req), sweepIdOf(req.params.sweepId)));
+    res.json(await getReferences(db, compute, accessOf(req), sweepIdOf(req.params.sweepId)));
   });
 
   router.get("/:sweepId/candidates/:index/frequency", canRead, async (req, res) => {
     const index = candidateIndex(req.params.index);
     const { variant } = parseQuery(variantQuerySchema, req);
-    res.json(await getCandidateFrequency(db, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
+    res.json(await getCandidateFrequency(db, compute, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
   });
 
   return router;

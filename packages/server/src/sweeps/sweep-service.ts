@@ -2,15 +2,11 @@ import {
   canCancelSweep,
   CRITERION_IDS,
   DEFAULT_MAX_CONCURRENT_SWEEPS,
-  downsampleIndices,
-  IllPosedLoopError,
   MAX_SWEEP_CANDIDATES,
   nonDominatedSort,
   orientForMinimisation,
   paretoFront,
-  pick,
   planSweep,
-  simulateLoop,
   SweepPlanError,
 } from "@loopyard/core";
 import type {
@@ -23,13 +19,15 @@ import type {
   SweepInputParsed,
   SweepSummaryDto,
 } from "@loopyard/core";
+import type { ComputeFailure } from "@loopyard/core/pool";
+import { limitExceeded, type Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { badRequest, HttpError, notFound } from "../http/http-error.js";
 import { findPlantIdByName, findRevisionInWorkspace } from "../plants/plant-repository.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { findCandidate, findCandidates } from "./candidate-repository.js";
 import { candidateListJson, LIST_VARIANT_SCORES_UP_TO, stableScoresFast } from "./candidate-list-json.js";
-import { definitionVariants, loadSweepPlan } from "./sweep-evaluation.js";
+import { definitionVariants, loadSweepModels } from "./sweep-evaluation.js";
 import { fromScoreValue } from "./score-value.js";
 import { float64Column, int32Column, pointColumnsBytes } from "./points-repository.js";
 import { sweepVariantPlant } from "./sweep-variant-plant.js";
@@ -244,12 +242,14 @@ export async function frontOf(db: Database, sweep: SweepDetailDto, query: { x?: 
 
 /**
  * Closed-loop response of one candidate under the sweep's scenario, simulated on demand with core
- * simulateLoop (≤ 2000 points per trace) on one variant of the family (the first by default). The
- * controller is rebuilt from the stored parameters with the sweep's structure (controllerFromVector),
- * exactly as the runner evaluated it.
+ * simulateLoop (≤ 2000 points per trace) on one variant of the family (the first by default), on the
+ * server's compute pool under a work budget and time limit (422 past them). The controller is
+ * rebuilt from the stored parameters with the sweep's structure (controllerFromVector), exactly as
+ * the runner evaluated it.
  */
 export async function getCandidateResponse(
   db: Database,
+  compute: Compute,
   access: MemberAccess,
   sweepId: string,
   index: number,
@@ -264,35 +264,32 @@ export async function getCandidateResponse(
         : `This sweep has candidates 0 to ${sweep.total - 1}; there is no candidate ${index}.`,
     );
   }
-  const plan = await loadSweepPlan(db, sweep.definition);
-  const plant = sweepVariantPlant(plan, variant);
-  const controller = plan.controllerFromParameters(stored.params);
-  const trace = simulateOrExplain(() => simulateLoop(plant, controller, plan.scenario));
-  const indices = downsampleIndices(trace.t.length);
+  const models = await loadSweepModels(db, sweep.definition);
+  sweepVariantPlant(planSweep(sweep.definition, models), variant);
+  const outcome = await compute.run("candidateResponse", { definition: sweep.definition, models, params: stored.params, variant });
+  if (!outcome.ok) throw responseRefusal(outcome);
+  const trace = outcome.value;
   return {
     index,
     params: Object.fromEntries(sweep.parameters.map((name, i) => [name, stored.params[i] as number])),
     status: stored.status,
-    t: pick(trace.t, indices),
-    r: pick(trace.r, indices),
-    y: pick(trace.y, indices),
-    u: pick(trace.u, indices),
+    t: trace.t,
+    r: trace.r,
+    y: trace.y,
+    u: trace.u,
   };
 }
 
-function simulateOrExplain<T>(simulate: () => T): T {
-  try {
-    return simulate();
-  } catch (error) {
-    if (error instanceof IllPosedLoopError) {
-      throw new HttpError(
-        409,
-        "This candidate makes the loop ill-posed (1 + C·G vanishes at high frequency), so it has no response to show; choose another candidate.",
-      );
-    }
-    if (error instanceof RangeError || error instanceof TypeError) {
-      throw new HttpError(409, `This candidate could not be simulated (${error.message}); choose another candidate.`);
-    }
-    throw error;
+/** The answer for a candidate whose response could not be computed: 422 past a limit, 409 otherwise. */
+function responseRefusal(failure: ComputeFailure): HttpError {
+  const limited = limitExceeded(failure, "This candidate's response", "choose another candidate, or a scenario with a shorter horizon.");
+  if (limited) return limited;
+  if (failure.kind === "ill-posed") {
+    return new HttpError(
+      409,
+      "This candidate makes the loop ill-posed (1 + C·G vanishes at high frequency), so it has no response to show; choose another candidate.",
+    );
   }
+  return new HttpError(409, `This candidate could not be simulated (${failure.reason}); choose another candidate.`);
 }
+

@@ -1,0 +1,1 @@
+ALTER TABLE "plant_revision" ADD COLUMN "preview" jsonb;
