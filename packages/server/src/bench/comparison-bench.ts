@@ -89,6 +89,8 @@ async function main(): Promise<void> {
     await db.connect();
     const call = client(base);
     if ((await call("POST", "/api/auth/sign-up/email", { name: "Bench Runner", email: "bench@halvard.example", password: "ember-bench-2026" })).status !== 200) throw new Error("sign-up failed");
+    // Sign-up answers alike for new and taken addresses and signs nobody in: sign in next.
+    if ((await call("POST", "/api/auth/sign-in/email", { email: "bench@halvard.example", password: "ember-bench-2026" })).status !== 200) throw new Error("sign-in failed");
     const slug: string = (await call("POST", "/api/workspaces", { name: "Halvard Thermoworks — comparison bench" })).body.slug;
     const revisions: string[] = [];
     for (const v of VARIANTS) {
