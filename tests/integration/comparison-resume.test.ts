@@ -84,7 +84,9 @@ describe("the server killed mid-comparison", () => {
     const id: string = created.body.id;
     const before = await waitUntil(team.viewer, team.slug, id, (c) => c.progress.chunksDone >= 1, 60_000);
     await serverProcess.stop("SIGKILL");
-    expect(before.status).toBe("running");
+    // Mid-comparison, not finished: the answer reads the comparison's row and its chunk counts in two
+    // queries, so a chunk stored between them can show as done while the row still says queued.
+    expect(["queued", "running"]).toContain(before.status);
     expect(before.progress.picksDone).toBe(0);
 
     serverProcess = await startServerProcess(port);
