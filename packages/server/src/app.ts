@@ -29,6 +29,8 @@ import { createComparisonJobSystem, type ComparisonJobSystem } from "./compariso
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 // Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
 import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
+import { notificationRoutes } from "./mail/notification-routes.js";
+import { outboxRoutes } from "./mail/outbox-routes.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -63,6 +65,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   const background = new BackgroundTasks();
   const compute = createCompute();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
+    publicUrl: config.publicUrl,
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
@@ -70,6 +73,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   });
   const comparisonJobs = createComparisonJobSystem(db, config.databaseUrl, {
     after: jobs.ready,
+    publicUrl: config.publicUrl,
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
@@ -116,6 +120,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   });
 
   app.use("/api", requireSession(auth, sessions));
+  app.use("/api/me/notifications", notificationRoutes(db));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
@@ -124,6 +129,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
+  app.use("/api/workspaces/:slug/outbox", outboxRoutes(db, config.mail ?? null));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 

@@ -386,3 +386,18 @@ export const notificationSetting = pgTable(
   },
   (table) => [primaryKey({ columns: [table.userId, table.kind] })],
 );
+
+/**
+ * That the author of a sweep or comparison was told it ended (finished or failed): one row per run,
+ * inserted before the mail is queued, so that workers which each see the run end mail once.
+ */
+export const runMailNotice = pgTable(
+  "run_mail_notice",
+  {
+    runKind: text("run_kind").notNull(),
+    runId: uuid("run_id").notNull(),
+    status: text("status").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.runKind, table.runId] })],
+);
