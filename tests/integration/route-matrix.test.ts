@@ -143,6 +143,7 @@ beforeAll(async () => {
   other = await workspaceWithTeam(server.url, "Matrix other");
   const plantName = `Matrix secret plant ${randomUUID().slice(0, 8)}`;
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant(plantName));
+  expect(plant.status, JSON.stringify(plant.body)).toBe(201);
   const sweepName = `Matrix secret sweep ${randomUUID().slice(0, 8)}`;
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, tinySweep(sweepName, plant.body.revision.id));
   expect(sweep.status).toBe(201);
