@@ -63,7 +63,12 @@ export function Layout({ workspace, role, user, otherWorkspaces, onSignOut, sign
                   ))}
                 </div>
               ) : null}
-              <Link to={`${base}/notifications`} className="block rounded px-3 py-1.5 hover:bg-paper" data-testid="menu-notifications">
+              <Link
+                to={`${base}/notifications`}
+                onClick={(event) => event.currentTarget.closest("details")?.removeAttribute("open")}
+                className="block rounded px-3 py-1.5 hover:bg-paper"
+                data-testid="menu-notifications"
+              >
                 Notification settings
               </Link>
               <Link to="/workspaces/new" className="block rounded px-3 py-1.5 hover:bg-paper">

@@ -21,7 +21,7 @@ export function NotificationSettingsPage() {
     <div className="max-w-2xl space-y-5">
       <PageHeader title="Notification settings" subtitle={<>Mail goes to <span className="font-medium text-ink">{email}</span>. These settings hold in every workspace.</>} />
       {update.isError ? <ErrorNote error={update.error} title="The change was not saved" /> : null}
-      <Section title="Mail about your work" aside={update.isPending ? "Saving…" : "Saved as you switch"} testId="notification-settings">
+      <Section title="Mail about your work" aside={<span data-testid="notification-saving">{update.isPending ? "Saving…" : "Saved as you switch"}</span>} testId="notification-settings">
         <ul className="divide-y divide-line-soft">
           {work.map((row) => (
             <li key={row.kind} className="flex items-start gap-3 py-2.5">
@@ -30,7 +30,6 @@ export function NotificationSettingsPage() {
                 type="checkbox"
                 className="mt-1 size-4 accent-moss"
                 checked={row.enabled}
-                disabled={update.isPending}
                 onChange={(event) => toggle(row.kind, event.target.checked)}
                 data-testid={`notify-${row.kind}`}
               />
