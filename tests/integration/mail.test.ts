@@ -13,6 +13,7 @@ import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startMailSink, type MailConfig, type MailSink } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
+import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
 import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 import { freePort } from "./processes.js";
 
@@ -178,6 +179,32 @@ describe("mail through the local sink", () => {
     await waitForSweep(team.viewer, team.slug, again.body.id);
     await waitForMail(folder, (m) => m.subject === `Sweep finished: ${name} again`);
   });
+
+  it("when a comparison finishes, then its author gets a comparison-finished mail linking to the comparison's page", async () => {
+    const name = `Mail comparison ${Date.now()}`;
+    const created = await team.engineer.post(
+      `/api/workspaces/${team.slug}/comparisons`,
+      smallComparison(name, [revisionId], {
+        structure: "pi",
+        ranges: { kp: { min: 0.2, max: 5, scale: "log" }, ki: { min: 0.1, max: 2, scale: "log" } },
+        filter: undefined,
+        scenario: { kind: "setpoint-step", horizon: 5, dt: 0.01 },
+        contenders: ["iae", "ise"],
+        judges: ["overshoot"],
+        constraints: {},
+        budget: { prescan: 16, starts: 1, evaluations: 20, stability: false },
+      }),
+    );
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const comparisonId: string = created.body.id;
+    await waitForComparison(team.viewer, team.slug, comparisonId);
+    const mail = await waitForMail(folder, (m) => m.subject === `Comparison finished: ${name}`);
+    expect(recipients(mail)).toEqual([team.credentials.engineer.email]);
+    const link = `${server.url}/w/${team.slug}/comparisons/${comparisonId}`;
+    expect(mail.text).toContain(`Open the comparison: ${link}`);
+    expect(mail.text).toContain("Contenders: 2");
+    expect(mail.html).toContain(`href="${link}"`);
+  }, 150_000);
 
   it("PUT /api/me/notifications refuses to turn off an account kind, and an unknown kind, naming the field", async () => {
     const account = await team.engineer.request("PUT", "/api/me/notifications", { json: { settings: [{ kind: "password-reset", enabled: false }] } });

@@ -1,5 +1,6 @@
 import { createHash } from "node:crypto";
 import PgBoss from "pg-boss";
+import { ensureMailQueue } from "../mail/mail-queue.js";
 
 /** Queue of sweep chunks: one job per chunk of contiguous candidates. */
 export const SWEEP_CHUNK_QUEUE = "sweep-chunk";
@@ -65,6 +66,8 @@ export async function startJobQueue(databaseUrl: string, options: JobQueueOption
     await boss.createQueue(name, queue);
     await boss.updateQueue(name, queue);
   }
+  // The mail queue too, here with the others: workers queue the end-of-run mail of sweeps.
+  await ensureMailQueue(boss);
   return boss;
 }
 
