@@ -69,6 +69,52 @@ export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 export { comparisonInputSchema } from "./api/comparison-input.js";
 export type { ComparisonInput } from "./api/comparison-input.js";
 export type * from "./api/comparison-dto.js";
+// Proposals and decisions: request bodies, DTOs and the versioned decision record.
+export {
+  BASELINE_RULE_IDS,
+  BASELINE_VARIANT_IDS,
+  DECISION_RECORD_FORMAT,
+  DECISION_RECORD_VERSION,
+  DECISION_STATES,
+  FROZEN_DECISION_STATES,
+  MAX_COMMENT_LENGTH,
+  MAX_RATIONALE_LENGTH,
+  SAFETY_CAUTION,
+  decisionCommentSchema,
+  decisionListQuerySchema,
+  decisionProposalSchema,
+  decisionRecordSchema,
+  decisionReturnSchema,
+  decisionSettingsSchema,
+  decisionSourceSchema,
+  decisionStateSchema,
+  isFrozenDecision,
+  readDecisionRecord,
+} from "./schemas/decision.js";
+export type {
+  DecisionCommentDto,
+  DecisionCommentInput,
+  DecisionContent,
+  DecisionDetailDto,
+  DecisionEventDto,
+  DecisionEventKind,
+  DecisionFamilyDto,
+  DecisionListItemDto,
+  DecisionPermissionsDto,
+  DecisionProposal,
+  DecisionProposalInput,
+  DecisionRecord,
+  DecisionRecordComparison,
+  DecisionRecordIssue,
+  DecisionRecordVariant,
+  DecisionReturn,
+  DecisionSettingsDto,
+  DecisionSettingsInput,
+  DecisionSource,
+  DecisionState,
+  DecisionVariantDto,
+  DecisionWaitingDto,
+} from "./schemas/decision.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";
