@@ -22,6 +22,7 @@ import type { SweepShape } from "../sweeps/sweep-input.js";
 import { downsampleIndices, pick } from "../traces/downsample-trace.js";
 import type { ReferencesDto } from "../api/dto.js";
 import { sweepReferences, type SweepReferencesInput } from "./sweep-references-task.js";
+import { baselineScores, type BaselineScores, type BaselineScoresInput } from "./baseline-scores-task.js";
 
 /**
  * Why a task gave no value: "budget" (its work budget ran out), "time" (its time limit passed; set
@@ -55,6 +56,8 @@ export interface ComputeTasks {
   candidateFrequency: { input: CandidateTaskInput & { weight?: SensitivityWeight }; output: ThinFrequencyResponse };
   /** A sweep's bound curve and tuning-rule baselines (sweep-references-task.ts). */
   sweepReferences: { input: SweepReferencesInput; output: ReferencesDto };
+  /** A tuning rule's controller of a sweep scored on every variant (baseline-scores-task.ts), for a decision's record. */
+  baselineScores: { input: BaselineScoresInput; output: BaselineScores };
 }
 
 export type ComputeTaskName = keyof ComputeTasks;
@@ -88,6 +91,7 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
     return thinFrequencyResponse(response);
   },
   sweepReferences,
+  baselineScores,
 };
 
 function candidateLoop({ definition, models, params, variant }: CandidateTaskInput) {
