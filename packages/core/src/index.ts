@@ -115,6 +115,26 @@ export type {
   DecisionVariantDto,
   DecisionWaitingDto,
 } from "./schemas/decision.js";
+// Mail: the kinds of message, notification settings and the outbox over the API.
+export {
+  ACCOUNT_MAIL_KINDS,
+  MAIL_KINDS,
+  MAIL_KIND_LABELS,
+  SECRET_MAIL_KINDS,
+  isAccountMailKind,
+  isMailKind,
+  notificationSettingsInputSchema,
+} from "./api/mail-kinds.js";
+export type {
+  AccountMailKind,
+  MailKind,
+  NotificationSettingDto,
+  NotificationSettingsDto,
+  NotificationSettingsInput,
+  OutboxDto,
+  OutboxMessageDto,
+  OutboxMessageSummaryDto,
+} from "./api/mail-kinds.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";

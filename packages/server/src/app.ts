@@ -27,6 +27,8 @@ import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
 import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
+// Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
+import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -42,6 +44,8 @@ export interface LoopyardApp {
   jobs: SweepJobSystem;
   /** Comparisons as pg-boss jobs, with the embedded comparison worker unless turned off. */
   comparisonJobs: ComparisonJobSystem;
+  /** Outgoing mail: queue(message) and notify({userIds, kind, data}) from routes and services. */
+  mail: MailSystem;
   /** Stops the embedded worker (running chunks finish) and pg-boss, then closes the database pool. */
   close(): Promise<void>;
 }
@@ -71,6 +75,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
+  const mail = createMailSystem(db, config.databaseUrl, config.mail ?? null, comparisonJobs.ready);
 
   const sessions = new SessionCache();
   void loadCommonPasswords();
@@ -136,8 +141,10 @@ export function createApp(config: AppConfig): LoopyardApp {
     db,
     jobs,
     comparisonJobs,
+    mail,
     close() {
       closing ??= (async () => {
+        await mail.close();
         await comparisonJobs.close();
         await jobs.close();
         await background.settle();

@@ -469,3 +469,22 @@ export const decisionSetting = pgTable("decision_setting", {
 });
 
 export const authSchema = { user, session, account, verification };
+
+// ---------------------------------------------------------------- mail: notification settings
+
+/**
+ * One person's choice for one kind of mail (core MAIL_KINDS). No row means the kind is on; account
+ * kinds (invitation, password reset, address check) are always sent whatever is stored here.
+ */
+export const notificationSetting = pgTable(
+  "notification_setting",
+  {
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    enabled: boolean("enabled").notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.userId, table.kind] })],
+);

@@ -46,6 +46,14 @@ CREATE TABLE "decision_setting" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "notification_setting" (
+	"user_id" text NOT NULL,
+	"kind" text NOT NULL,
+	"enabled" boolean NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "notification_setting_user_id_kind_pk" PRIMARY KEY("user_id","kind")
+);
+--> statement-breakpoint
 ALTER TABLE "decision" ADD CONSTRAINT "decision_workspace_id_workspace_id_fk" FOREIGN KEY ("workspace_id") REFERENCES "public"."workspace"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision" ADD CONSTRAINT "decision_sweep_id_sweep_id_fk" FOREIGN KEY ("sweep_id") REFERENCES "public"."sweep"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision" ADD CONSTRAINT "decision_comparison_id_comparison_id_fk" FOREIGN KEY ("comparison_id") REFERENCES "public"."comparison"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -57,6 +65,7 @@ ALTER TABLE "decision_revision" ADD CONSTRAINT "decision_revision_decision_id_de
 ALTER TABLE "decision_revision" ADD CONSTRAINT "decision_revision_plant_revision_id_plant_revision_id_fk" FOREIGN KEY ("plant_revision_id") REFERENCES "public"."plant_revision"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_setting" ADD CONSTRAINT "decision_setting_workspace_id_workspace_id_fk" FOREIGN KEY ("workspace_id") REFERENCES "public"."workspace"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "decision_setting" ADD CONSTRAINT "decision_setting_updated_by_user_id_fk" FOREIGN KEY ("updated_by") REFERENCES "public"."user"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "notification_setting" ADD CONSTRAINT "notification_setting_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "decision_workspace_updated_idx" ON "decision" USING btree ("workspace_id","updated_at");--> statement-breakpoint
 CREATE INDEX "decision_family_idx" ON "decision" USING btree ("workspace_id","family_key","state");--> statement-breakpoint
 CREATE UNIQUE INDEX "decision_one_approved_per_family" ON "decision" USING btree ("workspace_id","family_key") WHERE "decision"."state" = 'approved';--> statement-breakpoint
