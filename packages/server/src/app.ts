@@ -29,6 +29,17 @@ import { createComparisonJobSystem, type ComparisonJobSystem } from "./compariso
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 // Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
 import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
+// Decisions: proposals, a lead's approval, the audit trail and the record.
+import { createDecisionMailer, type DecisionPdfForMail } from "./decisions/decision-mailer.js";
+import { decisionRoutes } from "./decisions/decision-routes.js";
+import { decisionSettingsRoutes } from "./decisions/decision-settings-routes.js";
+import type { DecisionDeps } from "./decisions/decision-service.js";
+
+/**
+ * The hook that attaches a decision record's PDF to the approval mail: null until the deployment
+ * sheet's PDF renderer is wired here (then the approval mail carries the record).
+ */
+const decisionRecordPdfForMail: DecisionPdfForMail | null = null;
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -124,6 +135,14 @@ export function createApp(config: AppConfig): LoopyardApp {
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
+  const decisionMailer = createDecisionMailer(db, mail, config.publicUrl, decisionRecordPdfForMail);
+  const decisions: DecisionDeps = {
+    db,
+    compute,
+    notify: (notice) => background.run(`mailing the ${notice.kind} notice of decision ${notice.decisionId}`, async () => void (await decisionMailer(notice))),
+  };
+  app.use("/api/workspaces/:slug/decisions", decisionRoutes(decisions));
+  app.use("/api/workspaces/:slug/decision-settings", decisionSettingsRoutes(db));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -144,6 +163,8 @@ export function createApp(config: AppConfig): LoopyardApp {
     mail,
     close() {
       closing ??= (async () => {
+        // Background tasks first: they may still queue mail (a decision's notices).
+        await background.settle();
         await mail.close();
         await comparisonJobs.close();
         await jobs.close();
