@@ -16,7 +16,8 @@ import path from "node:path";
 import { simpleParser } from "mailparser";
 import { decisionRecordSchema, readDecisionRecord } from "@loopyard/core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createDatabase, startMailSink, type MailSink } from "../../packages/server/src/index.js";
+import { startMailSink, type MailSink } from "../../packages/server/src/index.js";
+import { createDatabase } from "../../packages/server/src/db/database.js";
 import { assertNotPinnedByDecision } from "../../packages/server/src/decisions/decision-pins.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { signedInClient, type ApiClient } from "./api-client.js";
@@ -180,7 +181,7 @@ describe("decisions over HTTP", () => {
       ["revised", team.credentials.engineer.email, "returned", "proposed"],
       ["approved", leadA.user.email, "proposed", "approved"],
     ]);
-    expect(detail.body.events[2].revised).toEqual({ title: "PI for the lag bench, gentler", source: { kind: "sweep-candidate", sweepId, candidateIndex: 3 } });
+    expect(detail.body.events[2].revised).toEqual({ title: "PI for the lag bench, gentler", rationale: true, source: { kind: "sweep-candidate", sweepId, candidateIndex: 3 } });
     expect(detail.body.comments.map((c: { kind: string; text: string }) => [c.kind, c.text])).toEqual([["return", "Candidate 4 overshoots on the 1.4 plate; take one with less overshoot."]]);
     for (const event of detail.body.events) expect(Number.isNaN(Date.parse(event.at))).toBe(false);
     expect(previous.body.events.map((e: { kind: string }) => e.kind)).toEqual(["proposed", "approved", "superseded"]);
