@@ -25,6 +25,7 @@ import { sweepReferences, type SweepReferencesInput } from "./sweep-references-t
 import type { DeploymentSheetDto } from "../api/deployment-sheet-dto.js";
 import { buildDeploymentSheet } from "../deployment/build-deployment-sheet.js";
 import { DeploymentSheetError, type DeploymentDesign, type DeploymentSheetRequest } from "../deployment/deployment-design.js";
+import { baselineScores, type BaselineScores, type BaselineScoresInput } from "./baseline-scores-task.js";
 
 /**
  * Why a task gave no value: "budget" (its work budget ran out), "time" (its time limit passed; set
@@ -60,6 +61,8 @@ export interface ComputeTasks {
   sweepReferences: { input: SweepReferencesInput; output: ReferencesDto };
   /** A design's deployment sheet at the reader's sample time, method and format (buildDeploymentSheet). */
   deploymentSheet: { input: { design: DeploymentDesign; request: DeploymentSheetRequest }; output: DeploymentSheetDto };
+  /** A tuning rule's controller of a sweep scored on every variant (baseline-scores-task.ts), for a decision's record. */
+  baselineScores: { input: BaselineScoresInput; output: BaselineScores };
 }
 
 export type ComputeTaskName = keyof ComputeTasks;
@@ -94,6 +97,7 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
   },
   sweepReferences,
   deploymentSheet: ({ design, request }) => buildDeploymentSheet(design, request),
+  baselineScores,
 };
 
 function candidateLoop({ definition, models, params, variant }: CandidateTaskInput) {
