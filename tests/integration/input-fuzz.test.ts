@@ -220,7 +220,7 @@ describe("fuzzing every input over HTTP", () => {
         segment,
         async (route, where, value, query) => {
           const encoded = encode(value);
-          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}` : fill(route.path.replace(where, encoded));
+          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}&sampleTime=${encode(query)}&method=${encoded}&format=${encoded}` : fill(route.path.replace(where, encoded));
           await probe(team.viewer, "GET", path);
         },
       ),

@@ -122,9 +122,19 @@ function fill(path: string, slug: string): string {
     .replace(":sessionId", randomUUID());
 }
 
+/** A query string for each GET route that needs one to answer 2xx (the rest answer without). */
+function sampleQuery(route: RouteEntry): string {
+  switch (`${route.method} ${route.path}`) {
+    case "GET /api/workspaces/:slug/sweeps/:sweepId/candidates/:index/sheet":
+      return "?sampleTime=0.01&method=tustin&format=q15";
+    default:
+      return "";
+  }
+}
+
 async function call(client: ApiClient, route: RouteEntry, slug: string) {
   const body = route.method === "GET" ? undefined : await sampleBody(route, ids.revisionId);
-  return client.request(route.method, fill(route.path, slug), body === undefined ? {} : { json: body });
+  return client.request(route.method, fill(route.path, slug) + sampleQuery(route), body === undefined ? {} : { json: body });
 }
 
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */

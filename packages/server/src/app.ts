@@ -22,6 +22,7 @@ import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
+import { exportRoutes } from "./exports/export-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
@@ -129,6 +130,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth, sessions));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
+  app.use("/api/workspaces/:slug", exportRoutes(db, database.pool));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",
