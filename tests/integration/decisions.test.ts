@@ -190,6 +190,19 @@ describe("decisions over HTTP", () => {
     const approvalMails = await mailsTo(team.credentials.engineer.email, 3);
     expect(approvalMails.filter((m) => m.subject === "Approved: PI for the lag bench, gentler")).toHaveLength(1);
 
+    // The deployment sheet of the decision at 100 Hz, Tustin, Q15: the same as the candidate's own sheet
+    // (reference: GET …/sweeps/:id/candidates/3/sheet, the same design through the sweep's path).
+    const query = "?sampleTime=0.01&method=tustin&format=q15";
+    const sheet = await team.viewer.get(`${base}/decisions/${id}/sheet${query}`);
+    expect(sheet.status, JSON.stringify(sheet.body)).toBe(200);
+    const candidateSheet = await team.viewer.get(`${base}/sweeps/${sweepId}/candidates/3/sheet${query}`);
+    expect(candidateSheet.status).toBe(200);
+    expect(sheet.body.discrete.coefficients).toEqual(candidateSheet.body.discrete.coefficients);
+    expect(sheet.body.variants.map((v: { label: string }) => v.label)).toEqual(["gain 1", "gain 1.4", "gain 0.7"]);
+    const noRate = await team.viewer.get(`${base}/decisions/${id}/sheet`);
+    expect(noRate.status).toBe(400);
+    expect(noRate.body.error.field).toBe("sampleTime");
+
     // Lists: by state and by family.
     const approvedList = await team.viewer.get(`${base}/decisions?state=approved`);
     expect(approvedList.body.map((d: { id: string }) => d.id)).toEqual([id]);

@@ -126,6 +126,7 @@ function fill(path: string, slug: string): string {
 function sampleQuery(route: RouteEntry): string {
   switch (`${route.method} ${route.path}`) {
     case "GET /api/workspaces/:slug/sweeps/:sweepId/candidates/:index/sheet":
+    case "GET /api/workspaces/:slug/decisions/:decisionId/sheet":
       return "?sampleTime=0.01&method=tustin&format=q15";
     default:
       return "";

@@ -14,7 +14,7 @@
  */
 import { z } from "zod";
 import type { UserDto } from "../api/dto.js";
-import { CONTROLLER_KINDS, controllerSchema, type ControllerKind } from "../controllers/controller.js";
+import { CONTROLLER_KINDS, controllerSchema, type Controller, type ControllerKind } from "../controllers/controller.js";
 import { CRITERION_IDS } from "../criteria/criterion-id.js";
 import { MAX_TITLE_LENGTH } from "../limits.js";
 import { plantModelSchema } from "../plants/plant.js";
@@ -225,7 +225,9 @@ export const decisionRecordSchema = z.strictObject({
   exportedAt: timeSchema,
   caution: z.string(),
 });
-export type DecisionRecord = z.output<typeof decisionRecordSchema>;
+type ParsedRecord = z.output<typeof decisionRecordSchema>;
+/** A decision record (the schema's output, its controller typed as core's Controller). */
+export type DecisionRecord = Omit<ParsedRecord, "structure"> & { structure: Omit<ParsedRecord["structure"], "controller"> & { controller: Controller } };
 export type DecisionRecordVariant = z.output<typeof recordVariantSchema>;
 export type DecisionRecordComparison = z.output<typeof recordComparisonSchema>;
 /** What the server snapshots when a proposal is made or revised: the record without the decision's own fields. */
@@ -254,7 +256,7 @@ export function readDecisionRecord(value: unknown): { ok: true; record: Decision
     };
   }
   const parsed = decisionRecordSchema.safeParse(value);
-  if (parsed.success) return { ok: true, record: parsed.data };
+  if (parsed.success) return { ok: true, record: parsed.data as DecisionRecord };
   const first = parsed.error.issues[0]!;
   const field = first.path.map(String).join(".");
   return { ok: false, issue: { field, message: field ? `${field}: ${first.message}` : first.message } };

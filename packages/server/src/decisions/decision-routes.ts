@@ -1,7 +1,9 @@
 import { Router } from "express";
 import { decisionCommentSchema, decisionListQuerySchema, decisionProposalSchema, decisionReturnSchema } from "@loopyard/core";
+import { sheetQuerySchema } from "../deployment/sheet-service.js";
 import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
+import { getDecisionSheet } from "./decision-sheet.js";
 import {
   approveDecision,
   commentOnDecision,
@@ -74,6 +76,12 @@ export function decisionRoutes(deps: DecisionDeps): Router {
     const record = await getDecisionRecord(deps, accessOf(req), id);
     res.setHeader("Content-Disposition", `attachment; filename="decision-${id}.json"`);
     res.json(record);
+  });
+
+  // DeploymentSheetDto of the decision's controller (?sampleTime=&method=tustin|backward-euler&format=q15|q31).
+  router.get("/:decisionId/sheet", canRead, async (req, res) => {
+    const query = parseQuery(sheetQuerySchema, req);
+    res.json(await getDecisionSheet(deps, accessOf(req), idOf(req.params.decisionId), query));
   });
 
   return router;
