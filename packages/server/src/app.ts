@@ -22,6 +22,7 @@ import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
+import { exportRoutes } from "./exports/export-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
@@ -31,6 +32,12 @@ import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
 import { notificationRoutes } from "./mail/notification-routes.js";
 import { outboxRoutes } from "./mail/outbox-routes.js";
+// Decisions: proposals, a lead's approval, the audit trail and the record.
+import { createDecisionMailer } from "./decisions/decision-mailer.js";
+import { decisionPdfForMail } from "./decisions/decision-sheet.js";
+import { decisionRoutes } from "./decisions/decision-routes.js";
+import { decisionSettingsRoutes } from "./decisions/decision-settings-routes.js";
+import type { DecisionDeps } from "./decisions/decision-service.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -123,6 +130,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api/me/notifications", notificationRoutes(db));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
+  app.use("/api/workspaces/:slug", exportRoutes(db, database.pool));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",
@@ -130,6 +138,15 @@ export function createApp(config: AppConfig): LoopyardApp {
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
   app.use("/api/workspaces/:slug/outbox", outboxRoutes(db, config.mail ?? null));
+  // The approval mail carries the record's PDF.
+  const decisionMailer = createDecisionMailer(db, mail, config.publicUrl, decisionPdfForMail({ db, compute }));
+  const decisions: DecisionDeps = {
+    db,
+    compute,
+    notify: (notice) => background.run(`mailing the ${notice.kind} notice of decision ${notice.decisionId}`, async () => void (await decisionMailer(notice))),
+  };
+  app.use("/api/workspaces/:slug/decisions", decisionRoutes(decisions));
+  app.use("/api/workspaces/:slug/decision-settings", decisionSettingsRoutes(db));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -150,6 +167,8 @@ export function createApp(config: AppConfig): LoopyardApp {
     mail,
     close() {
       closing ??= (async () => {
+        // Background tasks first: they may still queue mail (a decision's notices).
+        await background.settle();
         await mail.close();
         await comparisonJobs.close();
         await jobs.close();

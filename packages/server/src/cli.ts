@@ -29,6 +29,9 @@ import { startSweepWorker } from "./workers/sweep-worker.js";
 import { createComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { seedDemoComparison } from "./comparisons/comparison-demo.js";
 import { startMailSink, type MailSink } from "./mail/mail-sink.js";
+import { createMailSystem } from "./mail/mail-system.js";
+import { seedDemoDecisions } from "./decisions/decision-demo.js";
+import { createDecisionMailer } from "./decisions/decision-mailer.js";
 
 const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve|worker>";
 
@@ -54,7 +57,7 @@ async function seedCommand(): Promise<void> {
   const databaseUrl = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
   // Seeding creates no sessions anyone uses, so a throwaway secret is fine when none is given.
   const authSecret = process.env.LOOPYARD_AUTH_SECRET ?? "seed-only-secret-not-used-for-any-session-0000";
-  const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? "http://127.0.0.1:4470";
+  const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? `http://127.0.0.1:${process.env.PORT ?? 4470}`;
   const database = createDatabase(databaseUrl, { max: 6 });
   // The demo sweeps run as jobs like any other; this process works them (and what else is pending) until they are done.
   const jobs = createSweepJobSystem(database.db, databaseUrl, { embeddedWorker: true, resume: false });
@@ -63,11 +66,19 @@ async function seedCommand(): Promise<void> {
     const report = await seedDemo(database.db, auth, jobs);
     // The demo comparison runs through the comparison queues, like any other.
     const comparisonCreated = await seedDemoComparison(database.db, databaseUrl);
-    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated);
+    // The demo decisions go through the decision services; their mails are queued here and sent by `serve` (its sink keeps them in the outbox).
+    const mail = createMailSystem(database.db, databaseUrl, null);
+    let decisionsCreated = false;
+    try {
+      decisionsCreated = await seedDemoDecisions(database.db, createDecisionMailer(database.db, mail, publicUrl, null));
+    } finally {
+      await mail.close();
+    }
+    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated) + Number(decisionsCreated);
     console.log(
       changed === 0
         ? "Demo data already present; nothing changed."
-        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps, ${Number(comparisonCreated)} comparison.`,
+        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps, ${Number(comparisonCreated)} comparison, ${decisionsCreated ? "2 decisions" : "no decisions"}.`,
     );
     printDemoSignIns();
   } finally {
