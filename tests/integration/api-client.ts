@@ -28,6 +28,15 @@ export class ApiClient {
     return { status: response.status, bytes: await response.arrayBuffer(), headers: response.headers };
   }
 
+  /** GET whose body is read chunk by chunk (each chunk handed to `onChunk`, nothing kept), for large downloads. */
+  async stream(path: string, onChunk: (chunk: Uint8Array) => void): Promise<{ status: number; headers: Headers }> {
+    const headers: Record<string, string> = { origin: this.#baseUrl };
+    if (this.#cookies.size > 0) headers.cookie = [...this.#cookies].map(([name, value]) => `${name}=${value}`).join("; ");
+    const response = await fetch(`${this.#baseUrl}${path}`, { headers, redirect: "manual" });
+    if (response.body) for await (const chunk of response.body) onChunk(chunk as Uint8Array);
+    return { status: response.status, headers: response.headers };
+  }
+
   async request<T = any>(method: string, path: string, options: { json?: unknown; rawBody?: string; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { origin: this.#baseUrl, ...options.headers };
     if (this.#cookies.size > 0) headers.cookie = [...this.#cookies].map(([name, value]) => `${name}=${value}`).join("; ");

@@ -82,7 +82,7 @@ describe("GET …/candidates/:index/sheet", () => {
     expect(coarse.body.error.message).toBe("A sample time of 2 s is too coarse for the scenario's 10 s horizon: choose at most 1 s, so the re-simulated loop is seen to settle.");
     const fine = await team.viewer.get(`${sheetPath(0)}?sampleTime=0.0000001`);
     expect(fine.status).toBe(422);
-    expect(fine.body.error.message).toMatch(/more than the 200,000 allowed; choose h ≥ 0\.00005 s\.$/);
+    expect(fine.body.error.message).toMatch(/more than the 1,000,000 allowed; choose h ≥ 0\.00001 s\.$/);
   });
 
   it("when the sampled loop is unstable at the sample time, then 422 with a shorter sample time at which it is stable", async () => {

@@ -16,6 +16,14 @@ export const MAX_FAMILY_VARIANTS = 20;
 export const MAX_SIMULATION_SAMPLES = 200_000;
 
 /**
+ * Largest number of samples of one re-simulation of a deployment sheet: the sampled loop runs on a
+ * grid no coarser than the sample time (every sample instant on it), so a 400 s heater scenario at
+ * 1 kHz takes 400,001 samples (about 16 MB per trace of five signals; a linear plant's step is a few
+ * multiplications).
+ */
+export const MAX_SHEET_SAMPLES = 1_000_000;
+
+/**
  * Most state-feedback gains k[0] … k[m−1]: one per plant state, and no plant kind has more than
  * ten states (MAX_PLANT_ORDER of a transfer function, MAX_NONLINEAR_STATES, a state-space model's
  * matrix size). A sweep naming k[i] with i ≥ this is refused before any name list is built.

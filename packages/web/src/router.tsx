@@ -20,6 +20,7 @@ import { NotFoundPage } from "./features/workspace/not-found-page.js";
 import { RootRedirect } from "./features/workspace/root-redirect.js";
 import { WorkspaceHomePage } from "./features/workspace/workspace-home-page.js";
 import { WorkspaceShell } from "./features/workspace/workspace-shell.js";
+import { CandidateSheetPage } from "./features/deployment/candidate-sheet-page.js";
 
 /** Every page of Loopyard, one route each. Pages under RequireSession need a signed-in user. */
 export const router = createBrowserRouter([
@@ -42,6 +43,7 @@ export const router = createBrowserRouter([
           { path: "sweeps", element: <SweepListPage /> },
           { path: "sweeps/new", element: <SweepNewPage /> },
           { path: "sweeps/:sweepId", element: <SweepDetailPage /> },
+          { path: "sweeps/:sweepId/candidates/:index/sheet", element: <CandidateSheetPage /> },
           { path: "comparisons", element: <ComparisonListPage /> },
           { path: "comparisons/new", element: <ComparisonNewPage /> },
           { path: "comparisons/across", element: <ComparisonsAcrossPage /> },

@@ -7,7 +7,7 @@ import type { CriterionId } from "../criteria/criterion-id.js";
 import { criterionSense } from "../criteria/criterion-sense.js";
 import { CRITERIA } from "../criteria/registry.js";
 import { evaluateCandidate } from "../evaluation/evaluate-candidate.js";
-import { MAX_SIMULATION_SAMPLES } from "../limits.js";
+import { MAX_SHEET_SAMPLES } from "../limits.js";
 import type { ActuatorLimits } from "../plants/actuator-limits.js";
 import { linearPlantModel } from "../plants/linear-plant-model.js";
 import type { LinearPlant } from "../plants/plant.js";
@@ -59,7 +59,7 @@ const MEANINGS: Record<keyof DiscretePidCoefficients, string> = {
  * Refuses, with a DeploymentSheetError naming the field:
  * - a sample time that is not a finite number > 0, an unknown method or format ("invalid");
  * - a controller that is not P, PI, PID or 2-DOF PID; a sample time above a tenth of the horizon;
- *   a re-simulation of more than MAX_SIMULATION_SAMPLES samples; a sample time at which the sampled
+ *   a re-simulation of more than MAX_SHEET_SAMPLES samples; a sample time at which the sampled
  *   loop (difference equations, limits not reached) is unstable on some variant
  *   (discreteControllerLoopStability) while the continuous loop is stable — with the largest of
  *   h/2, h/4, … at which it is stable everywhere ("unsuitable").
@@ -96,10 +96,10 @@ export function buildDeploymentSheet(design: DeploymentDesign, request: Deployme
   // simulateSampledLoop's grid: hs = h/⌈h/dt⌉ ≤ dt, horizon/hs + 1 samples.
   const hs = h / Math.max(1, Math.ceil(h / dt - 1e-9));
   const samples = Math.round(horizon / hs) + 1;
-  if (samples > MAX_SIMULATION_SAMPLES) {
+  if (samples > MAX_SHEET_SAMPLES) {
     throw new DeploymentSheetError(
       "sampleTime",
-      `At h = ${fmt(h)} s the re-simulation of the ${fmt(horizon)} s horizon would take ${samples.toLocaleString("en-GB")} samples, more than the ${MAX_SIMULATION_SAMPLES.toLocaleString("en-GB")} allowed; choose h ≥ ${fmt(horizon / (MAX_SIMULATION_SAMPLES - 1))} s.`,
+      `At h = ${fmt(h)} s the re-simulation of the ${fmt(horizon)} s horizon would take ${samples.toLocaleString("en-GB")} samples, more than the ${MAX_SHEET_SAMPLES.toLocaleString("en-GB")} allowed; choose h ≥ ${fmt(horizon / (MAX_SHEET_SAMPLES - 1))} s.`,
       "unsuitable",
     );
   }

@@ -196,7 +196,7 @@ describe("buildDeploymentSheet", () => {
     expect(reasons({ sampleTime: 0.01, method: "euler" as "tustin" })).toMatch(/^invalid:method/);
     expect(reasons({ sampleTime: 0.01, method: "tustin", format: "q7" as "q15" })).toMatch(/^invalid:format/);
     expect(reasons({ sampleTime: 5, method: "tustin" })).toMatch(/^unsuitable:sampleTime:A sample time of 5 s is too coarse for the scenario's 40 s horizon: choose at most 4 s/);
-    expect(reasons({ sampleTime: 1e-6, method: "tustin" })).toMatch(/^unsuitable:sampleTime:At h = 0.000001 s the re-simulation .* more than the 200,000 allowed; choose h ≥ 0\.0002 s/);
+    expect(reasons({ sampleTime: 1e-6, method: "tustin" })).toMatch(/^unsuitable:sampleTime:At h = 0.000001 s the re-simulation .* more than the 1,000,000 allowed; choose h ≥ 0\.00004 s/);
     expect(reasons({ sampleTime: 0.01, method: "tustin" }, { ...design, controller: { kind: "lead-lag", k: 1, tLead: 1, tLag: 0.1 } })).toMatch(
       /^unsuitable:controller:The deployment sheet covers P, PI, PID/,
     );

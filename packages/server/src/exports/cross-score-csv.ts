@@ -1,4 +1,4 @@
-import { csvNumber, parameterColumn, withUnit } from "@loopyard/core";
+import { CONTROLLER_PARAMETERS, csvNumber, parameterColumn, withUnit } from "@loopyard/core";
 import type { ControllerKind } from "@loopyard/core";
 import { stringify } from "csv-stringify/sync";
 import { getComparison, getComparisonResult } from "../comparisons/comparison-service.js";
@@ -23,7 +23,10 @@ export async function crossScoreCsv(db: Database, access: MemberAccess, comparis
   const comparison = await getComparison(db, access, comparisonId);
   const analysis = (await getComparisonResult(db, access, comparisonId)) as StoredAnalysis;
   const kind = (comparison.definition as { structure?: ControllerKind }).structure ?? "pid";
-  const names = [...new Set(analysis.picks.flatMap((p) => Object.keys(p.params)))];
+  // In the structure's own parameter order (stored JSON does not keep the key order).
+  const order = kind === "state-feedback" ? [] : CONTROLLER_PARAMETERS[kind].map((p) => p.name);
+  const rank = (name: string) => (order.indexOf(name) < 0 ? order.length : order.indexOf(name));
+  const names = [...new Set(analysis.picks.flatMap((p) => Object.keys(p.params)))].sort((x, y) => rank(x) - rank(y) || x.localeCompare(y));
   const header = [
     "pick of",
     "found",

@@ -87,7 +87,7 @@ export function renderDecisionPdf(record: DecisionRecord, curves: DesignCurves, 
       let x = PAGE_MARGIN;
       cells.forEach((cell, i) => {
         doc.font(bold ? BOLD_FONT : numeric(i) ? NUMBER_FONT : TEXT_FONT).fontSize(8.5).fillColor(bold ? MUTED : INK);
-        doc.text(pdfText(cell), x + 3, top + 2, { width: (widths[i] as number) - 6, align: numeric(i) && !bold ? "right" : "left" });
+        doc.text(pdfText(cell), x + 3, top + 2, { width: (widths[i] as number) - 6, align: numeric(i) ? "right" : "left" });
         x += widths[i] as number;
       });
       doc.lineWidth(0.3).strokeColor("#c9ced3").moveTo(PAGE_MARGIN, top + h).lineTo(PAGE_MARGIN + width, top + h).stroke();
@@ -158,8 +158,8 @@ export function renderDecisionPdf(record: DecisionRecord, curves: DesignCurves, 
     doc.y = y + 14;
   };
   const plotBox = (title: string, draw: (left: number, top: number, w: number, h: number) => void) => {
+    ensure(270);
     heading(title);
-    ensure(210);
     const top = doc.y + 4;
     draw(PAGE_MARGIN + 50, top, width - 60, 150);
     doc.x = PAGE_MARGIN;

@@ -17,6 +17,8 @@ export const queryKeys = {
     ["workspace", slug, "sweeps", sweepId, "front", x, y] as const,
   response: (slug: string, sweepId: string, index: number, variant = 0) =>
     ["workspace", slug, "sweeps", sweepId, "response", index, variant] as const,
+  sheet: (slug: string, sweepId: string, index: number, sampleTime: number, method: string, format: string) =>
+    ["workspace", slug, "sweeps", sweepId, "sheet", index, sampleTime, method, format] as const,
   // Comparisons of criteria.
   comparisons: (slug: string) => ["workspace", slug, "comparisons"] as const,
   comparison: (slug: string, id: string) => ["workspace", slug, "comparisons", id] as const,

@@ -19,10 +19,14 @@ import { ResponseChart } from "./response-chart.js";
 import { SensitivityChart } from "./sensitivity-chart.js";
 import { VariantScoresTable, aggregateName } from "./variant-scores-table.js";
 import { formatCount } from "../sweeps/sweep-progress.js";
+import { Link } from "react-router";
 
 const NO_POINTS: PlotCloud = { indices: [], xs: [], ys: [] };
 
 /** The results of a finished sweep: two criteria chosen, every candidate plotted, the front drawn and listed, one candidate's response. */
+/** Structures a deployment sheet covers (PID types; core buildDeploymentSheet). */
+const DEPLOYABLE = new Set<string>(["p", "pi", "pid", "pid2dof"]);
+
 export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDto }) {
   const [chosenX, setX] = useState<CriterionId | null>(null);
   const [chosenY, setY] = useState<CriterionId | null>(null);
@@ -203,6 +207,13 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
             </Section>
           ) : null}
           <CandidateResponse slug={slug} sweep={sweep} index={selected} variant={variant} onVariant={setVariant} />
+          {selected !== null && DEPLOYABLE.has(sweep.definition.structure) ? (
+            <p className="-mt-3 text-right text-sm">
+              <Link to={`/w/${slug}/sweeps/${sweep.id}/candidates/${selected}/sheet`} className="text-moss hover:underline" data-testid="sheet-link">
+                Deployment sheet of candidate #{selected} →
+              </Link>
+            </p>
+          ) : null}
           {sweep.plant.kind !== "nonlinear" ? <CandidateSensitivity slug={slug} sweep={sweep} index={selected} variant={variant} /> : null}
         </div>
       </div>
