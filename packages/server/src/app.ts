@@ -27,6 +27,10 @@ import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
 import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
+// Members: invitations by mail, roles, the audit trail.
+import { invitationRoutes } from "./members/invitation-routes.js";
+import { memberRoutes } from "./members/member-routes.js";
+import type { SendAccountMail } from "./members/account-mail.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -55,7 +59,12 @@ export interface LoopyardApp {
 export function createApp(config: AppConfig): LoopyardApp {
   const database = createDatabase(config.databaseUrl);
   const { db } = database;
-  const auth = createAuth(db, config);
+  const sessions = new SessionCache();
+  // TEMPORARY until the mail queue is merged: account mails are only logged.
+  const sendAccountMail: SendAccountMail = async (message) => {
+    logger.warn({ kind: message.kind, to: message.to }, "mail queue not wired yet");
+  };
+  const auth = createAuth(db, config, { sendMail: sendAccountMail, onPasswordReset: (userId) => sessions.forgetUser(userId) });
   const background = new BackgroundTasks();
   const compute = createCompute();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
@@ -72,7 +81,6 @@ export function createApp(config: AppConfig): LoopyardApp {
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
 
-  const sessions = new SessionCache();
   void loadCommonPasswords();
   const limits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
   const publicOrigin = new URL(config.publicUrl).origin;
@@ -119,6 +127,8 @@ export function createApp(config: AppConfig): LoopyardApp {
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
+  app.use("/api/workspaces/:slug", memberRoutes(db, { sendMail: sendAccountMail, publicUrl: config.publicUrl }));
+  app.use("/api/invitations", invitationRoutes(db, {}));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
