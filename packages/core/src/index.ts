@@ -76,6 +76,26 @@ export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 export { comparisonInputSchema } from "./api/comparison-input.js";
 export type { ComparisonInput } from "./api/comparison-input.js";
 export type * from "./api/comparison-dto.js";
+// Mail: the kinds of message, notification settings and the outbox over the API.
+export {
+  ACCOUNT_MAIL_KINDS,
+  MAIL_KINDS,
+  MAIL_KIND_LABELS,
+  SECRET_MAIL_KINDS,
+  isAccountMailKind,
+  isMailKind,
+  notificationSettingsInputSchema,
+} from "./api/mail-kinds.js";
+export type {
+  AccountMailKind,
+  MailKind,
+  NotificationSettingDto,
+  NotificationSettingsDto,
+  NotificationSettingsInput,
+  OutboxDto,
+  OutboxMessageDto,
+  OutboxMessageSummaryDto,
+} from "./api/mail-kinds.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";

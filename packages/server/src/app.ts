@@ -31,6 +31,10 @@ import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 import { invitationRoutes } from "./members/invitation-routes.js";
 import { memberRoutes } from "./members/member-routes.js";
 import type { SendAccountMail } from "./members/account-mail.js";
+// Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
+import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
+import { notificationRoutes } from "./mail/notification-routes.js";
+import { outboxRoutes } from "./mail/outbox-routes.js";
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -46,6 +50,8 @@ export interface LoopyardApp {
   jobs: SweepJobSystem;
   /** Comparisons as pg-boss jobs, with the embedded comparison worker unless turned off. */
   comparisonJobs: ComparisonJobSystem;
+  /** Outgoing mail: queue(message) and notify({userIds, kind, data}) from routes and services. */
+  mail: MailSystem;
   /** Stops the embedded worker (running chunks finish) and pg-boss, then closes the database pool. */
   close(): Promise<void>;
 }
@@ -60,14 +66,10 @@ export function createApp(config: AppConfig): LoopyardApp {
   const database = createDatabase(config.databaseUrl);
   const { db } = database;
   const sessions = new SessionCache();
-  // TEMPORARY until the mail queue is merged: account mails are only logged.
-  const sendAccountMail: SendAccountMail = async (message) => {
-    logger.warn({ kind: message.kind, to: message.to }, "mail queue not wired yet");
-  };
-  const auth = createAuth(db, config, { sendMail: sendAccountMail, onPasswordReset: (userId) => sessions.forgetUser(userId) });
   const background = new BackgroundTasks();
   const compute = createCompute();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
+    publicUrl: config.publicUrl,
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
@@ -75,11 +77,18 @@ export function createApp(config: AppConfig): LoopyardApp {
   });
   const comparisonJobs = createComparisonJobSystem(db, config.databaseUrl, {
     after: jobs.ready,
+    publicUrl: config.publicUrl,
     embeddedWorker: config.embeddedWorker ?? true,
     resume: config.resumeSweeps ?? true,
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
+  const mail = createMailSystem(db, config.databaseUrl, config.mail ?? null, comparisonJobs.ready);
+  // Invitations, password resets and address checks go through the same mail queue.
+  const sendAccountMail: SendAccountMail = async (message) => {
+    await mail.queue(message);
+  };
+  const auth = createAuth(db, config, { sendMail: sendAccountMail, onPasswordReset: (userId) => sessions.forgetUser(userId) });
 
   void loadCommonPasswords();
   const limits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
@@ -119,6 +128,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   });
 
   app.use("/api", requireSession(auth, sessions));
+  app.use("/api/me/notifications", notificationRoutes(db));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
@@ -129,6 +139,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
   app.use("/api/workspaces/:slug", memberRoutes(db, { sendMail: sendAccountMail, publicUrl: config.publicUrl }));
   app.use("/api/invitations", invitationRoutes(db, {}));
+  app.use("/api/workspaces/:slug/outbox", outboxRoutes(db, config.mail ?? null));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -146,8 +157,10 @@ export function createApp(config: AppConfig): LoopyardApp {
     db,
     jobs,
     comparisonJobs,
+    mail,
     close() {
       closing ??= (async () => {
+        await mail.close();
         await comparisonJobs.close();
         await jobs.close();
         await background.settle();

@@ -102,7 +102,7 @@ export function createAuth(
       expiresIn: VERIFY_EMAIL_HOURS * 3600,
       autoSignInAfterVerification: false,
       sendVerificationEmail: async ({ user, token }) => {
-        queue(verificationMail({ to: user.email, name: user.name, link: link(VERIFY_EMAIL_PAGE, token), expiresInHours: VERIFY_EMAIL_HOURS }));
+        queue(verificationMail({ to: user.email, name: user.name, link: link(VERIFY_EMAIL_PAGE, token) }));
       },
     },
     // Reset tokens are looked up by their hash: a copy of the database holds no working link.

@@ -15,6 +15,8 @@ export interface ComparisonJobSystemOptions {
   expireSeconds?: number;
   /** Start once this settles (the sweeps' queue set-up: two processes' DDL on pgboss at once can deadlock). */
   after?: Promise<unknown>;
+  /** Address of the app for the links in end-of-comparison mails (the embedded worker's). */
+  publicUrl?: string;
 }
 
 /** Comparisons as pg-boss jobs, as a process sees them: its queue connection, and optionally a worker. */
@@ -46,7 +48,10 @@ export function createComparisonJobSystem(db: Database, databaseUrl: string, opt
     await boss.start();
     await createComparisonQueues(boss, expireSeconds);
     if (options.embeddedWorker !== false) {
-      worker = await startComparisonWorker(db, boss, options.workerThreads === undefined ? {} : { threads: options.workerThreads });
+      worker = await startComparisonWorker(db, boss, {
+        ...(options.workerThreads === undefined ? {} : { threads: options.workerThreads }),
+        ...(options.publicUrl === undefined ? {} : { publicUrl: options.publicUrl }),
+      });
     }
     if (options.resume !== false) await resumeComparisonJobs(db, boss);
   })();

@@ -29,6 +29,7 @@ import {
   markComparisonFailed,
   pickState,
 } from "./comparison-repository.js";
+import { noticeRunEnded, publicUrlFromEnv } from "../mail/run-notices.js";
 
 
 /** Comparisons whose plan a worker keeps. */
@@ -39,6 +40,8 @@ const RECONCILE_SECONDS = 60;
 export interface ComparisonWorkerOptions {
   /** Threads of the evaluation pool (default os.availableParallelism()); 0 evaluates in process. */
   threads?: number;
+  /** Address of the app for the links in end-of-comparison mails (default LOOPYARD_PUBLIC_URL, or http://HOST:PORT). */
+  publicUrl?: string;
 }
 
 export interface ComparisonWorker {
@@ -57,6 +60,7 @@ export interface ComparisonWorker {
  */
 export async function startComparisonWorker(db: Database, boss: PgBoss, options: ComparisonWorkerOptions = {}): Promise<ComparisonWorker> {
   const threads = options.threads ?? availableParallelism();
+  const publicUrl = options.publicUrl ?? publicUrlFromEnv();
   const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads }) : null;
   const id = `${hostname()}:${process.pid}:comparisons:${randomUUID().slice(0, 8)}`;
 
@@ -171,6 +175,8 @@ export async function startComparisonWorker(db: Database, boss: PgBoss, options:
         try {
           await handle(job);
         } finally {
+          // The comparison's author is mailed once it has ended (a no-op while it runs).
+          await noticeRunEnded(db, boss, "comparison", (job.data as { comparisonId: string }).comparisonId, publicUrl);
           boss.notifyWorker(workId);
         }
       });

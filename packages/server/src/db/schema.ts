@@ -445,3 +445,37 @@ export const workspaceAuditEvent = pgTable(
   },
   (table) => [index("workspace_audit_event_workspace_idx").on(table.workspaceId, table.at)],
 );
+
+// ---------------------------------------------------------------- mail: notification settings
+
+/**
+ * One person's choice for one kind of mail (core MAIL_KINDS). No row means the kind is on; account
+ * kinds (invitation, password reset, address check) are always sent whatever is stored here.
+ */
+export const notificationSetting = pgTable(
+  "notification_setting",
+  {
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    enabled: boolean("enabled").notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.userId, table.kind] })],
+);
+
+/**
+ * That the author of a sweep or comparison was told it ended (finished or failed): one row per run,
+ * inserted before the mail is queued, so that workers which each see the run end mail once.
+ */
+export const runMailNotice = pgTable(
+  "run_mail_notice",
+  {
+    runKind: text("run_kind").notNull(),
+    runId: uuid("run_id").notNull(),
+    status: text("status").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.runKind, table.runId] })],
+);

@@ -13,6 +13,8 @@ export interface SweepJobSystemOptions {
   resume?: boolean;
   /** Chunk job expiry [s] (default LOOPYARD_CHUNK_EXPIRE_SECONDS or 120). */
   expireSeconds?: number;
+  /** Address of the app for the links in end-of-sweep mails (the embedded worker's). */
+  publicUrl?: string;
 }
 
 /** Sweeps as pg-boss jobs, as the web server sees them: start a sweep, and optionally work on chunks too. */
@@ -32,7 +34,10 @@ export function createSweepJobSystem(db: Database, databaseUrl: string, options:
   const ready = (async () => {
     boss = await startJobQueue(databaseUrl, options.expireSeconds === undefined ? {} : { expireSeconds: options.expireSeconds });
     if (options.embeddedWorker !== false) {
-      worker = await startSweepWorker(db, boss, options.workerThreads === undefined ? {} : { threads: options.workerThreads });
+      worker = await startSweepWorker(db, boss, {
+        ...(options.workerThreads === undefined ? {} : { threads: options.workerThreads }),
+        ...(options.publicUrl === undefined ? {} : { publicUrl: options.publicUrl }),
+      });
     }
     if (options.resume !== false) await resumeSweepJobs(db, boss);
   })();

@@ -12,6 +12,7 @@ import { chunkStatus, completeChunk, countChunkAttempt, failChunk } from "../swe
 import { evaluateRange, loadEvaluationContext, type SweepEvaluationContext } from "../sweeps/sweep-evaluation.js";
 import { findSweepForRun, markSweepFailed } from "../sweeps/sweep-repository.js";
 import { heartbeatWorker, pruneWorkers, registerWorker, removeWorker } from "./worker-repository.js";
+import { noticeRunEnded, publicUrlFromEnv } from "../mail/run-notices.js";
 
 /** Seconds between heartbeats of a worker row. */
 export const HEARTBEAT_SECONDS = 5;
@@ -25,6 +26,8 @@ export interface SweepWorkerOptions {
   threads?: number;
   /** Chunk jobs worked at once (default: threads + 1, so that the pool stays busy while a chunk is stored). */
   concurrency?: number;
+  /** Address of the app for the links in end-of-sweep mails (default LOOPYARD_PUBLIC_URL, or http://HOST:PORT). */
+  publicUrl?: string;
 }
 
 export interface SweepWorker {
@@ -44,6 +47,7 @@ export interface SweepWorker {
  */
 export async function startSweepWorker(db: Database, boss: PgBoss, options: SweepWorkerOptions = {}): Promise<SweepWorker> {
   const threads = options.threads ?? availableParallelism();
+  const publicUrl = options.publicUrl ?? publicUrlFromEnv();
   const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads }) : null;
   const id = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
   await pruneWorkers(db).catch(() => undefined);
@@ -142,6 +146,8 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
       try {
         await handleSearch(job);
       } finally {
+        // The sweep's author is mailed once it has ended (a no-op while it runs).
+        await noticeRunEnded(db, boss, "sweep", job.data.sweepId, publicUrl);
         boss.notifyWorker(searchWorkId);
       }
     },
@@ -159,6 +165,7 @@ export async function startSweepWorker(db: Database, boss: PgBoss, options: Swee
         try {
           await handle(job);
         } finally {
+          await noticeRunEnded(db, boss, "sweep", job.data.sweepId, publicUrl);
           // After a job, fetch the next one at once instead of waiting out the polling interval.
           boss.notifyWorker(workId);
         }
