@@ -16,6 +16,10 @@ export const queryKeys = {
     ["workspace", slug, "sweeps", sweepId, "front", x, y] as const,
   response: (slug: string, sweepId: string, index: number, variant = 0) =>
     ["workspace", slug, "sweeps", sweepId, "response", index, variant] as const,
+  // Members, invitations and the audit trail.
+  members: (slug: string) => ["workspace", slug, "members"] as const,
+  invitations: (slug: string) => ["workspace", slug, "invitations"] as const,
+  audit: (slug: string) => ["workspace", slug, "audit"] as const,
   // Comparisons of criteria.
   comparisons: (slug: string) => ["workspace", slug, "comparisons"] as const,
   comparison: (slug: string, id: string) => ["workspace", slug, "comparisons", id] as const,
