@@ -7,7 +7,7 @@ import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE } from "./lib/demo.mjs";
 import { httpPort, isHealthy } from "./lib/http.mjs";
 import { REPO_ROOT, SERVER_CLI, WEB_DIST_DIR, rel } from "./lib/paths.mjs";
 import { portAnswers } from "./lib/postgres.mjs";
-import { buildAll, ensureAuthSecret, ensureDatabaseFor, ensureDependencies, migrateAndSeed } from "./lib/preflight.mjs";
+import { buildAll, ensureAuthSecret, ensureDatabaseFor, ensureDependencies, mailSettings, migrateAndSeed } from "./lib/preflight.mjs";
 import { StepError, failAndExit, say } from "./lib/step.mjs";
 
 const HEALTH_TIMEOUT_MS = 60_000;
@@ -25,6 +25,7 @@ async function main() {
   await buildAll();
   const authSecret = ensureAuthSecret();
   await migrateAndSeed(databaseUrl, authSecret);
+  const mail = await mailSettings("start");
 
   await assertPortFree(port, shownHost, url); // once more: something may have taken it during the set-up
   if (!existsSync(join(WEB_DIST_DIR, "index.html"))) {
@@ -43,6 +44,7 @@ async function main() {
       HOST: host,
       LOOPYARD_PUBLIC_URL: process.env.LOOPYARD_PUBLIC_URL || url,
       LOOPYARD_WEB_DIST: process.env.LOOPYARD_WEB_DIST || WEB_DIST_DIR,
+      ...mail.env,
     },
   });
   let exited = false;
@@ -77,7 +79,7 @@ async function main() {
     );
   }
 
-  printWelcome(url);
+  printWelcome(url, mail.line);
   const { code, signal } = await exitedPromise;
   process.exit(signal ? 0 : (code ?? 0));
 }
@@ -89,7 +91,7 @@ async function assertPortFree(port, host, url) {
   throw new StepError(`${what} on ${url}.`, `Stop it (Ctrl+C in its terminal), or serve on another port: PORT=${port + 1} npm start.`);
 }
 
-function printWelcome(url) {
+function printWelcome(url, mailLine) {
   const width = Math.max(...DEMO_USERS.map((u) => u.email.length));
   const lines = [
     "",
@@ -97,6 +99,7 @@ function printWelcome(url) {
     `Demo workspace: ${DEMO_WORKSPACE.name} (${DEMO_WORKSPACE.slug})`,
     `Demo sign-ins, all with the password ${DEMO_PASSWORD}:`,
     ...DEMO_USERS.map((u) => `  ${u.email.padEnd(width)}  ${u.role.padEnd(8)}  ${u.name}`),
+    mailLine,
     "Stop the server with Ctrl+C; stop the database with npm run db:stop.",
     "",
   ];

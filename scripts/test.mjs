@@ -9,7 +9,7 @@ import { existsSync, rmSync } from "node:fs";
 import { join } from "node:path";
 import { REPO_ROOT, TEST_RESULTS_FILE, WEB_DIST_DIR, rel } from "./lib/paths.mjs";
 import { aptInstall } from "./lib/postgres.mjs";
-import { buildAll, ensureAuthSecret, ensureDatabaseFor, ensureDependencies, migrateAndSeed } from "./lib/preflight.mjs";
+import { buildAll, ensureAuthSecret, ensureDatabaseFor, ensureDependencies, mailSettings, migrateAndSeed } from "./lib/preflight.mjs";
 import { StepError, failAndExit, say, step } from "./lib/step.mjs";
 import { PROJECTS, countsLine, summarize } from "./lib/test-summary.mjs";
 
@@ -63,7 +63,10 @@ async function main() {
   const authSecret = ensureAuthSecret();
   await migrateAndSeed(databaseUrl, authSecret);
 
-  const env = { DATABASE_URL: databaseUrl, LOOPYARD_AUTH_SECRET: authSecret, LOOPYARD_WEB_DIST: WEB_DIST_DIR };
+  // The browser project's app server (cli.js serve) starts the local mail sink with these.
+  const mail = await mailSettings("test");
+  say(mail.line);
+  const env = { DATABASE_URL: databaseUrl, LOOPYARD_AUTH_SECRET: authSecret, LOOPYARD_WEB_DIST: WEB_DIST_DIR, ...mail.env };
   let vitestCode = 0;
   const reports = [];
   for (const pass of passes()) {

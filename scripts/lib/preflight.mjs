@@ -1,7 +1,8 @@
 // The set-up shared by `npm start` and `npm test`: npm dependencies, local PostgreSQL, database,
 // build, migrations, demo seed and the auth secret. Each step prints one line.
 import { randomBytes } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { createServer } from "node:net";
 import { join } from "node:path";
 import { ensureDatabase, recreateDatabase, redact, withDatabase, databaseName } from "./database.mjs";
 import { ensureCluster, findPgBinDir, installPostgres, localDatabaseUrl, pgPort, preparePostgresFolders, startCluster } from "./postgres.mjs";
@@ -134,3 +135,39 @@ export async function migrateAndSeed(databaseUrl, authSecret) {
   await runServerCli("seed", { databaseUrl, authSecret, label: "Demo seed" });
 }
 
+
+/** Default port of the local mail sink that `cli.js serve` starts when SMTP_URL is not set. */
+export const DEFAULT_SMTP_SINK_PORT = 2525;
+
+/** A TCP port on 127.0.0.1 that is free at the moment of asking. */
+function freeLoopbackPort() {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.once("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.address();
+      server.close(() => resolve(typeof address === "object" && address ? address.port : 0));
+    });
+  });
+}
+
+/**
+ * Where the app's mail goes, as environment for the server and a line for the banner: SMTP_URL
+ * when set (a real server, no local sink), else the local sink that `cli.js serve` starts on
+ * 127.0.0.1:LOOPYARD_SMTP_PORT, writing each message as an .eml file into .data/mail (npm start)
+ * or .data/mail-test, emptied first (npm test, on a free port unless LOOPYARD_SMTP_PORT is set).
+ */
+export async function mailSettings(purpose) {
+  if (process.env.SMTP_URL) {
+    const shown = process.env.SMTP_URL.replace(/\/\/([^:/@]+):[^@]*@/, "//$1:***@");
+    return { env: {}, line: `Mail goes to ${shown} (SMTP_URL); the Outbox page lists nothing.` };
+  }
+  const folder = process.env.LOOPYARD_MAIL_DIR || join(DATA_DIR, purpose === "test" ? "mail-test" : "mail");
+  if (purpose === "test") rmSync(folder, { recursive: true, force: true });
+  mkdirSync(folder, { recursive: true });
+  const port = process.env.LOOPYARD_SMTP_PORT || String(purpose === "test" ? await freeLoopbackPort() : DEFAULT_SMTP_SINK_PORT);
+  return {
+    env: { LOOPYARD_SMTP_PORT: port, LOOPYARD_MAIL_DIR: folder },
+    line: `Mail: local sink on smtp://127.0.0.1:${port}; the outbox is ${rel(folder)}/ (one .eml per message; admins: Outbox page).`,
+  };
+}

@@ -82,6 +82,8 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
       return {};
+    case "PUT /api/me/notifications":
+      return { settings: [{ kind: "sweep-finished", enabled: false }, { kind: "decision-commented", enabled: true }] };
     default:
       throw new Error(`No valid body for ${route.method} ${route.path}: add one to the fuzzer.`);
   }
@@ -223,7 +225,7 @@ describe("fuzzing every input over HTTP", () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...getRoutes),
-        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":index", "?"),
+        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":index", ":messageId", "?"),
         segment,
         segment,
         async (route, where, value, query) => {

@@ -13,7 +13,7 @@ import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startMailSink, type MailSink } from "../../packages/server/src/index.js";
-import { dropQueuedMail, secretOf, waitForMail } from "../support/mail-inbox.js";
+import { secretOf, waitForMail } from "../support/mail-inbox.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
 import { addMemberInDatabase, twoLagPlant, workspaceWithTeam } from "./fixtures.js";
@@ -53,7 +53,6 @@ function expectSentence(body: any, pattern: RegExp): void {
 beforeAll(async () => {
   folder = await mkdtemp(path.join(tmpdir(), "loopyard-invitations-"));
   sink = await startMailSink({ port: 0, folder });
-  await dropQueuedMail(process.env.DATABASE_URL!);
   server = await startTestServer({
     embeddedWorker: false,
     mail: { smtpUrl: sink.url, from: "Loopyard <loopyard@localhost>", sink: { host: sink.host, port: sink.port, folder }, retry: { retryLimit: 2, retryDelaySeconds: 1 } },

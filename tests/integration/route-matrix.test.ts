@@ -13,9 +13,12 @@
  * - never a 500.
  */
 import { randomUUID } from "node:crypto";
+import { mkdtemp, rm } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { ROLES, type Role } from "@loopyard/core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { routeTable, type RouteEntry } from "../../packages/server/src/index.js";
+import { routeTable, startMailSink, type MailSink, type RouteEntry } from "../../packages/server/src/index.js";
 import { createApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
@@ -32,6 +35,7 @@ let ids: {
   revisionId: string;
   sweepId: string;
   comparisonId: string;
+  messageId: string;
   plantName: string;
   sweepName: string;
   comparisonName: string;
@@ -40,6 +44,9 @@ let ids: {
   /** A pending invitation the matrix re-sends and then revokes. */
   invitationId: string;
 };
+/** The local mail sink of this file's server: the sweep's end mail gives the outbox a message to open. */
+let sink: MailSink;
+let mailFolder: string;
 
 /** A 2 × 2 PI grid on the two-lag plant, 5 s at 10 ms: four candidates, done in a moment. */
 function tinySweep(name: string, plantRevisionId: string) {
@@ -98,6 +105,8 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
       return undefined;
+    case "PUT /api/me/notifications":
+      return { settings: [{ kind: "comparison-finished", enabled: true }] };
     case "POST /api/workspaces/:slug/members":
       return { email: `matrix-gone-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" };
     case "POST /api/workspaces/:slug/invitations":
@@ -126,6 +135,7 @@ function fill(path: string, slug: string): string {
     .replace(":sweepId", ids.sweepId)
     .replace(":comparisonId", ids.comparisonId)
     .replace(":index", "0")
+    .replace(":messageId", ids.messageId)
     .replace(":sessionId", randomUUID())
     .replace(":userId", ids.userId)
     .replace(":invitationId", ids.invitationId);
@@ -145,7 +155,12 @@ function expectNoLeak(body: unknown): void {
 }
 
 beforeAll(async () => {
-  server = await startTestServer({ limits: { maxCandidates: 1_000, maxConcurrentSweeps: 20 } });
+  mailFolder = await mkdtemp(path.join(tmpdir(), "loopyard-matrix-mail-"));
+  sink = await startMailSink({ port: 0, folder: mailFolder });
+  server = await startTestServer({
+    limits: { maxCandidates: 1_000, maxConcurrentSweeps: 20 },
+    mail: { smtpUrl: sink.url, from: "Loopyard <loopyard@localhost>", sink: { host: sink.host, port: sink.port, folder: mailFolder }, retry: { retryLimit: 8, retryDelaySeconds: 1 } },
+  });
   team = await workspaceWithTeam(server.url, "Matrix");
   const leadUser = await signedInClient(server.url, "Matrix lead");
   lead = leadUser.client;
@@ -154,6 +169,7 @@ beforeAll(async () => {
   other = await workspaceWithTeam(server.url, "Matrix other");
   const plantName = `Matrix secret plant ${randomUUID().slice(0, 8)}`;
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant(plantName));
+  expect(plant.status, JSON.stringify(plant.body)).toBe(201);
   const sweepName = `Matrix secret sweep ${randomUUID().slice(0, 8)}`;
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, tinySweep(sweepName, plant.body.revision.id));
   expect(sweep.status).toBe(201);
@@ -162,6 +178,13 @@ beforeAll(async () => {
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, tinyComparison(comparisonName, plant.body.revision.id));
   expect(comparison.status, JSON.stringify(comparison.body)).toBe(201);
   await waitForComparison(team.viewer, team.slug, comparison.body.id);
+  // The sweep's end mail to its author, as the team's admin sees it in the outbox.
+  let messageId = "";
+  for (const deadline = Date.now() + 30_000; messageId === "" && Date.now() < deadline; await new Promise((r) => setTimeout(r, 200))) {
+    const outbox = await team.admin.get(`/api/workspaces/${team.slug}/outbox`);
+    messageId = outbox.body.messages?.find((m: { subject: string }) => m.subject === `Sweep finished: ${sweepName}`)?.id ?? "";
+  }
+  expect(messageId, "the sweep's end mail reached the outbox").not.toBe("");
   const target = await signedInClient(server.url, "Matrix role target");
   await addMemberInDatabase(team.slug, target.user.email, "viewer");
   const targetMe = await target.client.get("/api/me");
@@ -172,6 +195,7 @@ beforeAll(async () => {
     revisionId: plant.body.revision.id,
     sweepId: sweep.body.id,
     comparisonId: comparison.body.id,
+    messageId,
     plantName,
     sweepName,
     comparisonName,
@@ -182,6 +206,8 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await server?.close();
+  await sink?.close();
+  if (mailFolder) await rm(mailFolder, { recursive: true, force: true });
 });
 
 describe("route × role matrix", () => {
@@ -223,7 +249,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId|:userId|:invitationId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:messageId|:userId|:invitationId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

@@ -18,6 +18,8 @@ import { ComparisonDetailPage } from "./features/comparisons/comparison-detail-p
 import { ComparisonListPage } from "./features/comparisons/comparison-list-page.js";
 import { ComparisonNewPage } from "./features/comparisons/comparison-new-page.js";
 import { ComparisonsAcrossPage } from "./features/comparisons/comparisons-across-page.js";
+import { NotificationSettingsPage } from "./features/mail/notification-settings-page.js";
+import { OutboxPage } from "./features/mail/outbox-page.js";
 import { CreateWorkspacePage } from "./features/workspace/create-workspace-page.js";
 import { NotFoundPage } from "./features/workspace/not-found-page.js";
 import { RootRedirect } from "./features/workspace/root-redirect.js";
@@ -55,6 +57,8 @@ export const router = createBrowserRouter([
           { path: "comparisons/across", element: <ComparisonsAcrossPage /> },
           { path: "comparisons/:comparisonId", element: <ComparisonDetailPage /> },
           { path: "members", element: <MembersPage /> },
+          { path: "outbox", element: <OutboxPage /> },
+          { path: "notifications", element: <NotificationSettingsPage /> },
           { path: "*", element: <NotFoundPage inWorkspace /> },
         ],
       },

@@ -12,8 +12,14 @@ const MAIL_POLL_SECONDS = 1;
  * retry limit; a message that failed for good stays in pgboss.job with its error.
  */
 export async function startMailWorker(boss: PgBoss, send: SendMail): Promise<{ close(): Promise<void> }> {
-  const workId = await boss.work<MailJobData>(MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: MAIL_POLL_SECONDS }, async (jobs) => {
-    for (const job of jobs) await send(job.data);
+  let workId = "";
+  workId = await boss.work<MailJobData>(MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: MAIL_POLL_SECONDS }, async (jobs) => {
+    try {
+      for (const job of jobs) await send(job.data);
+    } finally {
+      // Fetch the next message at once instead of waiting out the polling interval.
+      boss.notifyWorker(workId);
+    }
   });
   return {
     async close() {

@@ -3,6 +3,7 @@ import type { CriterionId } from "@loopyard/core";
 /** Query keys, one tree per workspace so that invalidating a workspace refreshes all of it. */
 export const queryKeys = {
   me: ["me"] as const,
+  notifications: ["me", "notifications"] as const,
   workspace: (slug: string) => ["workspace", slug] as const,
   plants: (slug: string) => ["workspace", slug, "plants"] as const,
   plant: (slug: string, plantId: string, revision?: number) =>
@@ -26,4 +27,7 @@ export const queryKeys = {
   comparisonResult: (slug: string, id: string) => ["workspace", slug, "comparisons", id, "result"] as const,
   comparisonResponses: (slug: string, id: string, variant: number | null) => ["workspace", slug, "comparisons", id, "responses", variant ?? "worst"] as const,
   comparisonsAcross: (slug: string, judge: string) => ["workspace", slug, "comparisons", "across", judge] as const,
+  // Mail: the workspace's outbox (admins).
+  outbox: (slug: string) => ["workspace", slug, "outbox"] as const,
+  outboxMessage: (slug: string, id: string) => ["workspace", slug, "outbox", id] as const,
 };

@@ -22,6 +22,9 @@ const NAV = [
   { to: "members", label: "Members", end: false, testId: "nav-members" },
 ] as const;
 
+/** Shown to admins only (the server refuses the outbox to everyone else). */
+const ADMIN_NAV = { to: "outbox", label: "Outbox", end: false, testId: "nav-outbox" } as const;
+
 /** The frame of every workspace page: top bar (wordmark, workspace, user menu), left nav, content. */
 export function Layout({ workspace, role, user, otherWorkspaces, onSignOut, signingOut, children }: LayoutProps) {
   const base = `/w/${workspace.slug}`;
@@ -61,6 +64,9 @@ export function Layout({ workspace, role, user, otherWorkspaces, onSignOut, sign
                   ))}
                 </div>
               ) : null}
+              <Link to={`${base}/notifications`} className="block rounded px-3 py-1.5 hover:bg-paper" data-testid="menu-notifications">
+                Notification settings
+              </Link>
               <Link to="/workspaces/new" className="block rounded px-3 py-1.5 hover:bg-paper">
                 New workspace
               </Link>
@@ -80,7 +86,7 @@ export function Layout({ workspace, role, user, otherWorkspaces, onSignOut, sign
       <div className="flex flex-1">
         <nav aria-label="Workspace" className="w-48 shrink-0 border-r border-line px-3 py-5">
           <ul className="space-y-0.5">
-            {NAV.map((item) => (
+            {[...NAV, ...(role === "admin" ? [ADMIN_NAV] : [])].map((item) => (
               <li key={item.label}>
                 <NavLink
                   to={item.to === "" ? base : `${base}/${item.to}`}
