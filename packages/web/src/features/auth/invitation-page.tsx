@@ -105,7 +105,7 @@ export function InvitationPage() {
             data-testid="invitation-accept"
             onClick={() => accept.mutate(token, { onSuccess: (joined) => navigate(`/w/${joined.workspace.slug}`, { replace: true }) })}
           >
-            {accept.isPending ? "Joining…" : "Accept and open the workspace"}
+            {accept.isPending ? "Joining…" : "Accept and join"}
           </Button>
           <Button tone="quiet" disabled={accept.isPending || decline.isPending} data-testid="invitation-decline" onClick={() => decline.mutate(token)}>
             Decline
