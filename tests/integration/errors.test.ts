@@ -72,18 +72,23 @@ describe("workspaces and members", () => {
     expect(response.body.error.field).toBe("name");
   });
 
-  it("when an admin adds an unknown email, a member twice or a bad role, then the answers say which", async () => {
-    const unknown = await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: freshUser("Nobody").email, role: "viewer" });
-    expect(unknown.status).toBe(404);
-    expect(unknown.body.error.field).toBe("email");
+  it("when an admin adds a member by address, then 410 pointing to invitations; a member invited again or a bad role say which", async () => {
+    const gone = await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: freshUser("Nobody").email, role: "viewer" });
+    expect(gone.status).toBe(410);
+    expect(gone.body.error.message).toMatch(/invite people instead/);
 
     const me = await team.engineer.get("/api/me");
-    const twice = await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: me.body.user.email, role: "lead" });
+    const twice = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: me.body.user.email, role: "lead" });
     expect(twice.status).toBe(409);
+    expect(twice.body.error.field).toBe("email");
 
-    const badRole = await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: me.body.user.email, role: "owner" });
+    const badRole = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: me.body.user.email, role: "owner" });
     expect(badRole.status).toBe(400);
     expect(badRole.body.error.field).toBe("role");
+
+    const badEmail = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: "not an address", role: "viewer" });
+    expect(badEmail.status).toBe(400);
+    expect(badEmail.body.error.field).toBe("email");
   });
 
   it("when a viewer opens the workspace home, then it shows the role and the team", async () => {

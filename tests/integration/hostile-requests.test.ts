@@ -8,7 +8,7 @@ import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
-import { twoLagPlant, workspaceWithTeam } from "./fixtures.js";
+import { addMemberInDatabase, twoLagPlant, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
@@ -77,7 +77,7 @@ beforeAll(async () => {
   team.engineer = await signedIn(team.credentials.engineer.email, team.credentials.engineer.password);
   const leadUser = await signedInClient(server.url, "Hostile lead");
   lead = leadUser.client;
-  await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: leadUser.user.email, role: "lead" });
+  await addMemberInDatabase(team.slug, leadUser.user.email, "lead");
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Hostile plant"));
   expect(plant.status).toBe(201);
   revisionId = plant.body.revision.id;
@@ -337,7 +337,7 @@ describe("cross-site requests", () => {
 describe("cancel rights", () => {
   it("when an engineer cancels a colleague's sweep, then 403; its author, a lead and an admin may", async () => {
     const colleague = await signedInClient(server.url, "Hostile colleague");
-    await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: colleague.user.email, role: "engineer" });
+    await addMemberInDatabase(team.slug, colleague.user.email, "engineer");
     const ids: string[] = [];
     for (let i = 0; i < 3; i += 1) {
       const created = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, queuedSweep(`Cancel rights ${i}`));

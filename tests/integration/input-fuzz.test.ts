@@ -15,7 +15,7 @@ import { createApp, routeTable, type RouteEntry } from "../../packages/server/sr
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
 import { smallComparison } from "./comparison-fixtures.js";
-import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { addMemberInDatabase, twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 const ANSWER_BUDGET_MS = 2_000;
 const HEALTH_BUDGET_MS = 200;
@@ -25,7 +25,7 @@ const RUNS = 25;
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string; userId: string; invitationId: string };
 let healthWorst = 0;
 let healthWorstDuring = "";
 let phase = "set-up";
@@ -78,6 +78,18 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
     case "POST /api/workspaces/:slug/decisions/:decisionId/approve":
     case "POST /api/workspaces/:slug/decisions/:decisionId/withdraw":
       return {};
+    case "POST /api/workspaces/:slug/invitations":
+      return { email: "fuzz-invitee@loopyard-tests.example", role: "viewer" };
+    case "PATCH /api/workspaces/:slug/members/:userId":
+      return { role: "engineer" };
+    case "DELETE /api/workspaces/:slug/members/:userId":
+    case "POST /api/workspaces/:slug/invitations/:invitationId/resend":
+    case "POST /api/workspaces/:slug/invitations/:invitationId/revoke":
+      return {};
+    case "POST /api/invitations/preview":
+    case "POST /api/invitations/accept":
+    case "POST /api/invitations/decline":
+      return { token: "A".repeat(43) };
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
@@ -152,14 +164,19 @@ function encode(text: string): string {
 }
 
 function fill(path: string): string {
-  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":index", "0").replace(":sessionId", randomUUID());
+  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":index", "0").replace(":sessionId", randomUUID()).replace(":userId", ids.userId).replace(":invitationId", ids.invitationId);
 }
 
 beforeAll(async () => {
   server = await startTestServer({ limits: { maxCandidates: 1_000, maxConcurrentSweeps: 3 } });
   team = await workspaceWithTeam(server.url, "Fuzz");
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Fuzz base"));
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "" };
+  // A member the fuzzer may demote and remove, and a pending invitation it may re-send and revoke.
+  const target = await signedInClient(server.url, "Fuzz role target");
+  await addMemberInDatabase(team.slug, target.user.email, "viewer");
+  const targetMe = await target.client.get("/api/me");
+  const invited = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: `fuzz-pending-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" });
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "", userId: targetMe.body.user.id, invitationId: invited.body.id };
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, validBody({ method: "POST", path: "/api/workspaces/:slug/sweeps", role: "engineer" }));
   ids.sweepId = sweep.body.id;
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, validBody({ method: "POST", path: "/api/workspaces/:slug/comparisons", role: "engineer" }));
@@ -195,13 +212,18 @@ describe("fuzzing every input over HTTP", () => {
     }, 120_000);
   }
 
-  for (const path of ["/api/auth/sign-up/email", "/api/auth/sign-in/email", "/api/auth/update-user"]) {
+  for (const path of ["/api/auth/sign-up/email", "/api/auth/sign-in/email", "/api/auth/update-user", "/api/auth/request-password-reset", "/api/auth/reset-password"]) {
     it(`POST ${path}: hostile bodies → never a 5xx, never over 2 s`, async () => {
       phase = `POST ${path}`;
       const user = freshUser("Fuzz auth");
       const { client } = await signedInClient(server.url, "Fuzz auth user");
+      const valid: Record<string, unknown> = path.endsWith("request-password-reset")
+        ? { email: user.email, redirectTo: "/reset-password" }
+        : path.endsWith("/reset-password")
+          ? { newPassword: user.password, token: "A".repeat(24) }
+          : { name: user.name, email: user.email, password: user.password };
       await fc.assert(
-        fc.asyncProperty(bodies({ name: user.name, email: user.email, password: user.password }), (body) =>
+        fc.asyncProperty(bodies(valid), (body) =>
           probe(path.endsWith("update-user") ? client : new ApiClient(server.url), "POST", path, body),
         ),
         // Fewer runs: each sign-up or sign-in hashes a password (scrypt), about 0.1 s of CPU.

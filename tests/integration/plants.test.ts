@@ -57,10 +57,10 @@ describe("plant library roles", () => {
     expect(refused.body.error.message.replace(team.slug, "SLUG")).toBe(missing.body.error.message.replace("no-such-workspace-anywhere", "SLUG"));
   });
 
-  it("when an engineer adds a member, then the answer is 403 naming the admin role", async () => {
-    const response = await team.engineer.post(`/api/workspaces/${team.slug}/members`, { email: "jon@halvard.example", role: "viewer" });
+  it("when an engineer invites someone, then the answer is 403 naming the admin role", async () => {
+    const response = await team.engineer.post(`/api/workspaces/${team.slug}/invitations`, { email: "jon@halvard.example", role: "viewer" });
     expect(response.status).toBe(403);
-    expect(response.body.error.message).toBe(`Adding members needs the admin role in ${team.name}; you are an engineer.`);
+    expect(response.body.error.message).toBe(`Inviting people needs the admin role in ${team.name}; you are an engineer.`);
   });
 });
 

@@ -23,14 +23,29 @@ import { createApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
 import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
-import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { addMemberInDatabase, twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
 let lead: ApiClient;
 let nonMember: ApiClient;
 let other: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; messageId: string; decisionId: string; decisionTitle: string; plantName: string; sweepName: string; comparisonName: string };
+let ids: {
+  plantId: string;
+  revisionId: string;
+  sweepId: string;
+  comparisonId: string;
+  messageId: string;
+  decisionId: string;
+  decisionTitle: string;
+  plantName: string;
+  sweepName: string;
+  comparisonName: string;
+  /** A member whose role the matrix changes and whom it then removes. */
+  userId: string;
+  /** A pending invitation the matrix re-sends and then revokes. */
+  invitationId: string;
+};
 /** The local mail sink of this file's server: the sweep's end mail gives the outbox a message to open. */
 let sink: MailSink;
 let mailFolder: string;
@@ -109,10 +124,21 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
       return undefined;
     case "PUT /api/me/notifications":
       return { settings: [{ kind: "comparison-finished", enabled: true }] };
-    case "POST /api/workspaces/:slug/members": {
-      const { user } = await signedInClient(server.url, "Matrix joiner");
-      return { email: user.email, role: "viewer" };
-    }
+    case "POST /api/workspaces/:slug/members":
+      return { email: `matrix-gone-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" };
+    case "POST /api/workspaces/:slug/invitations":
+      return { email: `matrix-invitee-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "engineer" };
+    case "PATCH /api/workspaces/:slug/members/:userId":
+      return { role: "engineer" };
+    case "DELETE /api/workspaces/:slug/members/:userId":
+    case "POST /api/workspaces/:slug/invitations/:invitationId/resend":
+    case "POST /api/workspaces/:slug/invitations/:invitationId/revoke":
+      return undefined;
+    case "POST /api/invitations/preview":
+    case "POST /api/invitations/accept":
+    case "POST /api/invitations/decline":
+      // A well-formed token that no invitation has: an answer about the caller's own request (404).
+      return { token: "A".repeat(43) };
     default:
       throw new Error(`No sample body for ${route.method} ${route.path}: add one to the route matrix.`);
   }
@@ -128,7 +154,9 @@ function fill(path: string, slug: string): string {
     .replace(":decisionId", ids.decisionId)
     .replace(":index", "0")
     .replace(":messageId", ids.messageId)
-    .replace(":sessionId", randomUUID());
+    .replace(":sessionId", randomUUID())
+    .replace(":userId", ids.userId)
+    .replace(":invitationId", ids.invitationId);
 }
 
 /** A query string for each GET route that needs one to answer 2xx (the rest answer without). */
@@ -150,7 +178,7 @@ async function call(client: ApiClient, route: RouteEntry, slug: string) {
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle, ids.invitationId]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -165,7 +193,7 @@ beforeAll(async () => {
   team = await workspaceWithTeam(server.url, "Matrix");
   const leadUser = await signedInClient(server.url, "Matrix lead");
   lead = leadUser.client;
-  await team.admin.post(`/api/workspaces/${team.slug}/members`, { email: leadUser.user.email, role: "lead" });
+  await addMemberInDatabase(team.slug, leadUser.user.email, "lead");
   nonMember = (await signedInClient(server.url, "Matrix outsider")).client;
   other = await workspaceWithTeam(server.url, "Matrix other");
   const plantName = `Matrix secret plant ${randomUUID().slice(0, 8)}`;
@@ -186,7 +214,25 @@ beforeAll(async () => {
     messageId = outbox.body.messages?.find((m: { subject: string }) => m.subject === `Sweep finished: ${sweepName}`)?.id ?? "";
   }
   expect(messageId, "the sweep's end mail reached the outbox").not.toBe("");
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, comparisonId: comparison.body.id, messageId, decisionId: "", plantName, sweepName, comparisonName, decisionTitle: "" };
+  const target = await signedInClient(server.url, "Matrix role target");
+  await addMemberInDatabase(team.slug, target.user.email, "viewer");
+  const targetMe = await target.client.get("/api/me");
+  const invited = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: `matrix-pending-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" });
+  expect(invited.status, JSON.stringify(invited.body)).toBe(201);
+  ids = {
+    plantId: plant.body.plant.id,
+    revisionId: plant.body.revision.id,
+    sweepId: sweep.body.id,
+    comparisonId: comparison.body.id,
+    messageId,
+    decisionId: "",
+    decisionTitle: "",
+    plantName,
+    sweepName,
+    comparisonName,
+    userId: targetMe.body.user.id,
+    invitationId: invited.body.id,
+  };
   // The engineer proposes, so that the lead's and the admin's approval pass the four-eyes rule.
   ids.decisionTitle = `Matrix secret proposal ${randomUUID().slice(0, 8)}`;
   const decision = await team.engineer.post(`/api/workspaces/${team.slug}/decisions`, tinyProposal(ids.decisionTitle));
@@ -239,7 +285,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId|:messageId|:decisionId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:messageId|:decisionId|:userId|:invitationId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

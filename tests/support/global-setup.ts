@@ -8,6 +8,7 @@ import { createServer } from "node:net";
 import { fileURLToPath } from "node:url";
 import type {} from "vitest";
 import type { TestProject } from "vitest/node";
+import { dropQueuedMail } from "./mail-inbox.js";
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -74,6 +75,9 @@ export default async function setup(project: TestProject): Promise<() => Promise
     throw new Error(`Browser tests need the built app (${SERVER_CLI} and ${WEB_DIST}/index.html): run \`npx turbo run build\` or \`npm test\`.`);
   }
 
+  // Mail the integration pass queued without sending it would go first (one message a second); the
+  // browser tests' server starts with an empty mail queue.
+  await dropQueuedMail(databaseUrl);
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
   mkdirSync(repo(".data/logs"), { recursive: true });

@@ -4,7 +4,14 @@
 export { MAX_PLANT_ORDER, transferFunctionSchema } from "./plants/transfer-function.js";
 export { plantModelSchema } from "./plants/plant.js";
 export { plantInputSchema } from "./schemas/plant-input.js";
-export { SLUG_PATTERN, memberInputSchema, workspaceInputSchema, workspaceNameSchema } from "./schemas/workspace-input.js";
+export { SLUG_PATTERN, workspaceInputSchema, workspaceNameSchema } from "./schemas/workspace-input.js";
+export {
+  INVITATION_LIFETIME_DAYS,
+  INVITATION_TOKEN_PATTERN,
+  invitationInputSchema,
+  invitationTokenInputSchema,
+  memberRoleInputSchema,
+} from "./schemas/member-input.js";
 export { textField, hasForbiddenControl, isWellFormedText } from "./schemas/text.js";
 export type { TextFieldConfig } from "./schemas/text.js";
 export { CRITERION_IDS } from "./criteria/criterion-id.js";
@@ -329,7 +336,8 @@ export type { FamilyBoundCurve } from "./evaluation/family-bound-curve.js";
 export type { TransferFunctionPlant } from "./plants/transfer-function.js";
 export type { Plant, PlantKind } from "./plants/plant.js";
 export type { PlantInput, PlantInputParsed } from "./schemas/plant-input.js";
-export type { MemberInput, WorkspaceInput } from "./schemas/workspace-input.js";
+export type { WorkspaceInput } from "./schemas/workspace-input.js";
+export type { InvitationInput, InvitationTokenInput, MemberRoleInput } from "./schemas/member-input.js";
 export type { PidController } from "./controllers/pid.js";
 export type { CriterionId } from "./criteria/criterion-id.js";
 export type { DerivativeFilter } from "./controllers/derivative-filter.js";
@@ -352,6 +360,7 @@ export type {
 export type { Role } from "./api/roles.js";
 export type { Complex } from "./linear-algebra/complex.js";
 export type * from "./api/dto.js";
+export type * from "./api/member-dto.js";
 export type { SisoStateSpace, DiscreteSisoStateSpace } from "./linear-algebra/siso-state-space.js";
 export type { NormalizedTransferFunction } from "./plants/normalize-transfer-function.js";
 export type { IdealPidParameters } from "./controllers/pid-ideal-form.js";

@@ -28,6 +28,10 @@ import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
 import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
+// Members: invitations by mail, roles, the audit trail.
+import { invitationRoutes } from "./members/invitation-routes.js";
+import { memberRoutes } from "./members/member-routes.js";
+import type { SendAccountMail } from "./members/account-mail.js";
 // Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
 import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
 import { notificationRoutes } from "./mail/notification-routes.js";
@@ -68,7 +72,7 @@ export interface LoopyardApp {
 export function createApp(config: AppConfig): LoopyardApp {
   const database = createDatabase(config.databaseUrl);
   const { db } = database;
-  const auth = createAuth(db, config);
+  const sessions = new SessionCache();
   const background = new BackgroundTasks();
   const compute = createCompute();
   const jobs = createSweepJobSystem(db, config.databaseUrl, {
@@ -87,8 +91,12 @@ export function createApp(config: AppConfig): LoopyardApp {
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
   const mail = createMailSystem(db, config.databaseUrl, config.mail ?? null, comparisonJobs.ready);
+  // Invitations, password resets and address checks go through the same mail queue.
+  const sendAccountMail: SendAccountMail = async (message) => {
+    await mail.queue(message);
+  };
+  const auth = createAuth(db, config, { sendMail: sendAccountMail, onPasswordReset: (userId) => sessions.forgetUser(userId) });
 
-  const sessions = new SessionCache();
   void loadCommonPasswords();
   const limits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
   const publicOrigin = new URL(config.publicUrl).origin;
@@ -137,6 +145,8 @@ export function createApp(config: AppConfig): LoopyardApp {
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
+  app.use("/api/workspaces/:slug", memberRoutes(db, { sendMail: sendAccountMail, publicUrl: config.publicUrl }));
+  app.use("/api/invitations", invitationRoutes(db, {}));
   app.use("/api/workspaces/:slug/outbox", outboxRoutes(db, config.mail ?? null));
   // The approval mail carries the record's PDF.
   const decisionMailer = createDecisionMailer(db, mail, config.publicUrl, decisionPdfForMail({ db, compute }));

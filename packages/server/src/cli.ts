@@ -62,7 +62,8 @@ async function seedCommand(): Promise<void> {
   // The demo sweeps run as jobs like any other; this process works them (and what else is pending) until they are done.
   const jobs = createSweepJobSystem(database.db, databaseUrl, { embeddedWorker: true, resume: false });
   try {
-    const auth = createAuth(database.db, { authSecret, publicUrl });
+    // The demo accounts are fictional .example addresses marked as checked: the seed mails no one.
+    const auth = createAuth(database.db, { authSecret, publicUrl }, { sendMail: async () => undefined });
     const report = await seedDemo(database.db, auth, jobs);
     // The demo comparison runs through the comparison queues, like any other.
     const comparisonCreated = await seedDemoComparison(database.db, databaseUrl);

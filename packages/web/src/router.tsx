@@ -2,6 +2,11 @@ import { createBrowserRouter } from "react-router";
 import { RequireSession } from "./features/auth/require-session.js";
 import { SignInPage } from "./features/auth/sign-in-page.js";
 import { SignUpPage } from "./features/auth/sign-up-page.js";
+import { ForgotPasswordPage } from "./features/auth/forgot-password-page.js";
+import { ResetPasswordPage } from "./features/auth/reset-password-page.js";
+import { VerifyEmailPage } from "./features/auth/verify-email-page.js";
+import { InvitationPage } from "./features/auth/invitation-page.js";
+import { MembersPage } from "./features/members/members-page.js";
 import { PlantDetailPage } from "./features/plants/plant-detail-page.js";
 import { PlantListPage } from "./features/plants/plant-list-page.js";
 import { PlantNewPage } from "./features/plants/plant-new-page.js";
@@ -26,6 +31,11 @@ import { CandidateSheetPage } from "./features/deployment/candidate-sheet-page.j
 export const router = createBrowserRouter([
   { path: "/sign-in", element: <SignInPage /> },
   { path: "/sign-up", element: <SignUpPage /> },
+  // Pages the account mails link to; their secret is in the hash. The invitation page asks to sign in itself.
+  { path: "/forgot-password", element: <ForgotPasswordPage /> },
+  { path: "/reset-password", element: <ResetPasswordPage /> },
+  { path: "/verify-email", element: <VerifyEmailPage /> },
+  { path: "/invitation", element: <InvitationPage /> },
   {
     element: <RequireSession />,
     children: [
@@ -48,6 +58,7 @@ export const router = createBrowserRouter([
           { path: "comparisons/new", element: <ComparisonNewPage /> },
           { path: "comparisons/across", element: <ComparisonsAcrossPage /> },
           { path: "comparisons/:comparisonId", element: <ComparisonDetailPage /> },
+          { path: "members", element: <MembersPage /> },
           { path: "outbox", element: <OutboxPage /> },
           { path: "notifications", element: <NotificationSettingsPage /> },
           { path: "*", element: <NotFoundPage inWorkspace /> },

@@ -34,6 +34,8 @@ export interface WorkspaceDto {
 /** GET /api/me */
 export interface MeDto {
   user: UserDto;
+  /** False until the address is confirmed (the sign-up mail's link, or accepting an invitation mailed to it). */
+  emailVerified: boolean;
   memberships: { workspace: WorkspaceDto; role: Role }[];
 }
 

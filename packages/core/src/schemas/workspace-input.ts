@@ -1,5 +1,4 @@
 import { z } from "zod";
-import { ROLES } from "../api/roles.js";
 import { MAX_TITLE_LENGTH } from "../limits.js";
 import { textField } from "./text.js";
 
@@ -21,11 +20,4 @@ export const workspaceInputSchema = z.object({
     .optional(),
 });
 
-/** POST /api/workspaces/:slug/members */
-export const memberInputSchema = z.object({
-  email: z.email("give the email address the person signed up with").max(254, "an email address has at most 254 characters"),
-  role: z.enum(ROLES, { error: `choose one of the roles ${ROLES.join(", ")}` }),
-});
-
 export type WorkspaceInput = z.output<typeof workspaceInputSchema>;
-export type MemberInput = z.output<typeof memberInputSchema>;

@@ -6,6 +6,30 @@ import type { Database } from "../db/database.js";
 import { authSchema } from "../db/schema.js";
 import { DEFAULT_RATE_LIMITS, type RateLimits } from "../http/rate-limits.js";
 import { MAX_PASSWORD_LENGTH } from "./auth-input-guard.js";
+import {
+  existingAccountMail,
+  pageLinkWithSecret,
+  passwordResetMail,
+  verificationMail,
+  type AccountMailMessage,
+  type SendAccountMail,
+} from "../members/account-mail.js";
+
+/** How long a password-reset link works [min]. */
+export const RESET_PASSWORD_MINUTES = 60;
+/** How long an address-check link works [h]. */
+export const VERIFY_EMAIL_HOURS = 48;
+/** The web app's pages that open the mailed links; the secret follows after "#". */
+export const RESET_PASSWORD_PAGE = "reset-password";
+export const VERIFY_EMAIL_PAGE = "verify-email";
+
+/** What the auth flows need from the rest of the app. */
+export interface AuthHooks {
+  /** Queues a mail (reset link, address check). */
+  sendMail: SendAccountMail;
+  /** Called after a password reset has ended the user's sessions (the session cache forgets them). */
+  onPasswordReset?: (userId: string) => void;
+}
 
 /** Shortest password a user may choose (core's limit, which the sign-up form reads too). */
 export { MIN_PASSWORD_LENGTH };
@@ -25,12 +49,26 @@ export const CLIENT_ADDRESS_HEADER = "x-loopyard-client-address";
  * Sign-up does not sign in: a taken address gets the same answer as a fresh one (no enumeration of
  * accounts), and the client signs in next. better-auth's rate limiter is on in every mode, per
  * client address and endpoint.
+ *
+ * Password reset and the address check are better-auth's own flows; their mails go through the mail
+ * queue with links to the web app's pages, the secret after "#" (kept out of request logs), and
+ * better-auth stores its reset tokens hashed. Accounts with an unchecked address may sign in (the
+ * page asks them to confirm it); a reset ends every session of the account.
  */
-export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | "publicUrl" | "extraTrustedOrigins" | "rateLimits">) {
+export function createAuth(
+  db: Database,
+  config: Pick<AppConfig, "authSecret" | "publicUrl" | "extraTrustedOrigins" | "rateLimits">,
+  hooks: AuthHooks,
+) {
   const limits: RateLimits = config.rateLimits ?? DEFAULT_RATE_LIMITS;
   const credentials = { window: limits.betterAuthCredentials.windowSeconds, max: limits.betterAuthCredentials.max };
   const origin = new URL(config.publicUrl).origin;
   const extra = (config.extraTrustedOrigins ?? []).map((url) => new URL(url).origin);
+  // Queued without waiting: a request for an address with an account takes as long as one without.
+  const queue = (message: AccountMailMessage) => {
+    void hooks.sendMail(message).catch(() => undefined);
+  };
+  const link = (page: string, secret: string) => pageLinkWithSecret(config.publicUrl, page, secret);
   return betterAuth({
     appName: "Loopyard",
     baseURL: config.publicUrl,
@@ -44,7 +82,31 @@ export function createAuth(db: Database, config: Pick<AppConfig, "authSecret" | 
       maxPasswordLength: MAX_PASSWORD_LENGTH,
       // Off so that sign-up with a taken address answers like a fresh one (better-auth then returns a synthetic user).
       autoSignIn: false,
+      // Unchecked addresses may sign in: invitations are bound to the address and checked by their own token.
+      requireEmailVerification: false,
+      resetPasswordTokenExpiresIn: RESET_PASSWORD_MINUTES * 60,
+      revokeSessionsOnPasswordReset: true,
+      sendResetPassword: async ({ user, token }) => {
+        queue(passwordResetMail({ to: user.email, name: user.name, link: link(RESET_PASSWORD_PAGE, token), expiresInMinutes: RESET_PASSWORD_MINUTES }));
+      },
+      onPasswordReset: async ({ user }) => {
+        hooks.onPasswordReset?.(user.id);
+      },
+      // A sign-up with a taken address answers as a fresh one; the owner gets this mail instead of an address check.
+      onExistingUserSignUp: async ({ user }) => {
+        queue(existingAccountMail({ to: user.email, name: user.name, signInLink: `${config.publicUrl}/sign-in`, resetLink: `${config.publicUrl}/forgot-password` }));
+      },
     },
+    emailVerification: {
+      sendOnSignUp: true,
+      expiresIn: VERIFY_EMAIL_HOURS * 3600,
+      autoSignInAfterVerification: false,
+      sendVerificationEmail: async ({ user, token }) => {
+        queue(verificationMail({ to: user.email, name: user.name, link: link(VERIFY_EMAIL_PAGE, token) }));
+      },
+    },
+    // Reset tokens are looked up by their hash: a copy of the database holds no working link.
+    verification: { storeIdentifier: "hashed" },
     rateLimit: {
       enabled: true,
       storage: "memory",

@@ -1,5 +1,6 @@
 import { migrate } from "drizzle-orm/node-postgres/migrator";
 import { defaultMigrationsFolder } from "../config.js";
+import { installAuditTrailGuard } from "./audit-trail-guard.js";
 import { createDatabase } from "./database.js";
 
 /**
@@ -10,6 +11,7 @@ export async function runMigrations(databaseUrl: string, migrationsFolder = defa
   const handle = createDatabase(databaseUrl, { max: 1 });
   try {
     await migrate(handle.db, { migrationsFolder });
+    await installAuditTrailGuard(handle.db);
   } finally {
     await handle.close();
   }

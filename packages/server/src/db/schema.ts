@@ -9,6 +9,7 @@
  */
 import { sql } from "drizzle-orm";
 import {
+  bigserial,
   boolean,
   doublePrecision,
   index,
@@ -469,6 +470,82 @@ export const decisionSetting = pgTable("decision_setting", {
 });
 
 export const authSchema = { user, session, account, verification };
+
+// ---------------------------------------------------------------- members: invitations and the audit trail
+
+/** State of an invitation; only a pending one can be accepted, declined, revoked or re-sent. */
+export const invitationStatusEnum = pgEnum("invitation_status", ["pending", "accepted", "declined", "revoked"]);
+
+/**
+ * A mailed offer to join a workspace with a role. The link's token is never stored: only its
+ * SHA-256 (token_hash); re-sending makes a new token, so the older link stops working.
+ */
+export const invitation = pgTable(
+  "invitation",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    /** The invited address, lower-cased; only an account with this address may accept. */
+    email: text("email").notNull(),
+    role: roleEnum("role").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    status: invitationStatusEnum("status").notNull().default("pending"),
+    invitedBy: text("invited_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+    /** When the current token was mailed (the first time or a re-send). */
+    sentAt: timestamp("sent_at", { withTimezone: true }).defaultNow().notNull(),
+    sendCount: integer("send_count").notNull().default(1),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    respondedAt: timestamp("responded_at", { withTimezone: true }),
+    respondedBy: text("responded_by").references(() => user.id, { onDelete: "set null" }),
+  },
+  (table) => [
+    // At most one pending invitation per address and workspace.
+    uniqueIndex("invitation_pending_unique").on(table.workspaceId, table.email).where(sql`${table.status} = 'pending'`),
+    index("invitation_workspace_idx").on(table.workspaceId, table.status),
+  ],
+);
+
+/** What a workspace audit event records. */
+export const auditActionEnum = pgEnum("workspace_audit_action", [
+  "invitation-sent",
+  "invitation-resent",
+  "invitation-revoked",
+  "invitation-accepted",
+  "invitation-declined",
+  "role-changed",
+  "member-removed",
+]);
+
+/**
+ * The workspace's append-only audit trail of membership changes. Names and addresses are copied in
+ * (not joined), so an entry reads the same after the people change or leave. The app only ever
+ * inserts; a trigger made at migration time refuses UPDATE and DELETE (db/audit-trail-guard.ts).
+ */
+export const workspaceAuditEvent = pgTable(
+  "workspace_audit_event",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    at: timestamp("at", { withTimezone: true }).defaultNow().notNull(),
+    action: auditActionEnum("action").notNull(),
+    actorId: text("actor_id"),
+    actorName: text("actor_name"),
+    actorEmail: text("actor_email"),
+    /** The person the change is about: the invited address, the member whose role changed or who left. */
+    subjectEmail: text("subject_email").notNull(),
+    subjectName: text("subject_name"),
+    /** The role given (invitation, acceptance) or the new role (role change). */
+    role: roleEnum("role"),
+    /** The role before a role change or removal. */
+    previousRole: roleEnum("previous_role"),
+  },
+  (table) => [index("workspace_audit_event_workspace_idx").on(table.workspaceId, table.at)],
+);
 
 // ---------------------------------------------------------------- mail: notification settings
 

@@ -23,6 +23,15 @@ export const logger: Logger = pino(
   pino.destination({ dest: 1, sync: false, minLength: 4096 }),
 );
 
+/**
+ * A URL as it may be logged: the secrets of better-auth's own links (`?token=…` of the address
+ * check, `/reset-password/<token>`) replaced by "[redacted]". Loopyard's mailed links carry theirs
+ * after "#", which never reaches the server.
+ */
+export function redactSecrets(url: string): string {
+  return url.replace(/([?&]token=)[^&#]*/gi, "$1[redacted]").replace(/(\/reset-password\/)[^/?#]+/g, "$1[redacted]");
+}
+
 /** An incoming X-Request-Id is kept when it looks like an id (a proxy's), else a fresh uuid is made. */
 const REQUEST_ID = /^[A-Za-z0-9._-]{8,64}$/;
 
@@ -46,7 +55,7 @@ export function requestLogger(level: LevelWithSilent): HttpLogger {
     },
     serializers: {
       req(req: { id: unknown; method: string; url: string }) {
-        return { id: req.id, method: req.method, url: req.url };
+        return { id: req.id, method: req.method, url: redactSecrets(req.url) };
       },
       res(res: { statusCode: number }) {
         return { statusCode: res.statusCode };

@@ -5,6 +5,7 @@ import type { Database } from "../db/database.js";
 import { findPlantIdByName, findPlantWithRevisions, insertPlant } from "../plants/plant-repository.js";
 import { findSweepForRun, findSweepIdByName, insertSweep } from "../sweeps/sweep-repository.js";
 import { findUserByEmail } from "../users/user-repository.js";
+import { markEmailVerified } from "../members/member-repository.js";
 import { findWorkspaceBySlug, insertMembership, insertWorkspace } from "../workspaces/workspace-repository.js";
 
 /**
@@ -158,6 +159,8 @@ export async function seedDemo(db: Database, auth: Auth, jobs: DemoSweepJobs, op
       found = await findUserByEmail(db, demo.email);
       if (!found) throw new Error(`signing up ${demo.email} did not create a user`);
       report.usersCreated += 1;
+      // Demo addresses count as checked (no mail goes to the fictional .example domain).
+      await markEmailVerified(db, found.id);
     }
     users.set(demo.email, found);
   }

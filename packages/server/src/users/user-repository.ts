@@ -19,3 +19,9 @@ export async function findUsersByIds(db: Database, ids: readonly string[]): Prom
   const rows = await db.select(userDtoColumns).from(user).where(inArray(user.id, unique));
   return new Map(rows.map((row) => [row.id, row]));
 }
+
+/** Whether the user's address is confirmed (false for an unknown id). */
+export async function isEmailVerified(db: Database, userId: string): Promise<boolean> {
+  const rows = await db.select({ verified: user.emailVerified }).from(user).where(eq(user.id, userId)).limit(1);
+  return rows[0]?.verified ?? false;
+}

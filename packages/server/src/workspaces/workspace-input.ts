@@ -1,3 +1,3 @@
 // The workspace and member schemas live in core, shared with the web app's pages.
-export { memberInputSchema, SLUG_PATTERN, workspaceInputSchema } from "@loopyard/core";
-export type { MemberInput, WorkspaceInput } from "@loopyard/core";
+export { SLUG_PATTERN, workspaceInputSchema } from "@loopyard/core";
+export type { WorkspaceInput } from "@loopyard/core";

@@ -3,8 +3,9 @@ import type { Database } from "../db/database.js";
 import { currentUser } from "../auth/session-middleware.js";
 import { parseBody } from "../http/validation.js";
 import { accessOf, memberOf } from "./require-member.js";
-import { memberInputSchema, workspaceInputSchema } from "./workspace-input.js";
-import { addMember, createWorkspace, getWorkspaceHome } from "./workspace-service.js";
+import { workspaceInputSchema } from "./workspace-input.js";
+import { HttpError } from "../http/http-error.js";
+import { createWorkspace, getWorkspaceHome } from "./workspace-service.js";
 
 /** /api/workspaces */
 export function workspaceRoutes(db: Database): Router {
@@ -19,9 +20,13 @@ export function workspaceRoutes(db: Database): Router {
     res.json(await getWorkspaceHome(db, accessOf(req)));
   });
 
-  router.post("/:slug/members", memberOf(db, "admin", "Adding members"), async (req, res) => {
-    const input = parseBody(memberInputSchema, req);
-    res.status(201).json(await addMember(db, accessOf(req), input));
+  // Gone: adding a registered user by address told whether the address had an account, and added
+  // people without their consent. Members join by accepting a mailed invitation.
+  router.post("/:slug/members", memberOf(db, "viewer", "Adding members"), () => {
+    throw new HttpError(
+      410,
+      "Adding a member by address is gone: invite people instead (POST /api/workspaces/:slug/invitations with { email, role }, admins only); they join when they accept the mailed invitation.",
+    );
   });
 
   return router;

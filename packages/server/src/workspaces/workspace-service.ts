@@ -2,10 +2,10 @@ import { randomBytes } from "node:crypto";
 import type { MeDto, Role, UserDto, WorkspaceDto, WorkspaceHomeDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
-import { findUserByEmail } from "../users/user-repository.js";
+import { isEmailVerified } from "../users/user-repository.js";
 import { listSweepSummaries } from "../sweeps/sweep-repository.js";
 import type { MemberAccess } from "./require-member.js";
-import type { MemberInput, WorkspaceInput } from "./workspace-input.js";
+import type { WorkspaceInput } from "./workspace-input.js";
 import {
   countWorkspaceContents,
   insertMembership,
@@ -31,7 +31,8 @@ export function slugify(name: string): string {
 }
 
 export async function getMe(db: Database, user: UserDto): Promise<MeDto> {
-  return { user, memberships: await listMembershipsOfUser(db, user.id) };
+  const [memberships, emailVerified] = await Promise.all([listMembershipsOfUser(db, user.id), isEmailVerified(db, user.id)]);
+  return { user, emailVerified, memberships };
 }
 
 /**
@@ -66,16 +67,4 @@ export async function getWorkspaceHome(db: Database, access: MemberAccess): Prom
     listSweepSummaries(db, workspace.id, RECENT_SWEEPS),
   ]);
   return { workspace, role, counts, members, recentSweeps };
-}
-
-/** Adds a user who has already signed up to the workspace in `input.role` (admins only). */
-export async function addMember(db: Database, access: MemberAccess, input: MemberInput): Promise<{ user: UserDto; role: Role }> {
-  const { workspace } = access;
-  const member = await findUserByEmail(db, input.email);
-  if (!member) {
-    throw new HttpError(404, `No one has signed up with ${input.email} yet; ask them to sign up first.`, { field: "email" });
-  }
-  const added = await insertMembership(db, workspace.id, member.id, input.role);
-  if (!added) throw new HttpError(409, `${member.name} is already a member of ${workspace.name}.`, { field: "email" });
-  return { user: member, role: input.role };
 }

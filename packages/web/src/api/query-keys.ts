@@ -19,6 +19,10 @@ export const queryKeys = {
     ["workspace", slug, "sweeps", sweepId, "response", index, variant] as const,
   sheet: (slug: string, sweepId: string, index: number, sampleTime: number, method: string, format: string) =>
     ["workspace", slug, "sweeps", sweepId, "sheet", index, sampleTime, method, format] as const,
+  // Members, invitations and the audit trail.
+  members: (slug: string) => ["workspace", slug, "members"] as const,
+  invitations: (slug: string) => ["workspace", slug, "invitations"] as const,
+  audit: (slug: string) => ["workspace", slug, "audit"] as const,
   // Comparisons of criteria.
   comparisons: (slug: string) => ["workspace", slug, "comparisons"] as const,
   comparison: (slug: string, id: string) => ["workspace", slug, "comparisons", id] as const,

@@ -19,6 +19,7 @@ const NAV = [
   { to: "plants", label: "Library", end: false, testId: "nav-library" },
   { to: "sweeps", label: "Sweeps", end: false, testId: "nav-sweeps" },
   { to: "comparisons", label: "Compare criteria", end: false, testId: "nav-comparisons" },
+  { to: "members", label: "Members", end: false, testId: "nav-members" },
 ] as const;
 
 /** Shown to admins only (the server refuses the outbox to everyone else). */

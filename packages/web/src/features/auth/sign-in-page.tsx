@@ -29,7 +29,7 @@ export function SignInPage() {
       footer={
         <>
           New to Loopyard?{" "}
-          <Link to="/sign-up" className="font-medium text-moss hover:underline">
+          <Link to={params.get("next") ? `/sign-up?next=${encodeURIComponent(params.get("next") ?? "/")}` : "/sign-up"} className="font-medium text-moss hover:underline">
             Create an account
           </Link>
         </>
@@ -60,6 +60,9 @@ export function SignInPage() {
         <Button type="submit" tone="primary" className="w-full" disabled={signIn.isPending} data-testid="sign-in-submit">
           {signIn.isPending ? "Signing in…" : "Sign in"}
         </Button>
+        <Link to="/forgot-password" className="block text-center text-sm text-ink-soft hover:text-moss" data-testid="forgot-password-link">
+          Forgot your password?
+        </Link>
       </form>
     </AuthShell>
   );

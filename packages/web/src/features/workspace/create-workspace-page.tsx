@@ -29,7 +29,9 @@ export function CreateWorkspacePage() {
             Back to your workspace
           </Link>
         ) : (
-          <>Or ask a colleague who is an admin of an existing workspace to add {me.data?.user.email ?? "you"} as a member.</>
+          <>
+            Or ask an admin of an existing workspace to invite {me.data?.user.email ?? "you"}: the invitation comes by mail, and its link lets you accept.
+          </>
         )
       }
     >

@@ -22,5 +22,6 @@ export function useWorkspaceRole() {
 /** The sentence shown where an action needs a higher role, e.g. "Creating plants needs the engineer role or higher in …; you are a viewer." */
 export function roleSentence(action: string, needed: Role, workspaceName: string | undefined, role: Role | undefined): string {
   const where = workspaceName ? ` in ${workspaceName}` : "";
-  return `${action} needs the ${needed} role or higher${where}; you are ${role ? `a ${role}` : "not a member"}.`;
+  const level = needed === "admin" ? "the admin role" : `the ${needed} role or higher`;
+  return `${action} needs ${level}${where}; you are ${role ? `${/^[aeiou]/.test(role) ? "an" : "a"} ${role}` : "not a member"}.`;
 }

@@ -26,7 +26,7 @@ export function WorkspaceHomePage() {
       <div className="mb-6 grid grid-cols-3 gap-4">
         <Count label="Plants in the library" value={home.counts.plants} to={`${base}/plants`} testId="count-plants" />
         <Count label="Sweeps" value={home.counts.sweeps} to={`${base}/sweeps`} testId="count-sweeps" />
-        <Count label="Members" value={home.counts.members} testId="count-members" />
+        <Count label="Members" value={home.counts.members} to={`${base}/members`} testId="count-members" />
       </div>
 
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-3">
@@ -60,7 +60,7 @@ export function WorkspaceHomePage() {
           </Section>
         </div>
         <div className="self-start">
-        <Section title="Members" testId="members">
+        <Section title="Members" aside={<Link to={`${base}/members`} className="hover:text-moss">{home.role === "admin" ? "Invite and manage →" : "All members →"}</Link>} testId="members">
           <ul className="space-y-2">
             {home.members.map((m) => (
               <li key={m.user.id} className="flex items-center justify-between gap-3 text-sm">

@@ -7,6 +7,7 @@ import { ErrorNote } from "../../components/error-note.js";
 import { Layout } from "../../components/layout.js";
 import { Loading } from "../../components/loading.js";
 import { Wordmark } from "../../components/wordmark.js";
+import { VerifyNotice } from "../auth/verify-notice.js";
 
 /** Loads the workspace of the route and frames its pages with the top bar and left nav. */
 export function WorkspaceShell() {
@@ -49,6 +50,7 @@ export function WorkspaceShell() {
       signingOut={signOut.isPending}
       onSignOut={() => signOut.mutate(undefined, { onSettled: () => navigate("/sign-in", { replace: true }) })}
     >
+      <VerifyNotice />
       <Outlet />
     </Layout>
   );
