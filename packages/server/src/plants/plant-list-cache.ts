@@ -1,4 +1,5 @@
 import { AnswerCache, cachedAnswer, type CachedAnswer } from "../http/answer-cache.js";
+import { forgetWorkspaceDirectories } from "../workspaces/workspace-directory-cache.js";
 
 /** How long a workspace's serialised plant list is used without reading it again [ms] (bounds what another process's write may leave unseen). */
 export const PLANT_LIST_TTL_MS = 5_000;
@@ -24,8 +25,12 @@ export async function plantListAnswer(workspaceId: string, read: () => Promise<u
   return answer;
 }
 
-/** Forgets every kept plant list (after a write that changes one, once it is committed). */
+/**
+ * Forgets every kept plant list (after a write that changes one, once it is committed), and the
+ * workspaces' directories, which count the plants and name the same people.
+ */
 export function forgetPlantLists(): void {
   generation += 1;
   lists.clear();
+  forgetWorkspaceDirectories();
 }

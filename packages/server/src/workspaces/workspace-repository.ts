@@ -1,9 +1,10 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Role, UserDto, WorkspaceDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
-import { membership, plant, sweep, user, workspace } from "../db/schema.js";
+import { membership, plant, user, workspace } from "../db/schema.js";
 import { userDtoColumns } from "../users/user-repository.js";
 import { forgetMemberships, memberMemo } from "./member-memo.js";
+import { forgetWorkspaceDirectories } from "./workspace-directory-cache.js";
 
 const workspaceDtoColumns = { id: workspace.id, slug: workspace.slug, name: workspace.name };
 
@@ -69,6 +70,7 @@ export async function insertMembership(db: Database, workspaceId: string, userId
     .onConflictDoNothing({ target: [membership.workspaceId, membership.userId] })
     .returning({ userId: membership.userId });
   forgetMemberships();
+  forgetWorkspaceDirectories();
   return rows.length > 0;
 }
 
@@ -93,15 +95,8 @@ export async function listMembers(db: Database, workspaceId: string): Promise<{ 
     .orderBy(asc(user.name));
 }
 
-export async function countWorkspaceContents(db: Database, workspaceId: string): Promise<{ plants: number; sweeps: number; members: number }> {
-  // One round trip for the three counts (the workspace home asks on every visit).
-  const rows = await db
-    .select({
-      plants: sql<number>`(select count(*)::int from ${plant} where ${plant.workspaceId} = ${workspaceId})`,
-      sweeps: sql<number>`(select count(*)::int from ${sweep} where ${sweep.workspaceId} = ${workspaceId})`,
-      members: sql<number>`(select count(*)::int from ${membership} where ${membership.workspaceId} = ${workspaceId})`,
-    })
-    .from(workspace)
-    .where(eq(workspace.id, workspaceId));
-  return rows[0] ?? { plants: 0, sweeps: 0, members: 0 };
+/** How many plants a workspace's library holds. */
+export async function countPlants(db: Database, workspaceId: string): Promise<number> {
+  const rows = await db.select({ n: sql<number>`count(*)::int` }).from(plant).where(eq(plant.workspaceId, workspaceId));
+  return rows[0]?.n ?? 0;
 }
