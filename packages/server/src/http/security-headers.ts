@@ -28,16 +28,16 @@ export const PERMISSIONS_POLICY = [
 
 /**
  * The Content-Security-Policy of the web app's pages: scripts, workers, styles, fonts and data only
- * from the app's own origin. Exceptions, each needed by the chart library (plotly.js): inline styles
- * (it sets style attributes and writes a <style> element), `data:`/`blob:` images (its icons and
- * image exports) and `'unsafe-eval'` in scripts: plotly's WebGL layer compiles its draw calls with
- * `new Function` (without it the sweep page's scattergl cloud stays empty — checked in chromium),
- * and zod compiles its parsers the same way. No script from another origin and no inline script
- * can run, and nothing the server sends is evaluated.
+ * from the app's own origin, and no string ever evaluated as code (no 'unsafe-eval': the chart
+ * library is plotly's strict bundle, whose WebGL draw calls are compiled ahead of time, and zod runs
+ * without its compiled parsers; see packages/web/src/zod-jitless.ts). Exceptions, each needed by
+ * the chart library (plotly.js): inline styles (it sets style attributes and writes a <style>
+ * element) and `data:`/`blob:` images (its icons and image exports). No script from another origin
+ * and no inline script can run, and nothing the server sends is evaluated.
  */
 export const PAGE_CSP_DIRECTIVES = {
   defaultSrc: ["'self'"],
-  scriptSrc: ["'self'", "'unsafe-eval'"],
+  scriptSrc: ["'self'"],
   workerSrc: ["'self'", "blob:"],
   styleSrc: ["'self'", "'unsafe-inline'"],
   imgSrc: ["'self'", "data:", "blob:"],
