@@ -86,3 +86,22 @@ describe("nonlinearSchema", () => {
     expect(nonlinearSchema.safeParse(tank).success).toBe(true);
   });
 });
+
+describe("firstSweepIssue of a weight that fits neither form", () => {
+  it("names the coefficient limit at criterionOptions.weight.den, not zod's 'Invalid input'", async () => {
+    const { criterionOptionsSchema } = await import("../../src/sweeps/sweep-input.js");
+    const { firstSweepIssue } = await import("../../src/sweeps/sweep-issue.js");
+    const result = criterionOptionsSchema.safeParse({ weight: { num: [1], den: Array(20).fill(1) } });
+    expect(result.success).toBe(false);
+    const issue = firstSweepIssue(result.error!);
+    expect(issue.field).toBe("weight.den");
+    expect(issue.sentence).toBe("weight.den: at most 11 coefficients (order 10)");
+  });
+
+  it("names a bad preset's own field when the preset form comes closest", async () => {
+    const { criterionOptionsSchema } = await import("../../src/sweeps/sweep-input.js");
+    const { firstSweepIssue } = await import("../../src/sweeps/sweep-issue.js");
+    const result = criterionOptionsSchema.safeParse({ weight: { preset: "performance", M: -1, omegaB: 1, A: 0 } });
+    expect(firstSweepIssue(result.error!).sentence).toBe("weight.M: M must be > 0");
+  });
+});
