@@ -87,6 +87,43 @@ afterAll(async () => {
   await server?.close();
 });
 
+describe("sizes taken from input, checked before anything is built from them (issue 11, item 1)", () => {
+  const plants = () => `/api/workspaces/${team.slug}/plants`;
+
+  it("when a sweep's ‖W·S‖∞ weight has 20,000 denominator coefficients, then 400 naming the weight, with a sentence", async () => {
+    const response = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, {
+      ...queuedSweep("Huge weight"),
+      criteria: ["iae", "wsNorm"],
+      criterionOptions: { weight: { num: [1], den: Array(20_000).fill(1) } },
+    });
+    expect(response.status).toBe(400);
+    expect(response.body.error.field).toMatch(/^criterionOptions\.weight/);
+    expect(response.body.error.message).toMatch(/at most 11 coefficients/);
+  });
+
+  it("when a state-space plant's B has 5,000 rows, then 400 naming B", async () => {
+    const response = await team.engineer.post(plants(), {
+      name: "Tall B",
+      unitsNote: "",
+      model: { kind: "state-space", A: [[-1]], B: Array(5_000).fill([1]), C: [[1]], D: [[0]] },
+    });
+    expect(response.status).toBe(400);
+    expect(response.body.error.field).toMatch(/B$/);
+    expectSentence(response.body);
+  });
+
+  it("when a nonlinear plant names 5,000 parameters or 5,000 derivatives, then 400 naming the field", async () => {
+    const base = { kind: "nonlinear", states: ["h"], parameters: { a: 1 }, derivatives: ["-a*h + u"], output: "h", initial: [0] };
+    const parameters = Object.fromEntries(Array.from({ length: 5_000 }, (_, i) => [`p${i}`, i]));
+    const many = await team.engineer.post(plants(), { name: "Many parameters", unitsNote: "", model: { ...base, parameters } });
+    expect(many.status).toBe(400);
+    expect(many.body.error.field).toMatch(/parameters$/);
+    const derivatives = await team.engineer.post(plants(), { name: "Many derivatives", unitsNote: "", model: { ...base, derivatives: Array(5_000).fill("u") } });
+    expect(derivatives.status).toBe(400);
+    expect(derivatives.body.error.field).toMatch(/derivatives$/);
+  });
+});
+
 describe("bad text in names, labels and units notes", () => {
   const plants = () => `/api/workspaces/${team.slug}/plants`;
 

@@ -25,6 +25,7 @@ import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { exportRoutes } from "./exports/export-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
+import { forgetPlantLists } from "./plants/plant-list-cache.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
 import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
@@ -47,6 +48,18 @@ import type { DecisionDeps } from "./decisions/decision-service.js";
 export const JSON_BODY_LIMIT = "256kb";
 /** Largest body of a sign-in, sign-up or account change: a name, an email and passwords. */
 export const AUTH_BODY_LIMIT = "8kb";
+
+/**
+ * Plant lists name each revision's author: a state-changing /api/auth request (a new name among
+ * them) forgets the kept lists, before and once more after it is answered.
+ */
+const forgetPlantListsOnAccountChange: express.RequestHandler = (req, res, next) => {
+  if (req.method !== "GET") {
+    forgetPlantLists();
+    res.on("finish", forgetPlantLists);
+  }
+  next();
+};
 
 /** The running application: an Express app plus what it holds open. */
 export interface LoopyardApp {
@@ -104,6 +117,8 @@ export function createApp(config: AppConfig): LoopyardApp {
 
   const app = express();
   app.disable("x-powered-by");
+  // No ETag computed over every answer's body: the answers that can be revalidated carry their own (http/answer-cache.ts).
+  app.set("etag", false);
   app.set("trust proxy", false);
   app.use(requestLogger(config.requestLogLevel ?? "info"));
   app.use(securityHeaders(publicOrigin.startsWith("https://")));
@@ -125,6 +140,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     jsonBodyGuard,
     authInputGuard,
     forgetCachedSessions(sessions),
+    forgetPlantListsOnAccountChange,
   );
   app.post("/api/auth/sign-in/email", failedSignInLimit(limits.failedSignInsPerAccount));
   app.all("/api/auth/*splat", toNodeHandler(auth));

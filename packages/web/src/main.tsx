@@ -1,3 +1,4 @@
+import "./zod-jitless.js";
 import "@fontsource/inter/400.css";
 import "@fontsource/inter/500.css";
 import "@fontsource/inter/600.css";

@@ -2,6 +2,19 @@ import { z } from "zod";
 import { performanceWeight } from "./performance-weight.js";
 import { assertValidWeight, type SensitivityWeight } from "./sensitivity-weight.js";
 
+/**
+ * Most coefficients of a weight's numerator or denominator: order 10, as the plants (MAX_PLANT_ORDER).
+ * Every candidate's ‖W·S‖∞ evaluates both polynomials at every frequency, so the order is a work
+ * factor the user controls; it is checked before the coefficients are read.
+ */
+export const MAX_WEIGHT_COEFFICIENTS = 11;
+
+const coefficients = (name: "num" | "den") =>
+  z
+    .array(finite(name))
+    .min(1, "give at least one coefficient")
+    .max(MAX_WEIGHT_COEFFICIENTS, `at most ${MAX_WEIGHT_COEFFICIENTS} coefficients (order ${MAX_WEIGHT_COEFFICIENTS - 1})`);
+
 const finite = (name: string) => z.number({ error: `${name} must be a number` }).refine(Number.isFinite, `${name} must be finite`);
 
 /**
@@ -13,7 +26,7 @@ const finite = (name: string) => z.number({ error: `${name} must be a number` })
  */
 export const sensitivityWeightSchema = z
   .union([
-    z.strictObject({ num: z.array(finite("num")).min(1, "give at least one coefficient"), den: z.array(finite("den")).min(1, "give at least one coefficient") }),
+    z.strictObject({ num: coefficients("num"), den: coefficients("den") }),
     z.strictObject({
       preset: z.literal("performance", { error: 'preset must be "performance"' }),
       M: finite("M").gt(0, "M must be > 0"),

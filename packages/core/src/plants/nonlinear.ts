@@ -3,6 +3,8 @@ import { actuatorLimitsSchema, type ActuatorLimits } from "./actuator-limits.js"
 
 /** Most states a nonlinear plant may declare. */
 export const MAX_NONLINEAR_STATES = 10;
+/** Most named parameters of a nonlinear plant (each is a name the expressions may use). */
+export const MAX_NONLINEAR_PARAMETERS = 64;
 
 /**
  * A nonlinear plant typed as expressions (compiled by compileSystem, never evaluated as JavaScript):
@@ -30,10 +32,15 @@ export const nonlinearSchema = z
   .object({
     kind: z.literal("nonlinear"),
     states: z.array(z.string().min(1, "a state needs a name")).min(1, "declare at least one state").max(MAX_NONLINEAR_STATES, `at most ${MAX_NONLINEAR_STATES} states`),
-    parameters: z.record(z.string(), z.number({ error: "every parameter must be a finite number" }).finite("every parameter must be a finite number")).default({}),
-    derivatives: z.array(z.string().min(1, "write an expression")),
+    parameters: z
+      .record(z.string(), z.number({ error: "every parameter must be a finite number" }).finite("every parameter must be a finite number"))
+      .refine((named) => Object.keys(named).length <= MAX_NONLINEAR_PARAMETERS, `at most ${MAX_NONLINEAR_PARAMETERS} parameters`)
+      .default({}),
+    derivatives: z.array(z.string().min(1, "write an expression")).max(MAX_NONLINEAR_STATES, `at most ${MAX_NONLINEAR_STATES} derivatives, one per state`),
     output: z.string().min(1, "write the output expression"),
-    initial: z.array(z.number({ error: "every initial value must be a finite number" }).finite("every initial value must be a finite number")),
+    initial: z
+      .array(z.number({ error: "every initial value must be a finite number" }).finite("every initial value must be a finite number"))
+      .max(MAX_NONLINEAR_STATES, `at most ${MAX_NONLINEAR_STATES} initial values, one per state`),
     operatingInput: z.number().finite("operatingInput must be finite").optional(),
     actuator: actuatorLimitsSchema.optional(),
   })

@@ -18,16 +18,19 @@ export interface StateSpacePlant {
   actuator?: ActuatorLimits;
 }
 
-const row = z.array(z.number({ error: "every entry must be a finite number" }).finite("every entry must be a finite number"));
+/** A matrix row: at most MAX_PLANT_ORDER entries, so that no dimension a user writes exceeds the order limit. */
+const row = z
+  .array(z.number({ error: "every entry must be a finite number" }).finite("every entry must be a finite number"))
+  .max(MAX_PLANT_ORDER, `a row has at most ${MAX_PLANT_ORDER} entries (order is limited to ${MAX_PLANT_ORDER})`);
 
 /** Runtime check of a StateSpacePlant with dimension messages naming the matrix. */
 export const stateSpaceSchema = z
   .object({
     kind: z.literal("state-space"),
     A: z.array(row).min(1, "A must have at least one row").max(MAX_PLANT_ORDER, `order is limited to ${MAX_PLANT_ORDER}`),
-    B: z.array(row),
-    C: z.array(row),
-    D: z.array(row).default([[0]]),
+    B: z.array(row).max(MAX_PLANT_ORDER, `B has at most ${MAX_PLANT_ORDER} rows`),
+    C: z.array(row).max(MAX_PLANT_ORDER, `C has at most ${MAX_PLANT_ORDER} rows`),
+    D: z.array(row).max(MAX_PLANT_ORDER, `D has at most ${MAX_PLANT_ORDER} rows`).default([[0]]),
     actuator: actuatorLimitsSchema.optional(),
   })
   .superRefine((p, ctx) => {

@@ -1,8 +1,14 @@
 // Worker side of the evaluation pool: evaluates one chunk of candidates with evaluateBatch and
 // hands the result back in ONE transferred buffer (no copy on the way back).
+import { setPriority } from "node:os";
 import { Piscina } from "piscina";
 import { evaluateBatch } from "../batch/evaluate-batch.js";
 import type { ChunkReply, ChunkTask } from "./chunk-task.js";
+
+// The pool's niceness (EvaluationPoolConfig.niceness), for this thread only: on Linux each thread
+// has its own nice value, so the process's request thread keeps its priority.
+const niceness = (Piscina.workerData as { niceness?: number } | undefined)?.niceness ?? 0;
+if (niceness > 0) setPriority(niceness);
 
 /**
  * Evaluates `task.candidates` (n × d) and returns a Uint8Array over one ArrayBuffer laid out as

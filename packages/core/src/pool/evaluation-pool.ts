@@ -23,6 +23,11 @@ export function chunkSizeFor(n: number): number {
 export interface EvaluationPoolConfig {
   /** Worker threads, a whole number ≥ 1; default: availableParallelism(). */
   workers?: number;
+  /**
+   * Nice value of the worker threads (0 to 19; Linux keeps one per thread): above 0 the scheduler
+   * gives the process's other threads — a web server's request thread — the cores first. Default 0.
+   */
+  niceness?: number;
 }
 
 /** One batch for the pool: the arguments of evaluateBatch, the same shape as the slices it sends its workers. */
@@ -63,12 +68,16 @@ export function createEvaluationPool(config: EvaluationPoolConfig = {}): Evaluat
   if (!Number.isInteger(workers) || workers < 1 || workers > MAX_WORKERS) {
     throw new RangeError(`workers must be a whole number from 1 to ${MAX_WORKERS}, got ${String(workers)}`);
   }
+  if (config.niceness !== undefined && !(Number.isInteger(config.niceness) && config.niceness >= 0 && config.niceness <= 19)) {
+    throw new RangeError(`niceness must be a whole number from 0 to 19, got ${String(config.niceness)}`);
+  }
   const piscina = new Piscina({
     filename: new URL("./evaluate-chunk-worker.js", import.meta.url).href,
     minThreads: workers,
     maxThreads: workers,
     idleTimeout: Number.MAX_SAFE_INTEGER,
     concurrentTasksPerWorker: 1,
+    workerData: { niceness: config.niceness ?? 0 },
   });
   let closed = false;
 

@@ -15,12 +15,30 @@ export function dottedField(path: readonly PropertyKey[]): string {
   return path.map((part) => String(part)).join(".");
 }
 
+type Issue = z.core.$ZodIssue;
+
+/**
+ * The issues with each "none of the forms fits" (a union, e.g. a weight given as {num, den} or as a
+ * preset) replaced by the issues of the form that came closest — the one with the fewest issues —
+ * at their full paths, so that the sentence says what is wrong ("at most 11 coefficients") instead
+ * of "Invalid input".
+ */
+function withUnionsOpened(issues: readonly Issue[]): Issue[] {
+  return issues.flatMap((issue) => {
+    const branches = issue.code === "invalid_union" ? (issue as { errors?: Issue[][] }).errors : undefined;
+    if (!branches || branches.length === 0) return [issue];
+    const closest = branches.reduce((best, branch) => (branch.length < best.length ? branch : best));
+    if (closest.length === 0) return [issue];
+    return withUnionsOpened(closest.map((inner) => ({ ...inner, path: [...issue.path, ...inner.path] }) as Issue));
+  });
+}
+
 /**
  * The problems of a sweep definition refused by its schema, in zod's order, each with its field and
  * ONE sentence: the web form, the server and the CLI show the same words for the same bad sweep.
  */
 export function sweepIssues(error: z.ZodError): SweepIssue[] {
-  return error.issues.map((issue) => {
+  return withUnionsOpened(error.issues).map((issue) => {
     const field = dottedField(issue.path);
     let reason = issue.message;
     if (issue.code === "invalid_type" && /received undefined$/.test(reason)) reason = "missing; this field is required";
@@ -41,6 +59,7 @@ export function sweepIssues(error: z.ZodError): SweepIssue[] {
  */
 export function firstSweepIssue(error: z.ZodError): SweepIssue {
   const issues = sweepIssues(error);
-  const unknown = error.issues.findIndex((i) => i.code === "unrecognized_keys");
+  // sweepIssues maps the opened issues one to one, so an index into them is an index into `issues`.
+  const unknown = withUnionsOpened(error.issues).findIndex((i) => i.code === "unrecognized_keys");
   return issues[unknown >= 0 ? unknown : 0] ?? { field: "", reason: "the sweep is not valid", sentence: "the sweep is not valid" };
 }

@@ -4,6 +4,7 @@ import type PgBoss from "pg-boss";
 import { evaluateBatch } from "@loopyard/core";
 import type { BatchResult, ComparisonInput, ComparisonPick, ComparisonPlan, CriterionId, PrescanChunk } from "@loopyard/core";
 import { createEvaluationPool, type EvaluationPool } from "@loopyard/core/pool";
+import { EVALUATION_NICENESS } from "../workers/evaluation-niceness.js";
 import type { Database } from "../db/database.js";
 import {
   advanceComparison,
@@ -61,7 +62,7 @@ export interface ComparisonWorker {
 export async function startComparisonWorker(db: Database, boss: PgBoss, options: ComparisonWorkerOptions = {}): Promise<ComparisonWorker> {
   const threads = options.threads ?? availableParallelism();
   const publicUrl = options.publicUrl ?? publicUrlFromEnv();
-  const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads }) : null;
+  const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads, niceness: EVALUATION_NICENESS }) : null;
   const id = `${hostname()}:${process.pid}:comparisons:${randomUUID().slice(0, 8)}`;
 
   const evaluate: VectorEvaluator = async (plan, vectors, criteria): Promise<BatchResult> => {

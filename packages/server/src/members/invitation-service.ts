@@ -10,6 +10,7 @@ import type { Database } from "../db/database.js";
 import { HttpError, notFound } from "../http/http-error.js";
 import { parseIdParam } from "../http/validation.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
+import { afterMembershipWrite } from "./member-service.js";
 import { insertMembership } from "../workspaces/workspace-repository.js";
 import { formatUtc, invitationMail, pageLinkWithSecret, type SendAccountMail } from "./account-mail.js";
 import { appendAuditEvent } from "./audit-repository.js";
@@ -198,7 +199,7 @@ export async function previewInvitation(db: Database, user: UserDto, token: stri
  */
 export async function acceptInvitation(db: Database, user: UserDto, token: string, deps: Pick<InvitationDeps, "now">): Promise<InvitationAcceptedDto> {
   const now = deps.now?.() ?? new Date();
-  return db.transaction(async (tx) => {
+  return afterMembershipWrite(db.transaction(async (tx) => {
     const record = await lockUsableInvitation(tx, user, token, now);
     const added = await insertMembership(tx, record.workspace.id, user.id, record.role);
     if (!added) {
@@ -208,7 +209,7 @@ export async function acceptInvitation(db: Database, user: UserDto, token: strin
     await markEmailVerified(tx, user.id);
     await appendAuditEvent(tx, { workspaceId: record.workspace.id, action: "invitation-accepted", actor: user, subject: { name: user.name, email: user.email }, role: record.role });
     return { workspace: record.workspace, role: record.role };
-  });
+  }));
 }
 
 /** POST /api/invitations/decline: the link is used up and nobody is added. */

@@ -3,6 +3,8 @@ import type { Database } from "../db/database.js";
 import { HttpError, notFound } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { appendAuditEvent, listAuditEvents } from "./audit-repository.js";
+import { forgetMemberships } from "../workspaces/member-memo.js";
+import { forgetWorkspaceDirectories } from "../workspaces/workspace-directory-cache.js";
 import { countAdmins, deleteMembership, findMember, listMembersWithDates, lockWorkspace, updateMemberRole } from "./member-repository.js";
 
 /** How many audit entries the Members page shows (newest first). */
@@ -32,7 +34,7 @@ export async function listWorkspaceMembers(db: Database, access: MemberAccess): 
 export async function changeMemberRole(db: Database, access: MemberAccess, userId: string, role: Role): Promise<MemberDto> {
   const { workspace } = access;
   if (!USER_ID_PATTERN.test(userId)) throw noSuchMember(workspace.name);
-  return db.transaction(async (tx) => {
+  return afterMembershipWrite(db.transaction(async (tx) => {
     await lockWorkspace(tx, workspace.id);
     const member = await findMember(tx, workspace.id, userId);
     if (!member) throw noSuchMember(workspace.name);
@@ -55,14 +57,27 @@ export async function changeMemberRole(db: Database, access: MemberAccess, userI
       });
     }
     return { user: member.user, role, joinedAt: member.joinedAt.toISOString() };
-  });
+  }));
+}
+
+/**
+ * Waits for a membership write's transaction and then, committed or not, makes this process forget
+ * the memberships and workspace directories it keeps, so a changed role or a removal counts at once.
+ */
+export async function afterMembershipWrite<T>(write: Promise<T>): Promise<T> {
+  try {
+    return await write;
+  } finally {
+    forgetMemberships();
+    forgetWorkspaceDirectories();
+  }
 }
 
 /** Removes a member (an admin may remove themselves while another admin remains). */
 export async function removeMember(db: Database, access: MemberAccess, userId: string): Promise<void> {
   const { workspace } = access;
   if (!USER_ID_PATTERN.test(userId)) throw noSuchMember(workspace.name);
-  await db.transaction(async (tx) => {
+  await afterMembershipWrite(db.transaction(async (tx) => {
     await lockWorkspace(tx, workspace.id);
     const member = await findMember(tx, workspace.id, userId);
     if (!member) throw noSuchMember(workspace.name);
@@ -80,7 +95,7 @@ export async function removeMember(db: Database, access: MemberAccess, userId: s
       subject: { name: member.user.name, email: member.user.email },
       previousRole: member.role,
     });
-  });
+  }));
 }
 
 /** GET /audit: the newest entries of the workspace's audit trail. */

@@ -3,6 +3,7 @@ import type { Plant, PlantInputParsed, PlantRevisionDto, PlantSummaryDto, UserDt
 import type { Database } from "../db/database.js";
 import { plant, plantRevision, user } from "../db/schema.js";
 import { userDtoColumns } from "../users/user-repository.js";
+import { forgetPlantLists } from "./plant-list-cache.js";
 
 /** A plant revision row joined with its author, as the API shows it. */
 const revisionColumns = {
@@ -136,7 +137,8 @@ export async function findRevisionById(db: Database, revisionId: string): Promis
 
 /** Creates a plant and its revision 1 in one transaction; returns the plant id. */
 export async function insertPlant(db: Database, workspaceId: string, userId: string, input: PlantInputParsed, preview: unknown = null): Promise<string> {
-  return db.transaction(async (tx) => {
+  // Kept plant lists are forgotten once the plant is committed (and if the transaction fails: harmless).
+  return afterwards(forgetPlantLists, db.transaction(async (tx) => {
     const [created] = await tx
       .insert(plant)
       .values({ workspaceId, name: input.name, kind: input.model.kind, createdBy: userId })
@@ -152,7 +154,16 @@ export async function insertPlant(db: Database, workspaceId: string, userId: str
       createdBy: userId,
     });
     return created.id;
-  });
+  }));
+}
+
+/** `work`, then `then()` whether it succeeded or not. */
+async function afterwards<T>(then: () => void, work: Promise<T>): Promise<T> {
+  try {
+    return await work;
+  } finally {
+    then();
+  }
 }
 
 /**
@@ -161,7 +172,7 @@ export async function insertPlant(db: Database, workspaceId: string, userId: str
  * Returns the new revision number.
  */
 export async function insertRevision(db: Database, plantId: string, userId: string, input: PlantInputParsed, preview: unknown = null): Promise<number> {
-  return db.transaction(async (tx) => {
+  return afterwards(forgetPlantLists, db.transaction(async (tx) => {
     await tx.select({ id: plant.id }).from(plant).where(eq(plant.id, plantId)).for("update");
     const [last] = await tx.select({ number: max(plantRevision.number) }).from(plantRevision).where(eq(plantRevision.plantId, plantId));
     const number = (last?.number ?? 0) + 1;
@@ -176,7 +187,7 @@ export async function insertRevision(db: Database, plantId: string, userId: stri
     });
     await tx.update(plant).set({ name: input.name, kind: input.model.kind, updatedAt: new Date() }).where(eq(plant.id, plantId));
     return number;
-  });
+  }));
 }
 
 /** The stored preview of a revision (poles and open-loop step), null when none is stored yet. */

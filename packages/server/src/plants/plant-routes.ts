@@ -4,6 +4,8 @@ import { plantInputSchema } from "@loopyard/core";
 import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
+import { sendAnswer } from "../http/answer-cache.js";
+import { plantListAnswer } from "./plant-list-cache.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
 import { createPlant, createRevision, getPlantDetail, listPlants, PLANT_NOT_FOUND } from "./plant-service.js";
 
@@ -16,8 +18,10 @@ export function plantRoutes(db: Database, compute: Compute): Router {
   const router = Router({ mergeParams: true });
   const canRead = memberOf(db, "viewer", "Reading the plant library");
 
+  // Kept a few seconds per workspace, forgotten at once by a write (plant-list-cache.ts); sent with an ETag.
   router.get("/", canRead, async (req, res) => {
-    res.json(await listPlants(db, accessOf(req)));
+    const access = accessOf(req);
+    sendAnswer(req, res, await plantListAnswer(access.workspace.id, () => listPlants(db, access)));
   });
 
   router.post("/", memberOf(db, "engineer", "Creating plants"), async (req, res) => {

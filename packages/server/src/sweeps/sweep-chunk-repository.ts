@@ -130,50 +130,98 @@ async function settleSweep(tx: Database, sweepId: string, inserted: number, now:
     .where(eq(sweep.id, sweepId));
 }
 
+/** A sweep's chunk figures: how many chunks, done and failed, and the failures. */
+type ChunkFigures = Pick<SweepProgressDto, "chunksTotal" | "chunksDone" | "chunksFailed" | "failures">;
+
+/**
+ * Chunk figures of finished sweeps, per process: a finished sweep has no pending chunk, and a done
+ * or failed chunk never changes again, so they are counted once (the workspace home lists five
+ * sweeps on every visit). Bounded; the oldest go first.
+ */
+const finishedChunkFigures = new Map<string, ChunkFigures>();
+const FINISHED_CHUNK_FIGURES_KEPT = 1_024;
+
+/**
+ * Workers with a heartbeat in the last WORKER_ALIVE_SECONDS, counted at most once a second: the
+ * figure moves by heartbeats 5 s apart over a 15 s window, so a second's memory changes nothing one could see.
+ */
+const workersCounted = new WeakMap<Database, { at: number; n: Promise<number> }>();
+const WORKERS_COUNT_MS = 1_000;
+
+function activeWorkers(db: Database): Promise<number> {
+  const now = Date.now();
+  const counted = workersCounted.get(db);
+  if (counted && now - counted.at < WORKERS_COUNT_MS) return counted.n;
+  const n = db
+    .select({ n: count() })
+    .from(worker)
+    .where(gt(worker.heartbeatAt, new Date(now - WORKER_ALIVE_SECONDS * 1000)))
+    .then((rows) => rows[0]?.n ?? 0);
+  workersCounted.set(db, { at: now, n });
+  n.catch(() => workersCounted.delete(db));
+  return n;
+}
+
 /** Progress figures of sweeps (see SweepProgressDto); sweeps without chunks get zeros. */
 export async function sweepProgress(
   db: Database,
   sweeps: readonly { id: string; done: number; total: number; status: string }[],
 ): Promise<Map<string, SweepProgressDto>> {
-  const ids = sweeps.map((s) => s.id);
   const result = new Map<string, SweepProgressDto>();
-  if (ids.length === 0) return result;
+  if (sweeps.length === 0) return result;
+  // Finished sweeps whose chunk figures are known need no chunk query.
+  const ids = sweeps.filter((s) => !(s.status === "finished" && finishedChunkFigures.has(s.id))).map((s) => s.id);
   const since = new Date(Date.now() - RATE_WINDOW_SECONDS * 1000);
-  const [chunkRows, recentRows, failureRows, workerRows] = await Promise.all([
-    db
-      .select({ sweepId: sweepChunk.sweepId, status: sweepChunk.status, n: count() })
-      .from(sweepChunk)
-      .where(inArray(sweepChunk.sweepId, ids))
-      .groupBy(sweepChunk.sweepId, sweepChunk.status),
-    db
-      .select({
-        sweepId: sweepChunk.sweepId,
-        candidates: sql<number>`coalesce(sum(${sweepChunk.end} - ${sweepChunk.start}), 0)::int`,
-        first: sql<string | null>`min(${sweepChunk.finishedAt})::text`,
-      })
-      .from(sweepChunk)
-      .where(and(inArray(sweepChunk.sweepId, ids), eq(sweepChunk.status, "done"), gt(sweepChunk.finishedAt, since)))
-      .groupBy(sweepChunk.sweepId),
-    db
-      .select({ sweepId: sweepChunk.sweepId, chunk: sweepChunk.chunk, error: sweepChunk.error })
-      .from(sweepChunk)
-      .where(and(inArray(sweepChunk.sweepId, ids), eq(sweepChunk.status, "failed")))
-      .orderBy(asc(sweepChunk.chunk)),
-    db
-      .select({ n: count() })
-      .from(worker)
-      .where(gt(worker.heartbeatAt, new Date(Date.now() - WORKER_ALIVE_SECONDS * 1000))),
+  const none = Promise.resolve([]);
+  const [chunkRows, recentRows, failureRows, workersActive] = await Promise.all([
+    ids.length === 0
+      ? none
+      : db
+          .select({ sweepId: sweepChunk.sweepId, status: sweepChunk.status, n: count() })
+          .from(sweepChunk)
+          .where(inArray(sweepChunk.sweepId, ids))
+          .groupBy(sweepChunk.sweepId, sweepChunk.status),
+    ids.length === 0
+      ? none
+      : db
+          .select({
+            sweepId: sweepChunk.sweepId,
+            candidates: sql<number>`coalesce(sum(${sweepChunk.end} - ${sweepChunk.start}), 0)::int`,
+            first: sql<string | null>`min(${sweepChunk.finishedAt})::text`,
+          })
+          .from(sweepChunk)
+          .where(and(inArray(sweepChunk.sweepId, ids), eq(sweepChunk.status, "done"), gt(sweepChunk.finishedAt, since)))
+          .groupBy(sweepChunk.sweepId),
+    ids.length === 0
+      ? none
+      : db
+          .select({ sweepId: sweepChunk.sweepId, chunk: sweepChunk.chunk, error: sweepChunk.error })
+          .from(sweepChunk)
+          .where(and(inArray(sweepChunk.sweepId, ids), eq(sweepChunk.status, "failed")))
+          .orderBy(asc(sweepChunk.chunk)),
+    activeWorkers(db),
   ]);
-  const workersActive = workerRows[0]?.n ?? 0;
   for (const s of sweeps) {
-    const of = (status: string) => chunkRows.find((r) => r.sweepId === s.id && r.status === status)?.n ?? 0;
-    const chunksDone = of("done");
-    const chunksFailed = of("failed");
-    const chunksTotal = chunksDone + chunksFailed + of("pending");
-    const recent = recentRows.find((r) => r.sweepId === s.id);
     const running = s.status === "queued" || s.status === "running";
+    let figures = s.status === "finished" ? finishedChunkFigures.get(s.id) : undefined;
+    if (!figures) {
+      const of = (status: string) => chunkRows.find((r) => r.sweepId === s.id && r.status === status)?.n ?? 0;
+      const chunksDone = of("done");
+      const chunksFailed = of("failed");
+      figures = {
+        chunksTotal: chunksDone + chunksFailed + of("pending"),
+        chunksDone,
+        chunksFailed,
+        failures: failureRows.filter((r) => r.sweepId === s.id).map((r) => ({ chunk: r.chunk, error: r.error ?? "unknown error" })),
+      };
+      if (s.status === "finished") {
+        if (finishedChunkFigures.size >= FINISHED_CHUNK_FIGURES_KEPT) finishedChunkFigures.delete(finishedChunkFigures.keys().next().value as string);
+        finishedChunkFigures.set(s.id, figures);
+      }
+    }
+    const recent = recentRows.find((r) => r.sweepId === s.id);
     let ratePerSecond: number | null = null;
-    if (recent && recent.candidates > 0) {
+    if (running && recent && recent.candidates > 0) {
       // Over the window, or since the first chunk of the window finished when the run is younger.
       const span = recent.first ? Math.max(1, (Date.now() - new Date(recent.first).getTime()) / 1000) : RATE_WINDOW_SECONDS;
       ratePerSecond = recent.candidates / Math.min(RATE_WINDOW_SECONDS, span);
@@ -181,13 +229,11 @@ export async function sweepProgress(
     result.set(s.id, {
       done: s.done,
       total: s.total,
-      ratePerSecond: running ? ratePerSecond : null,
+      ratePerSecond,
       etaSeconds: running && ratePerSecond ? Math.max(0, (s.total - s.done) / ratePerSecond) : null,
       workersActive,
-      chunksTotal,
-      chunksDone,
-      chunksFailed,
-      failures: failureRows.filter((r) => r.sweepId === s.id).map((r) => ({ chunk: r.chunk, error: r.error ?? "unknown error" })),
+      ...figures,
+      failures: [...figures.failures],
     });
   }
   return result;

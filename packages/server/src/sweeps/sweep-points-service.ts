@@ -1,4 +1,4 @@
-import { encodePointsBinary, type CriterionId, type PointsHeader } from "@loopyard/core";
+import { encodePointsBinary, type CriterionId, type PointsHeader, type SweepDetailDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { finiteCriteria, pointColumnsBytes, pointColumnsText } from "./points-repository.js";
@@ -11,8 +11,7 @@ export const POINT_DIGITS = 6;
 const jsonArray = (text: string) => `[${text.slice(1, -1)}]`;
 
 /** What both forms of the points read first: the sweep, the axes, the sample rule and the plottable criteria. */
-async function pointsQuery(db: Database, access: MemberAccess, sweepId: string, query: { x?: string; y?: string }) {
-  const sweep = await getSweep(db, access, sweepId);
+async function pointsQuery(db: Database, sweep: SweepDetailDto, query: { x?: string; y?: string }) {
   const { criteria } = sweep;
   const x = frontAxis("x", query.x, criteria, criteria[0] as CriterionId);
   const y = frontAxis("y", query.y, criteria, criteria[criteria.length - 1] as CriterionId);
@@ -24,7 +23,7 @@ async function pointsQuery(db: Database, access: MemberAccess, sweepId: string, 
     paramAt: sweep.swept.map((name) => sweep.parameters.indexOf(name)),
     ...(front ? { stride: Math.ceil(sweep.done / CANDIDATE_LIST_LIMIT), extra: front.indices } : {}),
   };
-  return { sweep, x, y, sampled, columns };
+  return { x, y, sampled, columns };
 }
 
 /**
@@ -32,7 +31,12 @@ async function pointsQuery(db: Database, access: MemberAccess, sweepId: string, 
  * getPointsJson, with the numbers exact and nothing printed, for the web app's chart.
  */
 export async function getPointsBinary(db: Database, access: MemberAccess, sweepId: string, query: { x?: string; y?: string }): Promise<Uint8Array> {
-  const { sweep, x, y, sampled, columns } = await pointsQuery(db, access, sweepId, query);
+  return pointsBinaryOf(db, await getSweep(db, access, sweepId), query);
+}
+
+/** getPointsBinary of a sweep already read. */
+export async function pointsBinaryOf(db: Database, sweep: SweepDetailDto, query: { x?: string; y?: string }): Promise<Uint8Array> {
+  const { x, y, sampled, columns } = await pointsQuery(db, sweep, query);
   const [bytes, finite] = await Promise.all([pointColumnsBytes(db, sweep.id, columns), finiteCriteria(db, sweep.id, sweep.criteria.length)]);
   const header: PointsHeader = {
     x,
@@ -53,7 +57,12 @@ export async function getPointsBinary(db: Database, access: MemberAccess, sweepI
  * the candidate list, plus every candidate of the front on these axes, so the front is always drawn.
  */
 export async function getPointsJson(db: Database, access: MemberAccess, sweepId: string, query: { x?: string; y?: string }): Promise<string> {
-  const { sweep, x, y, sampled, columns: options } = await pointsQuery(db, access, sweepId, query);
+  return pointsJsonOf(db, await getSweep(db, access, sweepId), query);
+}
+
+/** getPointsJson of a sweep already read. */
+export async function pointsJsonOf(db: Database, sweep: SweepDetailDto, query: { x?: string; y?: string }): Promise<string> {
+  const { x, y, sampled, columns: options } = await pointsQuery(db, sweep, query);
   const [columns, finite] = await Promise.all([
     pointColumnsText(db, sweep.id, { ...options, digits: POINT_DIGITS }),
     finiteCriteria(db, sweep.id, sweep.criteria.length),

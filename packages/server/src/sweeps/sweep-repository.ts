@@ -77,6 +77,9 @@ function toSummary(row: SummaryRow): SweepSummaryDto {
   };
 }
 
+/** The columns of a summary without the definition (a list shows no definition). */
+const { definition: _definition, ...listColumns } = summaryColumns;
+
 function summaryQuery(db: Database) {
   return db
     .select(summaryColumns)
@@ -85,11 +88,30 @@ function summaryQuery(db: Database) {
     .innerJoin(user, eq(user.id, sweep.createdBy));
 }
 
+function listQuery(db: Database) {
+  return db
+    .select({ ...listColumns, sweepCount: sql<number>`(count(*) over ())::int` })
+    .from(sweep)
+    .innerJoin(plantRevision, eq(plantRevision.id, sweep.plantRevisionId))
+    .innerJoin(user, eq(user.id, sweep.createdBy));
+}
+
 /** Sweeps of a workspace, newest first (at most `limit` when given). */
 export async function listSweepSummaries(db: Database, workspaceId: string, limit?: number): Promise<SweepSummaryDto[]> {
-  const query = summaryQuery(db).where(eq(sweep.workspaceId, workspaceId)).orderBy(desc(sweep.createdAt), desc(sweep.id));
+  const query = listQuery(db).where(eq(sweep.workspaceId, workspaceId)).orderBy(desc(sweep.createdAt), desc(sweep.id));
   const rows = limit === undefined ? await query : await query.limit(limit);
-  return withProgress(db, rows.map(toSummary));
+  return withProgress(db, rows.map((row) => toSummary({ ...row, definition: null })));
+}
+
+/** The `limit` newest sweeps of a workspace and how many it has, in one query (the count is a window over every row of the workspace, taken before the limit). */
+export async function listRecentSweeps(db: Database, workspaceId: string, limit: number): Promise<{ total: number; sweeps: SweepSummaryDto[] }> {
+  const rows = await listQuery(db)
+    .where(eq(sweep.workspaceId, workspaceId))
+    .orderBy(desc(sweep.createdAt), desc(sweep.id))
+    .limit(limit);
+  // With no sweep there is no row to carry the count, and the count is 0.
+  const total = rows[0]?.sweepCount ?? 0;
+  return { total, sweeps: await withProgress(db, rows.map((row) => toSummary({ ...row, definition: null }))) };
 }
 
 /** Summaries with their live progress figures (sweep_chunk, worker). */

@@ -1,4 +1,4 @@
-import { Router, type Request } from "express";
+import { Router, type Request, type Response } from "express";
 import { z } from "zod";
 import { firstSweepIssue, POINTS_BINARY_TYPE, sweepInputSchema, sweepIssues } from "@loopyard/core";
 import type { SweepInputParsed } from "@loopyard/core";
@@ -11,7 +11,7 @@ import {
   cancelSweep,
   createSweep,
   getCandidateResponse,
-  getFront,
+  frontWithCandidates,
   getSweep,
   getCandidate,
   listCandidatesJson,
@@ -22,8 +22,18 @@ import {
 } from "./sweep-service.js";
 import { getCandidateFrequency, getReferences, prepareReferences } from "./sweep-reference-service.js";
 import type { BackgroundTasks } from "../http/background-tasks.js";
-import { getPointsBinary, getPointsJson } from "./sweep-points-service.js";
+import { pointsBinaryOf, pointsJsonOf } from "./sweep-points-service.js";
 import { getCandidateSheet, sheetQuerySchema } from "../deployment/sheet-service.js";
+import { cachedAnswer, sendAnswer, type CachedAnswer } from "../http/answer-cache.js";
+import { finishedSweepAnswer, finishedSweepKey } from "./finished-sweep-answers.js";
+
+const JSON_TYPE = "application/json; charset=utf-8";
+
+/** A kept answer of a finished sweep with its ETag (or 304); an unfinished sweep's answer as it is, not stored by the browser. */
+function send(req: Request, res: Response, found: { answer: CachedAnswer; finished: boolean }): void {
+  if (found.finished) sendAnswer(req, res, found.answer);
+  else res.type(found.answer.type).send(found.answer.body);
+}
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
@@ -95,21 +105,37 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
     res.json(await getCandidate(db, accessOf(req), sweepIdOf(req.params.sweepId), index));
   });
 
+  // A finished sweep's front and points never change: computed once, kept (finished-sweep-answers.ts), sent with an ETag.
   router.get("/:sweepId/front", canRead, async (req, res) => {
     const query = parseQuery(frontQuerySchema, req);
-    res.json(await getFront(db, accessOf(req), sweepIdOf(req.params.sweepId), query));
+    const access = accessOf(req);
+    const sweepId = sweepIdOf(req.params.sweepId);
+    const key = finishedSweepKey(access.workspace.id, sweepId, "front", [query.x, query.y, query.criteria]);
+    const found = await finishedSweepAnswer(key, async () => {
+      const sweep = await getSweep(db, access, sweepId);
+      const front = await frontWithCandidates(db, sweep, query);
+      return { answer: cachedAnswer(JSON.stringify(front), JSON_TYPE), finished: sweep.status === "finished" };
+    });
+    send(req, res, found);
   });
 
   // PointsDto: the chart's cloud in columns, a few MB for 10⁵ candidates instead of the full list.
   // The same in binary (core POINTS_BINARY_TYPE) when the client asks for it first: exact numbers, nothing printed.
   router.get("/:sweepId/points", canRead, async (req, res) => {
     const { x, y } = parseQuery(frontQuerySchema, req);
+    const access = accessOf(req);
     const sweepId = sweepIdOf(req.params.sweepId);
-    if (req.accepts(["application/json", POINTS_BINARY_TYPE]) === POINTS_BINARY_TYPE) {
-      res.type(POINTS_BINARY_TYPE).send(Buffer.from(await getPointsBinary(db, accessOf(req), sweepId, { x, y })));
-    } else {
-      res.type("application/json").send(await getPointsJson(db, accessOf(req), sweepId, { x, y }));
-    }
+    const binary = req.accepts(["application/json", POINTS_BINARY_TYPE]) === POINTS_BINARY_TYPE;
+    const key = finishedSweepKey(access.workspace.id, sweepId, binary ? "points.bin" : "points.json", [x, y]);
+    const found = await finishedSweepAnswer(key, async () => {
+      const sweep = await getSweep(db, access, sweepId);
+      const answer = binary
+        ? cachedAnswer(Buffer.from(await pointsBinaryOf(db, sweep, { x, y })), POINTS_BINARY_TYPE)
+        : cachedAnswer(await pointsJsonOf(db, sweep, { x, y }), JSON_TYPE);
+      return { answer, finished: sweep.status === "finished" };
+    });
+    res.vary("Accept");
+    send(req, res, found);
   });
 
   router.get("/:sweepId/candidates/:index/response", canRead, async (req, res) => {

@@ -197,7 +197,11 @@ export async function getFront(
   sweepId: string,
   query: { x?: string; y?: string; criteria?: string },
 ): Promise<FrontDto> {
-  const sweep = await getSweep(db, access, sweepId);
+  return frontWithCandidates(db, await getSweep(db, access, sweepId), query);
+}
+
+/** The front of a sweep already read (see getFront), with its candidates. */
+export async function frontWithCandidates(db: Database, sweep: SweepDetailDto, query: { x?: string; y?: string; criteria?: string }): Promise<FrontDto> {
   const front = await frontOf(db, sweep, query);
   return { ...front, candidates: await findCandidates(db, sweep.id, front.indices, sweep.criteria.length) };
 }

@@ -4,6 +4,7 @@ import type PgBoss from "pg-boss";
 import { evaluateBatch, SweepPlanError } from "@loopyard/core";
 import type { SweepBatchEvaluator } from "@loopyard/core";
 import { createEvaluationPool, type EvaluationPool } from "@loopyard/core/pool";
+import { EVALUATION_NICENESS } from "./evaluation-niceness.js";
 import type { Database } from "../db/database.js";
 import { enqueueSearchGeneration, SWEEP_CHUNK_QUEUE, SWEEP_SEARCH_QUEUE, type ChunkJobData, type SearchJobData } from "../jobs/job-queue.js";
 import { runSearchGeneration } from "../sweeps/sweep-search-job.js";
@@ -48,7 +49,7 @@ export interface SweepWorker {
 export async function startSweepWorker(db: Database, boss: PgBoss, options: SweepWorkerOptions = {}): Promise<SweepWorker> {
   const threads = options.threads ?? availableParallelism();
   const publicUrl = options.publicUrl ?? publicUrlFromEnv();
-  const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads }) : null;
+  const pool: EvaluationPool | null = threads > 0 ? createEvaluationPool({ workers: threads, niceness: EVALUATION_NICENESS }) : null;
   const id = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
   await pruneWorkers(db).catch(() => undefined);
   await registerWorker(db, { id, host: hostname(), pid: process.pid, threads });

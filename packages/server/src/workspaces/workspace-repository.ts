@@ -1,8 +1,10 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Role, UserDto, WorkspaceDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
-import { membership, plant, sweep, user, workspace } from "../db/schema.js";
+import { membership, plant, user, workspace } from "../db/schema.js";
 import { userDtoColumns } from "../users/user-repository.js";
+import { forgetMemberships, memberMemo } from "./member-memo.js";
+import { forgetWorkspaceDirectories } from "./workspace-directory-cache.js";
 
 const workspaceDtoColumns = { id: workspace.id, slug: workspace.slug, name: workspace.name };
 
@@ -26,21 +28,27 @@ const memberWorkspaceQueries = new WeakMap<Database, ReturnType<typeof prepareMe
 
 /**
  * The workspace with this slug and the user's role in it, in one prepared query (every workspace
- * request makes it): null when there is no such workspace or the user is not a member of it.
+ * request makes it; remembered for a few seconds, see memberMemo): null when there is no such
+ * workspace or the user is not a member of it.
  */
 export async function findMemberWorkspace(db: Database, slug: string, userId: string): Promise<{ workspace: WorkspaceDto; role: Role } | null> {
+  const remembered = memberMemo.get(userId, slug);
+  if (remembered) return remembered;
   let query = memberWorkspaceQueries.get(db);
   if (!query) {
     query = prepareMemberWorkspace(db);
     memberWorkspaceQueries.set(db, query);
   }
   const rows = await query.execute({ slug, userId });
-  return rows[0] ?? null;
+  const found = rows[0] ?? null;
+  if (found) memberMemo.set(userId, slug, found);
+  return found;
 }
 
 /** Inserts a workspace unless its slug is taken; returns null when it is. */
 export async function insertWorkspace(db: Database, values: { slug: string; name: string }): Promise<WorkspaceDto | null> {
   const rows = await db.insert(workspace).values(values).onConflictDoNothing({ target: workspace.slug }).returning(workspaceDtoColumns);
+  forgetMemberships();
   return rows[0] ?? null;
 }
 
@@ -61,6 +69,8 @@ export async function insertMembership(db: Database, workspaceId: string, userId
     .values({ workspaceId, userId, role })
     .onConflictDoNothing({ target: [membership.workspaceId, membership.userId] })
     .returning({ userId: membership.userId });
+  forgetMemberships();
+  forgetWorkspaceDirectories();
   return rows.length > 0;
 }
 
@@ -85,15 +95,8 @@ export async function listMembers(db: Database, workspaceId: string): Promise<{ 
     .orderBy(asc(user.name));
 }
 
-export async function countWorkspaceContents(db: Database, workspaceId: string): Promise<{ plants: number; sweeps: number; members: number }> {
-  // One round trip for the three counts (the workspace home asks on every visit).
-  const rows = await db
-    .select({
-      plants: sql<number>`(select count(*)::int from ${plant} where ${plant.workspaceId} = ${workspaceId})`,
-      sweeps: sql<number>`(select count(*)::int from ${sweep} where ${sweep.workspaceId} = ${workspaceId})`,
-      members: sql<number>`(select count(*)::int from ${membership} where ${membership.workspaceId} = ${workspaceId})`,
-    })
-    .from(workspace)
-    .where(eq(workspace.id, workspaceId));
-  return rows[0] ?? { plants: 0, sweeps: 0, members: 0 };
+/** How many plants a workspace's library holds. */
+export async function countPlants(db: Database, workspaceId: string): Promise<number> {
+  const rows = await db.select({ n: sql<number>`count(*)::int` }).from(plant).where(eq(plant.workspaceId, workspaceId));
+  return rows[0]?.n ?? 0;
 }

@@ -3,11 +3,12 @@ import type { MeDto, Role, UserDto, WorkspaceDto, WorkspaceHomeDto } from "@loop
 import type { Database } from "../db/database.js";
 import { HttpError } from "../http/http-error.js";
 import { isEmailVerified } from "../users/user-repository.js";
-import { listSweepSummaries } from "../sweeps/sweep-repository.js";
+import { listRecentSweeps } from "../sweeps/sweep-repository.js";
+import { workspaceDirectory } from "./workspace-directory-cache.js";
 import type { MemberAccess } from "./require-member.js";
 import type { WorkspaceInput } from "./workspace-input.js";
 import {
-  countWorkspaceContents,
+  countPlants,
   insertMembership,
   insertWorkspace,
   listMembers,
@@ -58,13 +59,20 @@ export async function createWorkspace(db: Database, user: UserDto, input: Worksp
   });
 }
 
-/** The workspace home of any member. */
+/**
+ * The workspace home of any member. The plant count and the members come from the workspace's
+ * directory (kept a few seconds, forgotten at once by this server's writes); the sweeps, which
+ * workers in other processes move on, are read on every visit, with their count in the same query.
+ */
 export async function getWorkspaceHome(db: Database, access: MemberAccess): Promise<WorkspaceHomeDto> {
   const { workspace, role } = access;
-  const [counts, members, recentSweeps] = await Promise.all([
-    countWorkspaceContents(db, workspace.id),
-    listMembers(db, workspace.id),
-    listSweepSummaries(db, workspace.id, RECENT_SWEEPS),
+  const [directory, recent] = await Promise.all([
+    workspaceDirectory(workspace.id, async () => {
+      const [plants, members] = await Promise.all([countPlants(db, workspace.id), listMembers(db, workspace.id)]);
+      return { plants, members };
+    }),
+    listRecentSweeps(db, workspace.id, RECENT_SWEEPS),
   ]);
-  return { workspace, role, counts, members, recentSweeps };
+  const counts = { plants: directory.plants, sweeps: recent.total, members: directory.members.length };
+  return { workspace, role, counts, members: directory.members, recentSweeps: recent.sweeps };
 }

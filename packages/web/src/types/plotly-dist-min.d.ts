@@ -1,5 +1,0 @@
-// plotly.js-dist-min ships no types; the app only hands the module to react-plotly.js/factory.
-declare module "plotly.js-dist-min" {
-  const Plotly: object;
-  export default Plotly;
-}
