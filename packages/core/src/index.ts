@@ -60,8 +60,20 @@ export {
   sweepDesignSchema,
   sweepAggregateSchema,
   sweepFamilySchema,
+  familySourceSchema,
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
+// Families in the library: a saved variant list (entries with optional spreads) expanded into a sweep's family.
+export {
+  familyDefinitionSchema,
+  familyEntrySchema,
+  familyInputSchema,
+  familySpreadDesignSchema,
+  familySpreadSchema,
+} from "./families/family-definition.js";
+export { expandFamily, familyVariantCount, spreadParameterNames } from "./families/expand-family.js";
+export { familyOfSweep } from "./families/family-of-sweep.js";
+export { diffFamilyRevisions, diffPlantRevisions } from "./revisions/revision-diff.js";
 export { ROLES, hasRole, canCancelSweep } from "./api/roles.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
@@ -281,7 +293,12 @@ export type {
   SweepDesign,
   SweepAggregate,
   SweepFamily,
+  FamilySource,
 } from "./sweeps/sweep-input.js";
+export type { FamilyDefinition, FamilyEntry, FamilyInput, FamilyInputParsed, FamilySpread, FamilySpreadDesign } from "./families/family-definition.js";
+export type { FamilyDefinitionShape } from "./families/expand-family.js";
+export type { FamilyBearing, FamilyIdentity } from "./families/family-of-sweep.js";
+export type { FamilyRevisionContent, PlantRevisionContent, RevisionChange, RevisionChangeGroup } from "./revisions/revision-diff.js";
 export type { Role } from "./api/roles.js";
 export type { Complex } from "./linear-algebra/complex.js";
 export type * from "./api/dto.js";
