@@ -20,6 +20,7 @@ import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { createCompute } from "./compute/compute.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
+import { familyRoutes } from "./families/family-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
@@ -113,6 +114,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth, sessions));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
+  app.use("/api/workspaces/:slug/families", familyRoutes(db));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",
