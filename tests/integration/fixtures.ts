@@ -5,6 +5,17 @@ export function twoLagPlant(name: string) {
   return { name, unitsNote: "u: heater power fraction; y: temperature rise", model: { kind: "transfer-function", num: [1], den: [1, 3, 2], delay: 0 } };
 }
 
+/** A family of the library over one plant revision (two labelled variants of the same revision), as POST …/families takes it. */
+export function twoVariantFamily(name: string, plantRevisionId: string, note?: string) {
+  const body: Record<string, unknown> = {
+    name,
+    description: "two labels of one plant revision",
+    definition: { entries: [{ plantRevisionId, label: "bench A" }, { plantRevisionId, label: "bench B" }] },
+  };
+  if (note !== undefined) body.note = note;
+  return body;
+}
+
 /**
  * A new workspace whose creator is its admin, with one engineer and one viewer added by the admin.
  * Every test file builds its own so runs never depend on one another.

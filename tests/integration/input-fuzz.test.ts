@@ -15,7 +15,7 @@ import { createApp, routeTable, type RouteEntry } from "../../packages/server/sr
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
 import { smallComparison } from "./comparison-fixtures.js";
-import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { twoLagPlant, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 const ANSWER_BUDGET_MS = 2_000;
 const HEALTH_BUDGET_MS = 200;
@@ -25,7 +25,7 @@ const RUNS = 25;
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; familyId: string };
 let healthWorst = 0;
 let healthWorstDuring = "";
 let phase = "set-up";
@@ -43,8 +43,13 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
     case "POST /api/workspaces":
       return { name: "Fuzz workspace" };
     case "POST /api/workspaces/:slug/plants":
-    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
       return twoLagPlant("Fuzz plant");
+    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
+      return { ...twoLagPlant("Fuzz plant"), note: "fuzzed revision" };
+    case "POST /api/workspaces/:slug/families":
+      return twoVariantFamily("Fuzz family", ids.revisionId);
+    case "POST /api/workspaces/:slug/families/:familyId/revisions":
+      return twoVariantFamily("Fuzz family", ids.revisionId, "fuzzed revision");
     case "POST /api/workspaces/:slug/sweeps":
       return {
         name: "Fuzz sweep",
@@ -69,6 +74,10 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
       return { email: "jon@halvard.example", role: "viewer" };
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
+    case "POST /api/workspaces/:slug/plants/:plantId/archive":
+    case "POST /api/workspaces/:slug/plants/:plantId/restore":
+    case "POST /api/workspaces/:slug/families/:familyId/archive":
+    case "POST /api/workspaces/:slug/families/:familyId/restore":
     case "DELETE /api/me/sessions/:sessionId":
       return {};
     default:
@@ -139,14 +148,16 @@ function encode(text: string): string {
 }
 
 function fill(path: string): string {
-  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":index", "0").replace(":sessionId", randomUUID());
+  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":familyId", ids.familyId).replace(":index", "0").replace(":sessionId", randomUUID());
 }
 
 beforeAll(async () => {
   server = await startTestServer({ limits: { maxCandidates: 1_000, maxConcurrentSweeps: 3 } });
   team = await workspaceWithTeam(server.url, "Fuzz");
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Fuzz base"));
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "" };
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", familyId: "" };
+  const family = await team.engineer.post(`/api/workspaces/${team.slug}/families`, validBody({ method: "POST", path: "/api/workspaces/:slug/families", role: "engineer" }));
+  ids.familyId = family.body.family.id;
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, validBody({ method: "POST", path: "/api/workspaces/:slug/sweeps", role: "engineer" }));
   ids.sweepId = sweep.body.id;
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, validBody({ method: "POST", path: "/api/workspaces/:slug/comparisons", role: "engineer" }));
@@ -202,12 +213,12 @@ describe("fuzzing every input over HTTP", () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...getRoutes),
-        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":index", "?"),
+        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":familyId", ":index", "?"),
         segment,
         segment,
         async (route, where, value, query) => {
           const encoded = encode(value);
-          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}` : fill(route.path.replace(where, encoded));
+          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}&from=${encoded}&to=${encoded}` : fill(route.path.replace(where, encoded));
           await probe(team.viewer, "GET", path);
         },
       ),

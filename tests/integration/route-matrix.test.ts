@@ -20,14 +20,24 @@ import { createApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
 import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
-import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { twoLagPlant, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
 let lead: ApiClient;
 let nonMember: ApiClient;
 let other: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; plantName: string; sweepName: string; comparisonName: string };
+let ids: {
+  plantId: string;
+  revisionId: string;
+  sweepId: string;
+  comparisonId: string;
+  familyId: string;
+  plantName: string;
+  sweepName: string;
+  comparisonName: string;
+  familyName: string;
+};
 
 /** A 2 × 2 PI grid on the two-lag plant, 5 s at 10 ms: four candidates, done in a moment. */
 function tinySweep(name: string, plantRevisionId: string) {
@@ -76,14 +86,23 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
     case "POST /api/workspaces":
       return { name: `Matrix workspace ${randomUUID().slice(0, 8)}` };
     case "POST /api/workspaces/:slug/plants":
-    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
       return twoLagPlant("Matrix plant");
+    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
+      return { ...twoLagPlant("Matrix plant"), note: "renamed for the matrix" };
+    case "POST /api/workspaces/:slug/families":
+      return twoVariantFamily("Matrix family", revisionId);
+    case "POST /api/workspaces/:slug/families/:familyId/revisions":
+      return twoVariantFamily("Matrix family", revisionId, "relabelled for the matrix");
     case "POST /api/workspaces/:slug/sweeps":
       return tinySweep("Matrix sweep", revisionId);
     case "POST /api/workspaces/:slug/comparisons":
       return tinyComparison("Matrix comparison", revisionId);
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
+    case "POST /api/workspaces/:slug/plants/:plantId/archive":
+    case "POST /api/workspaces/:slug/plants/:plantId/restore":
+    case "POST /api/workspaces/:slug/families/:familyId/archive":
+    case "POST /api/workspaces/:slug/families/:familyId/restore":
     case "DELETE /api/me/sessions/:sessionId":
       return undefined;
     case "POST /api/workspaces/:slug/members": {
@@ -102,6 +121,7 @@ function fill(path: string, slug: string): string {
     .replace(":plantId", ids.plantId)
     .replace(":sweepId", ids.sweepId)
     .replace(":comparisonId", ids.comparisonId)
+    .replace(":familyId", ids.familyId)
     .replace(":index", "0")
     .replace(":sessionId", randomUUID());
 }
@@ -114,7 +134,7 @@ async function call(client: ApiClient, route: RouteEntry, slug: string) {
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.plantName, ids.sweepName, ids.comparisonName]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.familyId, ids.plantName, ids.sweepName, ids.comparisonName, ids.familyName]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -137,7 +157,20 @@ beforeAll(async () => {
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, tinyComparison(comparisonName, plant.body.revision.id));
   expect(comparison.status, JSON.stringify(comparison.body)).toBe(201);
   await waitForComparison(team.viewer, team.slug, comparison.body.id);
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, comparisonId: comparison.body.id, plantName, sweepName, comparisonName };
+  const familyName = `Matrix secret family ${randomUUID().slice(0, 8)}`;
+  const family = await team.engineer.post(`/api/workspaces/${team.slug}/families`, twoVariantFamily(familyName, plant.body.revision.id));
+  expect(family.status, JSON.stringify(family.body)).toBe(201);
+  ids = {
+    plantId: plant.body.plant.id,
+    revisionId: plant.body.revision.id,
+    sweepId: sweep.body.id,
+    comparisonId: comparison.body.id,
+    familyId: family.body.family.id,
+    plantName,
+    sweepName,
+    comparisonName,
+    familyName,
+  };
 }, 120_000);
 
 afterAll(async () => {
@@ -183,7 +216,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:familyId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

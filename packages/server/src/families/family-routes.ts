@@ -40,8 +40,8 @@ export function familyRoutes(db: Database): Router {
   });
 
   router.get("/:familyId/diff", canRead, async (req, res) => {
-    const { from, to } = parseQuery(diffQuerySchema, req);
-    res.json(await getFamilyDiff(db, accessOf(req), idOf(req.params.familyId), from, to));
+    const query = parseQuery(diffQuerySchema, req);
+    res.json(await getFamilyDiff(db, accessOf(req), idOf(req.params.familyId), query));
   });
 
   router.post("/:familyId/revisions", memberOf(db, "engineer", "Revising families"), async (req, res) => {

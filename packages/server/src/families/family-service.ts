@@ -3,7 +3,7 @@ import type { FamilyDetailDto, FamilyInputParsed, FamilySummaryDto, RevisionDiff
 import type { Database } from "../db/database.js";
 import { badRequest, notFound } from "../http/http-error.js";
 import { findRevisionInWorkspace } from "../plants/plant-repository.js";
-import { assertChangeNote, revisionRangeSentence } from "../revisions/revision-rules.js";
+import { assertChangeNote, diffNumbers, revisionRangeSentence } from "../revisions/revision-rules.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import {
   findFamilyUses,
@@ -74,7 +74,12 @@ export async function createFamilyRevision(db: Database, access: MemberAccess, f
 }
 
 /** What changed from revision `from` to revision `to` of a family (core diffFamilyRevisions). */
-export async function getFamilyDiff(db: Database, access: MemberAccess, familyId: string, from: number, to: number): Promise<RevisionDiffDto> {
+export async function getFamilyDiff(
+  db: Database,
+  access: MemberAccess,
+  familyId: string,
+  query: { from?: number | undefined; to?: number | undefined },
+): Promise<RevisionDiffDto> {
   const found = await findFamilyWithRevisions(db, access.workspace.id, familyId);
   if (!found) throw notFound(FAMILY_NOT_FOUND);
   const pick = (n: number) => {
@@ -82,6 +87,7 @@ export async function getFamilyDiff(db: Database, access: MemberAccess, familyId
     if (!revision) throw notFound(revisionRangeSentence(found.summary.name, n, found.revisions.length));
     return revision;
   };
+  const { from, to } = diffNumbers(query, found.revisions.length);
   return { from, to, changes: diffFamilyRevisions(pick(from), pick(to)) };
 }
 

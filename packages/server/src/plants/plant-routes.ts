@@ -40,8 +40,8 @@ export function plantRoutes(db: Database, compute: Compute): Router {
 
   router.get("/:plantId/diff", canRead, async (req, res) => {
     const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
-    const { from, to } = parseQuery(diffQuerySchema, req);
-    res.json(await getPlantDiff(db, accessOf(req), plantId, from, to));
+    const query = parseQuery(diffQuerySchema, req);
+    res.json(await getPlantDiff(db, accessOf(req), plantId, query));
   });
 
   router.post("/:plantId/archive", memberOf(db, "engineer", "Archiving plants"), async (req, res) => {

@@ -5,7 +5,7 @@ import type { Database } from "../db/database.js";
 import { notFound } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { previewPlantModel, PREVIEW_VERSION, type StoredPreview } from "./plant-model-check.js";
-import { assertChangeNote, revisionRangeSentence } from "../revisions/revision-rules.js";
+import { assertChangeNote, diffNumbers, revisionRangeSentence } from "../revisions/revision-rules.js";
 import {
   findPlantWithRevisions,
   findRevisionPreview,
@@ -88,7 +88,12 @@ export async function createRevision(
 }
 
 /** What changed from revision `from` to revision `to` of a plant (core diffPlantRevisions). */
-export async function getPlantDiff(db: Database, access: MemberAccess, plantId: string, from: number, to: number): Promise<RevisionDiffDto> {
+export async function getPlantDiff(
+  db: Database,
+  access: MemberAccess,
+  plantId: string,
+  query: { from?: number | undefined; to?: number | undefined },
+): Promise<RevisionDiffDto> {
   const found = await findPlantWithRevisions(db, access.workspace.id, plantId);
   if (!found) throw notFound(PLANT_NOT_FOUND);
   const pick = (n: number) => {
@@ -96,6 +101,7 @@ export async function getPlantDiff(db: Database, access: MemberAccess, plantId: 
     if (!revision) throw notFound(revisionRangeSentence(found.summary.name, n, found.revisions.length));
     return revision;
   };
+  const { from, to } = diffNumbers(query, found.revisions.length);
   return { from, to, changes: diffPlantRevisions(pick(from), pick(to)) };
 }
 
