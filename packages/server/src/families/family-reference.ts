@@ -1,5 +1,5 @@
 import { expandFamily } from "@loopyard/core";
-import type { SweepFamily } from "@loopyard/core";
+import type { FamilyRevisionDto, SweepFamily } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import { badRequest } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
@@ -18,6 +18,11 @@ function canonical(variants: readonly unknown[]): string {
   );
 }
 
+/** The family a sweep or comparison on this saved revision holds: its variants (core expandFamily), its name, and its source. */
+export function libraryFamily(revision: FamilyRevisionDto): SweepFamily {
+  return { ...expandFamily(revision.definition, revision.name), source: { familyId: revision.familyId, familyRevisionId: revision.id, number: revision.number } };
+}
+
 /**
  * A sweep or comparison body that names a saved family (`familyRevisionId`), with the family
  * filled in from it before the definition is parsed: the revision's variants (core expandFamily —
@@ -32,15 +37,14 @@ export async function resolveFamilyReference(db: Database, access: MemberAccess,
   if (typeof familyRevisionId !== "string" || !UUID.test(familyRevisionId)) return body;
   const revision = await findFamilyRevisionInWorkspace(db, access.workspace.id, familyRevisionId);
   if (!revision) throw badRequest("familyRevisionId: there is no such family revision in this workspace; choose one from the library's families", "familyRevisionId");
-  const expanded = expandFamily(revision.definition, revision.name);
-  if (family !== undefined && (!Array.isArray(family?.variants) || canonical(family.variants) !== canonical(expanded.variants))) {
+  const resolved = libraryFamily(revision);
+  if (family !== undefined && (!Array.isArray(family?.variants) || canonical(family.variants) !== canonical(resolved.variants))) {
     throw badRequest(
       `family: these variants differ from ${revision.name} revision ${revision.number}; leave family out to use the saved variants, or leave familyRevisionId out to sweep an ad-hoc family`,
       "family",
     );
   }
-  const resolved: SweepFamily = { ...expanded, source: { familyId: revision.familyId, familyRevisionId: revision.id, number: revision.number } };
   const out: Record<string, unknown> = { ...(body as Record<string, unknown>), family: resolved };
-  if (withPlantRevision && out.plantRevisionId === undefined) out.plantRevisionId = expanded.variants[0]?.plantRevisionId;
+  if (withPlantRevision && out.plantRevisionId === undefined) out.plantRevisionId = resolved.variants[0]?.plantRevisionId;
   return out;
 }
