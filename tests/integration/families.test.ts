@@ -19,9 +19,13 @@ const heater = {
 beforeAll(async () => {
   server = await startTestServer({ limits: { maxCandidates: 1_000, maxConcurrentSweeps: 20 } });
   team = await workspaceWithTeam(server.url, "Families");
-  lagRevision = (await team.engineer.post(plantsPath(), twoLagPlant("Family lags"))).body.revision.id;
-  heaterRevision = (await team.engineer.post(plantsPath(), heater)).body.revision.id;
-});
+  const lag = await team.engineer.post(plantsPath(), twoLagPlant("Family lags"));
+  expect(lag.status, JSON.stringify(lag.body)).toBe(201);
+  lagRevision = lag.body.revision.id;
+  const expressions = await team.engineer.post(plantsPath(), heater);
+  expect(expressions.status, JSON.stringify(expressions.body)).toBe(201);
+  heaterRevision = expressions.body.revision.id;
+}, 120_000);
 
 afterAll(async () => {
   await server?.close();

@@ -6,6 +6,9 @@ import { PlantDetailPage } from "./features/plants/plant-detail-page.js";
 import { PlantListPage } from "./features/plants/plant-list-page.js";
 import { PlantNewPage } from "./features/plants/plant-new-page.js";
 import { PlantRevisePage } from "./features/plants/plant-revise-page.js";
+import { FamilyDetailPage } from "./features/families/family-detail-page.js";
+import { FamilyEditPage } from "./features/families/family-edit-page.js";
+import { FamilyListPage } from "./features/families/family-list-page.js";
 import { SweepDetailPage } from "./features/sweeps/sweep-detail-page.js";
 import { SweepListPage } from "./features/sweeps/sweep-list-page.js";
 import { SweepNewPage } from "./features/sweeps/sweep-new-page.js";
@@ -37,6 +40,10 @@ export const router = createBrowserRouter([
           { path: "plants/new", element: <PlantNewPage /> },
           { path: "plants/:plantId", element: <PlantDetailPage /> },
           { path: "plants/:plantId/revise", element: <PlantRevisePage /> },
+          { path: "families", element: <FamilyListPage /> },
+          { path: "families/new", element: <FamilyEditPage /> },
+          { path: "families/:familyId", element: <FamilyDetailPage /> },
+          { path: "families/:familyId/revise", element: <FamilyEditPage /> },
           { path: "sweeps", element: <SweepListPage /> },
           { path: "sweeps/new", element: <SweepNewPage /> },
           { path: "sweeps/:sweepId", element: <SweepDetailPage /> },
