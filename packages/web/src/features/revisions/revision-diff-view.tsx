@@ -56,12 +56,12 @@ export function RevisionDiffView({
           <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">{GROUP_LABELS[group]}</h3>
           <ul className="space-y-1 text-sm">
             {changes.map((c) => (
-              <li key={c.field} className="grid grid-cols-[1.2rem_minmax(8rem,max-content)_1fr] gap-2" data-testid="diff-change">
+              <li key={c.field} className="grid grid-cols-[1.2rem_1fr] gap-x-2" data-testid="diff-change">
                 <span className={`font-mono ${MARKS[c.change].tone}`} aria-label={MARKS[c.change].label}>
                   {MARKS[c.change].sign}
                 </span>
-                <span className="font-mono text-xs">{c.field}</span>
-                <span className="break-all font-mono text-xs">
+                <span className="font-mono text-xs font-medium">{c.field}</span>
+                <span className="col-start-2 break-words font-mono text-xs">
                   {c.change !== "added" ? <span className="text-rust line-through decoration-rust/50">{changeValueText(c.before)}</span> : null}
                   {c.change === "changed" ? <span className="px-1 text-ink-faint">→</span> : null}
                   {c.change !== "removed" ? <span className="text-moss">{changeValueText(c.after)}</span> : null}
