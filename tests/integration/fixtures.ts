@@ -16,6 +16,18 @@ export function twoVariantFamily(name: string, plantRevisionId: string, note?: s
   return body;
 }
 
+/** A library file (docs/library-file.md, version 1) with one first-order plant. */
+export function tinyLibraryFile() {
+  return {
+    format: "loopyard.library",
+    version: 1,
+    plants: [
+      { key: "p1", name: "Imported lag", revisions: [{ number: 1, name: "Imported lag", unitsNote: "", note: null, model: { kind: "transfer-function", num: [1], den: [2, 1], delay: 0 } }] },
+    ],
+    families: [],
+  };
+}
+
 /**
  * A new workspace whose creator is its admin, with one engineer and one viewer added by the admin.
  * Every test file builds its own so runs never depend on one another.

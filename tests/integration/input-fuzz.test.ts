@@ -15,7 +15,7 @@ import { createApp, routeTable, type RouteEntry } from "../../packages/server/sr
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
 import { smallComparison } from "./comparison-fixtures.js";
-import { twoLagPlant, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { twoLagPlant, tinyLibraryFile, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 const ANSWER_BUDGET_MS = 2_000;
 const HEALTH_BUDGET_MS = 200;
@@ -46,6 +46,9 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
       return twoLagPlant("Fuzz plant");
     case "POST /api/workspaces/:slug/plants/:plantId/revisions":
       return { ...twoLagPlant("Fuzz plant"), note: "fuzzed revision" };
+    case "POST /api/workspaces/:slug/library/import/preview":
+    case "POST /api/workspaces/:slug/library/import":
+      return { file: tinyLibraryFile(), onClash: "rename" };
     case "POST /api/workspaces/:slug/families":
       return twoVariantFamily("Fuzz family", ids.revisionId);
     case "POST /api/workspaces/:slug/families/:familyId/revisions":

@@ -20,7 +20,7 @@ import { createApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
 import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
-import { twoLagPlant, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { twoLagPlant, tinyLibraryFile, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
@@ -89,6 +89,9 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
       return twoLagPlant("Matrix plant");
     case "POST /api/workspaces/:slug/plants/:plantId/revisions":
       return { ...twoLagPlant("Matrix plant"), note: "renamed for the matrix" };
+    case "POST /api/workspaces/:slug/library/import/preview":
+    case "POST /api/workspaces/:slug/library/import":
+      return { file: tinyLibraryFile(), onClash: "rename" };
     case "POST /api/workspaces/:slug/families":
       return twoVariantFamily("Matrix family", revisionId);
     case "POST /api/workspaces/:slug/families/:familyId/revisions":
