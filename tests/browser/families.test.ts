@@ -103,6 +103,22 @@ describe("families in the library", () => {
     expect(await page.locator("[data-testid=saved-family] option", { hasText: familyName }).count()).toBe(0);
   });
 
+  it("when the engineer chooses an exported library file to import, then the preview lists every plant and family with its action before anything is imported", async () => {
+    const file = await page.evaluate(async (slug) => (await fetch(`/api/workspaces/${slug}/library/export`)).text(), DEMO_WORKSPACE);
+    await page.goto(`${appUrl}/w/${DEMO_WORKSPACE}/plants`);
+    await page.click("[data-testid=import-library]");
+    await page.waitForSelector("[data-testid=library-import-page]");
+    await page.setInputFiles("[data-testid=library-file]", { name: "ember.loopyard.json", mimeType: "application/json", buffer: Buffer.from(file) });
+    await page.waitForSelector("[data-testid=import-row]");
+    const actions = await page.locator("[data-testid=import-action]").allTextContents();
+    // Every name of the file is taken in the workspace it came from: all renamed by default.
+    expect(actions.length).toBeGreaterThanOrEqual(7);
+    expect(new Set(actions)).toEqual(new Set(["rename"]));
+    await saveScreenshot(page, "library-import-preview");
+    await page.click("[data-testid=on-clash-skip]");
+    await page.waitForFunction(() => [...document.querySelectorAll("[data-testid=import-action]")].every((cell) => cell.textContent === "skip"));
+  });
+
   it("when the engineer revises a plant with a note, then its page lists the note and the changed coefficient with its sign", async () => {
     await page.goto(`${appUrl}/w/${DEMO_WORKSPACE}/plants/new`);
     await page.waitForSelector("[data-testid=plant-form]");

@@ -9,6 +9,7 @@ import { PlantRevisePage } from "./features/plants/plant-revise-page.js";
 import { FamilyDetailPage } from "./features/families/family-detail-page.js";
 import { FamilyEditPage } from "./features/families/family-edit-page.js";
 import { FamilyListPage } from "./features/families/family-list-page.js";
+import { LibraryImportPage } from "./features/library/library-import-page.js";
 import { SweepDetailPage } from "./features/sweeps/sweep-detail-page.js";
 import { SweepListPage } from "./features/sweeps/sweep-list-page.js";
 import { SweepNewPage } from "./features/sweeps/sweep-new-page.js";
@@ -40,6 +41,7 @@ export const router = createBrowserRouter([
           { path: "plants/new", element: <PlantNewPage /> },
           { path: "plants/:plantId", element: <PlantDetailPage /> },
           { path: "plants/:plantId/revise", element: <PlantRevisePage /> },
+          { path: "library/import", element: <LibraryImportPage /> },
           { path: "families", element: <FamilyListPage /> },
           { path: "families/new", element: <FamilyEditPage /> },
           { path: "families/:familyId", element: <FamilyDetailPage /> },

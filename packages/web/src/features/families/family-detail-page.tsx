@@ -8,6 +8,7 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { Section } from "../../components/section.js";
 import { ArchiveControl } from "../revisions/archive-control.js";
+import { ExportButton, libraryFileName } from "../library/export-button.js";
 import { RevisionDiffView } from "../revisions/revision-diff-view.js";
 import { RevisionList } from "../revisions/revision-list.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
@@ -70,6 +71,7 @@ export function FamilyDetailPage() {
             <ButtonLink to={`${base}/sweeps/new?family=${shown.id}`} tone="quiet" testId="sweep-this-family" disabledReason={runRefusal}>
               Sweep this family
             </ButtonLink>
+            <ExportButton slug={slug} family={summary.id} fileName={libraryFileName(summary.name)} />
             <ArchiveControl archivedAt={summary.archivedAt} what="family" refusal={refusal ? roleSentence("Archiving families", "engineer", workspace.data?.workspace.name, role) : null} mutation={archive} />
             <ButtonLink to={`${base}/families/${summary.id}/revise`} tone="primary" disabledReason={refusal} testId="revise-family">
               New revision

@@ -18,6 +18,7 @@ import { PolesTable } from "./poles-table.js";
 import { RevisionDiffView } from "../revisions/revision-diff-view.js";
 import { RevisionList } from "../revisions/revision-list.js";
 import { ArchiveControl } from "../revisions/archive-control.js";
+import { ExportButton, libraryFileName } from "../library/export-button.js";
 
 /** /w/:slug/plants/:plantId[?revision=N] — one revision of a plant: model, poles, open-loop step, revisions. */
 export function PlantDetailPage() {
@@ -84,6 +85,7 @@ export function PlantDetailPage() {
             <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" testId="sweep-this-revision" disabledReason={refusal ? roleSentence("Running sweeps", "engineer", workspace.data?.workspace.name, role) : null}>
               Sweep this revision
             </ButtonLink>
+            <ExportButton slug={slug} plant={summary.id} fileName={libraryFileName(summary.name)} />
             <ArchiveControl
               archivedAt={summary.archivedAt}
               what="plant"
