@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "drizzle-orm";
-import { createApp, DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_SWEEP_NAME, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "../../packages/server/src/index.js";
+import { createApp, DEMO_FAMILY_SWEEP_NAME, DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_SWEEP_NAME, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "../../packages/server/src/index.js";
 import { DEMO_DECISION_TITLE, DEMO_PROPOSAL_TITLE } from "../../packages/server/src/decisions/decision-demo.js";
 import { DEMO_COMPARISON_NAME } from "../../packages/server/src/comparisons/comparison-demo.js";
 import type { LoopyardApp } from "../../packages/server/src/index.js";
@@ -26,9 +26,31 @@ afterAll(async () => {
 });
 
 describe("demo seed", () => {
+  it("when the demo library is read, then it holds the saved Ember line (two revisions with notes) and the demo family sweep and comparison point at revision 1", async () => {
+    const jon = new ApiClient(server.url);
+    await jon.signIn("jon@halvard.example", DEMO_PASSWORD);
+    const families = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/families`);
+    const line = families.body.find((f: { name: string }) => f.name === "Ember line");
+    expect(line.revisionCount).toBe(2);
+    const detail = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/families/${line.id}?revision=1`);
+    expect(detail.body.revision.variants.map((v: { label: string }) => v.label)).toEqual(["Ember 200", "Ember 400", "Ember 800"]);
+    expect(detail.body.revisions.every((r: { note: string | null }) => r.note)).toBe(true);
+    const used = detail.body.usedBy.map((u: { kind: string; name: string; revisionNumber: number }) => [u.kind, u.name, u.revisionNumber]);
+    expect(used).toEqual(
+      expect.arrayContaining([
+        ["sweep", DEMO_FAMILY_SWEEP_NAME, 1],
+        ["comparison", "Ember line — which criterion should we tune by?", 1],
+      ]),
+    );
+    const spread = families.body.find((f: { name: string }) => f.name === "Ember 800 radiative — production spread");
+    expect(spread.latestRevision.variants).toHaveLength(6);
+    const sweeps = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps`);
+    expect(sweeps.body.find((s: { name: string }) => s.name === DEMO_FAMILY_SWEEP_NAME)).toMatchObject({ status: "finished", total: 36, done: 36 });
+  });
+
   it("when the seed runs on a seeded database, then it changes nothing", async () => {
     const report = await seedDemo(loopyard.db, loopyard.auth, loopyard.jobs);
-    expect(report).toEqual({ usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepsCreated: 0 });
+    expect(report).toEqual({ usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, familiesCreated: 0, sweepsCreated: 0 });
   });
 
   it("when each demo user signs in with the demo password, then they hold their documented role", async () => {

@@ -28,6 +28,29 @@ export function twoLagPlant(name: string) {
   return { name, unitsNote: "u: heater power fraction; y: temperature rise", model: { kind: "transfer-function", num: [1], den: [1, 3, 2], delay: 0 } };
 }
 
+/** A family of the library over one plant revision (two labelled variants of the same revision), as POST …/families takes it. */
+export function twoVariantFamily(name: string, plantRevisionId: string, note?: string) {
+  const body: Record<string, unknown> = {
+    name,
+    description: "two labels of one plant revision",
+    definition: { entries: [{ plantRevisionId, label: "bench A" }, { plantRevisionId, label: "bench B" }] },
+  };
+  if (note !== undefined) body.note = note;
+  return body;
+}
+
+/** A library file (docs/library-file.md, version 1) with one first-order plant. */
+export function tinyLibraryFile() {
+  return {
+    format: "loopyard.library",
+    version: 1,
+    plants: [
+      { key: "p1", name: "Imported lag", revisions: [{ number: 1, name: "Imported lag", unitsNote: "", note: null, model: { kind: "transfer-function", num: [1], den: [2, 1], delay: 0 } }] },
+    ],
+    families: [],
+  };
+}
+
 /**
  * A new workspace whose creator is its admin, with one engineer and one viewer (added in the database).
  * Every test file builds its own so runs never depend on one another.

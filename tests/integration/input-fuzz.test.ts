@@ -15,7 +15,7 @@ import { createApp, routeTable, type RouteEntry } from "../../packages/server/sr
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
 import { smallComparison } from "./comparison-fixtures.js";
-import { addMemberInDatabase, twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { addMemberInDatabase, twoLagPlant, tinyLibraryFile, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 const ANSWER_BUDGET_MS = 2_000;
 const HEALTH_BUDGET_MS = 200;
@@ -25,7 +25,7 @@ const RUNS = 25;
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string; userId: string; invitationId: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string; userId: string; invitationId: string; familyId: string };
 let healthWorst = 0;
 let healthWorstDuring = "";
 /** Every /api/health time while the fuzzing ran [ms]. */
@@ -69,8 +69,16 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
     case "POST /api/workspaces":
       return { name: "Fuzz workspace" };
     case "POST /api/workspaces/:slug/plants":
-    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
       return twoLagPlant("Fuzz plant");
+    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
+      return { ...twoLagPlant("Fuzz plant"), note: "fuzzed revision" };
+    case "POST /api/workspaces/:slug/library/import/preview":
+    case "POST /api/workspaces/:slug/library/import":
+      return { file: tinyLibraryFile(), onClash: "rename" };
+    case "POST /api/workspaces/:slug/families":
+      return twoVariantFamily("Fuzz family", ids.revisionId);
+    case "POST /api/workspaces/:slug/families/:familyId/revisions":
+      return twoVariantFamily("Fuzz family", ids.revisionId, "fuzzed revision");
     case "POST /api/workspaces/:slug/sweeps":
       return {
         name: "Fuzz sweep",
@@ -118,6 +126,10 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
       return { token: "A".repeat(43) };
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
+    case "POST /api/workspaces/:slug/plants/:plantId/archive":
+    case "POST /api/workspaces/:slug/plants/:plantId/restore":
+    case "POST /api/workspaces/:slug/families/:familyId/archive":
+    case "POST /api/workspaces/:slug/families/:familyId/restore":
     case "DELETE /api/me/sessions/:sessionId":
       return {};
     case "PUT /api/me/notifications":
@@ -190,7 +202,7 @@ function encode(text: string): string {
 }
 
 function fill(path: string): string {
-  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":index", "0").replace(":sessionId", randomUUID()).replace(":userId", ids.userId).replace(":invitationId", ids.invitationId);
+  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":familyId", ids.familyId).replace(":index", "0").replace(":sessionId", randomUUID()).replace(":userId", ids.userId).replace(":invitationId", ids.invitationId);
 }
 
 beforeAll(async () => {
@@ -202,7 +214,9 @@ beforeAll(async () => {
   await addMemberInDatabase(team.slug, target.user.email, "viewer");
   const targetMe = await target.client.get("/api/me");
   const invited = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: `fuzz-pending-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" });
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "", userId: targetMe.body.user.id, invitationId: invited.body.id };
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "", userId: targetMe.body.user.id, invitationId: invited.body.id, familyId: "" };
+  const family = await team.engineer.post(`/api/workspaces/${team.slug}/families`, validBody({ method: "POST", path: "/api/workspaces/:slug/families", role: "engineer" }));
+  ids.familyId = family.body.family.id;
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, validBody({ method: "POST", path: "/api/workspaces/:slug/sweeps", role: "engineer" }));
   ids.sweepId = sweep.body.id;
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, validBody({ method: "POST", path: "/api/workspaces/:slug/comparisons", role: "engineer" }));
@@ -267,12 +281,12 @@ describe("fuzzing every input over HTTP", () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...getRoutes),
-        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":decisionId", ":index", ":messageId", "?"),
+        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":decisionId", ":familyId", ":index", ":messageId", "?"),
         segment,
         segment,
         async (route, where, value, query) => {
           const encoded = encode(value);
-          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}&sampleTime=${encode(query)}&method=${encoded}&format=${encoded}` : fill(route.path.replace(where, encoded));
+          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}&sampleTime=${encode(query)}&method=${encoded}&format=${encoded}&from=${encoded}&to=${encoded}` : fill(route.path.replace(where, encoded));
           await probe(team.viewer, "GET", path);
         },
       ),

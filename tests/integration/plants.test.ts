@@ -142,6 +142,7 @@ describe("plant revisions", () => {
     const revised = await team.engineer.post(`${plantsPath()}/${plantId}/revisions`, {
       name: "Revised lags, slower",
       unitsNote: "second measurement",
+      note: "refitted from the second step test",
       model: { kind: "transfer-function", num: [2], den: [1, 5, 6], delay: 0.5 },
     });
     expect(revised.status).toBe(201);

@@ -23,7 +23,7 @@ import { createApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
 import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
-import { addMemberInDatabase, twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { addMemberInDatabase, twoLagPlant, tinyLibraryFile, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
@@ -41,6 +41,8 @@ let ids: {
   plantName: string;
   sweepName: string;
   comparisonName: string;
+  familyId: string;
+  familyName: string;
   /** A member whose role the matrix changes and whom it then removes. */
   userId: string;
   /** A pending invitation the matrix re-sends and then revokes. */
@@ -102,8 +104,16 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
     case "POST /api/workspaces":
       return { name: `Matrix workspace ${randomUUID().slice(0, 8)}` };
     case "POST /api/workspaces/:slug/plants":
-    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
       return twoLagPlant("Matrix plant");
+    case "POST /api/workspaces/:slug/plants/:plantId/revisions":
+      return { ...twoLagPlant("Matrix plant"), note: "renamed for the matrix" };
+    case "POST /api/workspaces/:slug/library/import/preview":
+    case "POST /api/workspaces/:slug/library/import":
+      return { file: tinyLibraryFile(), onClash: "rename" };
+    case "POST /api/workspaces/:slug/families":
+      return twoVariantFamily("Matrix family", revisionId);
+    case "POST /api/workspaces/:slug/families/:familyId/revisions":
+      return twoVariantFamily("Matrix family", revisionId, "relabelled for the matrix");
     case "POST /api/workspaces/:slug/sweeps":
       return tinySweep("Matrix sweep", revisionId);
     case "POST /api/workspaces/:slug/comparisons":
@@ -120,6 +130,10 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
     case "POST /api/workspaces/:slug/decisions/:decisionId/withdraw":
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
+    case "POST /api/workspaces/:slug/plants/:plantId/archive":
+    case "POST /api/workspaces/:slug/plants/:plantId/restore":
+    case "POST /api/workspaces/:slug/families/:familyId/archive":
+    case "POST /api/workspaces/:slug/families/:familyId/restore":
     case "DELETE /api/me/sessions/:sessionId":
       return undefined;
     case "PUT /api/me/notifications":
@@ -152,6 +166,7 @@ function fill(path: string, slug: string): string {
     .replace(":sweepId", ids.sweepId)
     .replace(":comparisonId", ids.comparisonId)
     .replace(":decisionId", ids.decisionId)
+    .replace(":familyId", ids.familyId)
     .replace(":index", "0")
     .replace(":messageId", ids.messageId)
     .replace(":sessionId", randomUUID())
@@ -178,7 +193,7 @@ async function call(client: ApiClient, route: RouteEntry, slug: string) {
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle, ids.invitationId]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle, ids.invitationId, ids.familyId, ids.familyName]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -219,6 +234,9 @@ beforeAll(async () => {
   const targetMe = await target.client.get("/api/me");
   const invited = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: `matrix-pending-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" });
   expect(invited.status, JSON.stringify(invited.body)).toBe(201);
+  const familyName = `Matrix secret family ${randomUUID().slice(0, 8)}`;
+  const family = await team.engineer.post(`/api/workspaces/${team.slug}/families`, twoVariantFamily(familyName, plant.body.revision.id));
+  expect(family.status, JSON.stringify(family.body)).toBe(201);
   ids = {
     plantId: plant.body.plant.id,
     revisionId: plant.body.revision.id,
@@ -230,6 +248,8 @@ beforeAll(async () => {
     plantName,
     sweepName,
     comparisonName,
+    familyId: family.body.family.id,
+    familyName,
     userId: targetMe.body.user.id,
     invitationId: invited.body.id,
   };
@@ -285,7 +305,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId|:messageId|:decisionId|:userId|:invitationId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:messageId|:decisionId|:userId|:invitationId|:familyId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

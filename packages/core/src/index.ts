@@ -68,8 +68,23 @@ export {
   sweepDesignSchema,
   sweepAggregateSchema,
   sweepFamilySchema,
+  familySourceSchema,
   UnsupportedDesignError,
 } from "./sweeps/sweep-input.js";
+// Families in the library: a saved variant list (entries with optional spreads) expanded into a sweep's family.
+export {
+  familyDefinitionSchema,
+  familyEntrySchema,
+  familyInputSchema,
+  familySpreadDesignSchema,
+  familySpreadSchema,
+} from "./families/family-definition.js";
+export { expandFamily, familyVariantCount, spreadParameterNames } from "./families/expand-family.js";
+export { familyOfSweep } from "./families/family-of-sweep.js";
+export { diffFamilyRevisions, diffPlantRevisions } from "./revisions/revision-diff.js";
+// Library files: one JSON file of plants and families ("loopyard.library", version 1).
+export { LIBRARY_FILE_FORMAT, LIBRARY_FILE_VERSION, libraryFileSchema, libraryImportOptionsSchema } from "./library-file/library-file.js";
+export { importedName, planLibraryImport } from "./library-file/plan-library-import.js";
 export { ROLES, hasRole, canCancelSweep } from "./api/roles.js";
 export { POINTS_BINARY_TYPE, decodePointsBinary, encodePointsBinary, pointsBinaryLayout } from "./api/points-binary.js";
 export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
@@ -356,7 +371,14 @@ export type {
   SweepDesign,
   SweepAggregate,
   SweepFamily,
+  FamilySource,
 } from "./sweeps/sweep-input.js";
+export type { FamilyDefinition, FamilyEntry, FamilyInput, FamilyInputParsed, FamilySpread, FamilySpreadDesign } from "./families/family-definition.js";
+export type { FamilyDefinitionShape } from "./families/expand-family.js";
+export type { FamilyBearing, FamilyIdentity } from "./families/family-of-sweep.js";
+export type { FamilyRevisionContent, PlantRevisionContent, RevisionChange, RevisionChangeGroup } from "./revisions/revision-diff.js";
+export type { LibraryFile, LibraryFileFamily, LibraryFilePlant } from "./library-file/library-file.js";
+export type { ImportItemPlan, LibraryImportPlan } from "./library-file/plan-library-import.js";
 export type { Role } from "./api/roles.js";
 export type { Complex } from "./linear-algebra/complex.js";
 export type * from "./api/dto.js";

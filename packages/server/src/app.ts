@@ -20,6 +20,8 @@ import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { createCompute } from "./compute/compute.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
+import { familyRoutes } from "./families/family-routes.js";
+import { libraryRoutes } from "./library/library-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { exportRoutes } from "./exports/export-routes.js";
@@ -155,6 +157,8 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
   app.use("/api/workspaces/:slug", exportRoutes(db, database.pool));
+  app.use("/api/workspaces/:slug/families", familyRoutes(db));
+  app.use("/api/workspaces/:slug/library", libraryRoutes(db));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",

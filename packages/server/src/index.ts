@@ -6,7 +6,7 @@ export { configFromEnv, ConfigError, defaultMigrationsFolder, DEFAULT_DATABASE_U
 export { runMigrations } from "./db/migrate.js";
 export { HttpError } from "./http/http-error.js";
 export { routeTable } from "./http/route-table.js";
-export { DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_PLANTS, DEMO_SWEEPS, DEMO_USERS, DEMO_WORKSPACE, DEMO_SWEEP_NAME, seedDemo } from "./seed/demo-seed.js";
+export { DEMO_FAMILY_SWEEP_NAME, DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_PLANTS, DEMO_SWEEPS, DEMO_USERS, DEMO_WORKSPACE, DEMO_SWEEP_NAME, seedDemo } from "./seed/demo-seed.js";
 
 export type { AppConfig, ServerConfig } from "./config.js";
 export type { RateLimits, RateLimitRule } from "./http/rate-limits.js";

@@ -11,6 +11,10 @@ import { PlantDetailPage } from "./features/plants/plant-detail-page.js";
 import { PlantListPage } from "./features/plants/plant-list-page.js";
 import { PlantNewPage } from "./features/plants/plant-new-page.js";
 import { PlantRevisePage } from "./features/plants/plant-revise-page.js";
+import { FamilyDetailPage } from "./features/families/family-detail-page.js";
+import { FamilyEditPage } from "./features/families/family-edit-page.js";
+import { FamilyListPage } from "./features/families/family-list-page.js";
+import { LibraryImportPage } from "./features/library/library-import-page.js";
 import { SweepDetailPage } from "./features/sweeps/sweep-detail-page.js";
 import { SweepListPage } from "./features/sweeps/sweep-list-page.js";
 import { SweepNewPage } from "./features/sweeps/sweep-new-page.js";
@@ -50,6 +54,11 @@ export const router = createBrowserRouter([
           { path: "plants/new", element: <PlantNewPage /> },
           { path: "plants/:plantId", element: <PlantDetailPage /> },
           { path: "plants/:plantId/revise", element: <PlantRevisePage /> },
+          { path: "library/import", element: <LibraryImportPage /> },
+          { path: "families", element: <FamilyListPage /> },
+          { path: "families/new", element: <FamilyEditPage /> },
+          { path: "families/:familyId", element: <FamilyDetailPage /> },
+          { path: "families/:familyId/revise", element: <FamilyEditPage /> },
           { path: "sweeps", element: <SweepListPage /> },
           { path: "sweeps/new", element: <SweepNewPage /> },
           { path: "sweeps/:sweepId", element: <SweepDetailPage /> },

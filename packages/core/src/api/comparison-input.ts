@@ -8,6 +8,12 @@ import { sweepFamilySchema, type SweepFamily } from "../sweeps/sweep-input.js";
 const headSchema = z.object({
   name: textField({ label: "name", min: 1, required: "give the comparison a name", max: MAX_TITLE_LENGTH }),
   family: sweepFamilySchema,
+  /** A saved family revision the server expanded into `family` (see sweepInputSchema.familyRevisionId). */
+  familyRevisionId: z.string().uuid("choose a family revision").optional(),
+}).superRefine((head, ctx) => {
+  if (head.family.source !== undefined && head.familyRevisionId !== head.family.source.familyRevisionId) {
+    ctx.addIssue({ code: "custom", path: ["familyRevisionId"], message: "familyRevisionId must be the family revision the variants came from (family.source)" });
+  }
 });
 
 /**
@@ -22,15 +28,17 @@ export const comparisonInputSchema = z.unknown().transform((value, ctx): Compari
     ctx.addIssue({ code: "custom", message: "send the comparison as a JSON object", path: [] });
     return z.NEVER;
   }
-  const { name, family, ...rest } = value as Record<string, unknown>;
-  const head = headSchema.safeParse({ name, family });
+  const { name, family, familyRevisionId, ...rest } = value as Record<string, unknown>;
+  const head = headSchema.safeParse({ name, family, familyRevisionId });
   const definition = comparisonDefinitionSchema.safeParse(rest);
   for (const issue of [...(head.success ? [] : head.error.issues), ...(definition.success ? [] : definition.error.issues)]) {
     ctx.addIssue({ code: "custom", message: issue.message, path: issue.path as (string | number)[] });
   }
   if (!head.success || !definition.success) return z.NEVER;
-  return { name: head.data.name, family: head.data.family, ...definition.data };
+  const input: ComparisonInput = { name: head.data.name, family: head.data.family, ...definition.data };
+  if (head.data.familyRevisionId !== undefined) input.familyRevisionId = head.data.familyRevisionId;
+  return input;
 });
 
 /** A parsed comparison input: name, family by revisions, and core's definition. */
-export type ComparisonInput = { name: string; family: SweepFamily } & ComparisonDefinition;
+export type ComparisonInput = { name: string; family: SweepFamily; familyRevisionId?: string } & ComparisonDefinition;

@@ -9,6 +9,8 @@ import type { Plant } from "../plants/plant.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import type { SweepInputParsed } from "../sweeps/sweep-input.js";
 import type { Complex } from "../linear-algebra/complex.js";
+import type { FamilyDefinition } from "../families/family-definition.js";
+import type { RevisionChange } from "../revisions/revision-diff.js";
 
 export interface ApiErrorBody {
   /** A sentence the user can act on. */
@@ -68,6 +70,8 @@ export interface PlantRevisionDto {
   name: string;
   unitsNote: string;
   model: Plant;
+  /** What changed and why, written by its author; null for revisions stored before notes (shown as "no note"). */
+  note: string | null;
   createdAt: string;
   createdBy: UserDto;
 }
@@ -80,6 +84,8 @@ export interface PlantSummaryDto {
   latestRevision: PlantRevisionDto;
   revisionCount: number;
   createdAt: string;
+  /** When the plant was archived (hidden from pickers; sweeps on it keep working), or null. */
+  archivedAt: string | null;
 }
 
 /** GET /api/workspaces/:slug/plants/:plantId[?revision=N] */
@@ -87,7 +93,7 @@ export interface PlantDetailDto {
   plant: PlantSummaryDto;
   /** The revision shown (the latest unless ?revision=N). */
   revision: PlantRevisionDto;
-  revisions: { id: string; number: number; createdAt: string; createdBy: UserDto }[];
+  revisions: { id: string; number: number; note: string | null; createdAt: string; createdBy: UserDto }[];
   /**
    * Poles of the shown revision. For a nonlinear plant these are the poles of its linearisation at
    * the operating point (`initial`, `operatingInput`); see polesNote.
@@ -330,4 +336,46 @@ export interface FrequencyDto {
   T: number[];
   /** 1/|W(jω)| when the sweep's criterion options hold a sensitivity weight. */
   invW?: number[];
+}
+
+/** One revision of a saved family: its variants as entries, and what they expand to. */
+export interface FamilyRevisionDto {
+  id: string;
+  familyId: string;
+  number: number;
+  name: string;
+  description: string;
+  definition: FamilyDefinition;
+  /** The variant list a sweep or comparison on this revision uses (expandFamily), each with its plant's name and revision number. */
+  variants: { plantRevisionId: string; label?: string; parameters?: Record<string, number>; plantId: string; plantName: string; revisionNumber: number }[];
+  note: string | null;
+  createdAt: string;
+  createdBy: UserDto;
+}
+
+/** One row of GET /api/workspaces/:slug/families */
+export interface FamilySummaryDto {
+  id: string;
+  name: string;
+  latestRevision: FamilyRevisionDto;
+  revisionCount: number;
+  createdAt: string;
+  archivedAt: string | null;
+}
+
+/** GET /api/workspaces/:slug/families/:familyId[?revision=N] */
+export interface FamilyDetailDto {
+  family: FamilySummaryDto;
+  /** The revision shown (the latest unless ?revision=N). */
+  revision: FamilyRevisionDto;
+  revisions: { id: string; number: number; note: string | null; createdAt: string; createdBy: UserDto }[];
+  /** Sweeps and comparisons that use one of its revisions (newest first). */
+  usedBy: { kind: "sweep" | "comparison"; id: string; name: string; revisionNumber: number }[];
+}
+
+/** GET …/plants/:plantId/diff?from=A&to=B and …/families/:familyId/diff?from=A&to=B */
+export interface RevisionDiffDto {
+  from: number;
+  to: number;
+  changes: RevisionChange[];
 }

@@ -161,12 +161,27 @@ export const sweepAggregateSchema = z.discriminatedUnion(
 export type SweepAggregate = z.infer<typeof sweepAggregateSchema>;
 
 /**
+/** Which saved family revision a sweep's or a comparison's variants came from (see sweepFamilySchema.source). */
+export const familySourceSchema = z.object({
+  familyId: z.string().uuid("familyId must be a family's id"),
+  familyRevisionId: z.string().uuid("familyRevisionId must be a family revision's id"),
+  number: z.number().int("number must be a whole revision number").min(1, "revisions start at 1"),
+});
+
+export type FamilySource = z.infer<typeof familySourceSchema>;
+
+/**
  * The plant variants of a sweep: plant revisions, each with an optional label and, for a
  * nonlinear plant, overrides of its parameters. The first variant's revision is the sweep's
  * `plantRevisionId`.
  */
 export const sweepFamilySchema = z.object({
   name: textField({ label: "family name", max: MAX_TITLE_LENGTH }).optional(),
+  /**
+   * The library family revision these variants were expanded from (expandFamily), filled in by the
+   * server when a definition names `familyRevisionId`; absent for a family built ad hoc.
+   */
+  source: familySourceSchema.optional(),
   variants: z
     .array(
       z.object({
@@ -236,7 +251,8 @@ export interface SweepShape {
   design: SweepDesign;
   aggregate: SweepAggregate;
   plantRevisionId?: string;
-  family?: { name?: string | undefined; variants: readonly { label?: string | undefined; parameters?: Record<string, number> | undefined; plantRevisionId?: string }[] } | undefined;
+  familyRevisionId?: string | undefined;
+  family?: { name?: string | undefined; source?: FamilySource | undefined; variants: readonly { label?: string | undefined; parameters?: Record<string, number> | undefined; plantRevisionId?: string }[] } | undefined;
 }
 
 /** pid and pid2dof without a filter and without tf keep the version-1 default filter. */
@@ -350,6 +366,12 @@ export function checkSweepDefinition(s: SweepShape, ctx: z.RefinementCtx): void 
   }
 
   // Family, design and the size of the sweep and of each simulation.
+  if (s.family?.source !== undefined && s.familyRevisionId !== s.family.source.familyRevisionId) {
+    issue(["familyRevisionId"], "familyRevisionId must be the family revision the variants came from (family.source)");
+  }
+  if (s.familyRevisionId !== undefined && s.family?.source === undefined) {
+    issue(["family"], "a sweep on a saved family gets its variants from familyRevisionId; send the definition to the server, which fills them in");
+  }
   const firstVariant = s.family?.variants[0];
   if (firstVariant?.plantRevisionId !== undefined && s.plantRevisionId !== undefined && firstVariant.plantRevisionId !== s.plantRevisionId) {
     issue(["plantRevisionId"], "plantRevisionId must be the revision of the family's first variant");
@@ -424,6 +446,12 @@ export const sweepInputSchema = z
     plantRevisionId: z.string().uuid("choose a plant revision"),
     ...sweepDefinitionFields,
     family: sweepFamilySchema.optional(),
+    /**
+     * A saved family revision to sweep over instead of listing variants: the server expands it
+     * (expandFamily) into `family` (with `family.source`) and `plantRevisionId` before this schema
+     * parses the definition, and the stored sweep keeps it.
+     */
+    familyRevisionId: z.string().uuid("choose a family revision").optional(),
   })
   .overwrite(withDefaultFilter)
   .superRefine(checkSweepDefinition);

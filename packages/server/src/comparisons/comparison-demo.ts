@@ -1,7 +1,8 @@
-import type { ComparisonInput } from "@loopyard/core";
+import type { ComparisonInput, SweepFamily } from "@loopyard/core";
 import { comparisonInputSchema } from "@loopyard/core";
 import type { Database } from "../db/database.js";
-import { findPlantIdByName, findPlantWithRevisions } from "../plants/plant-repository.js";
+import { libraryFamily } from "../families/family-reference.js";
+import { DEMO_FAMILY_NAME, findDemoFamilyRevision } from "../seed/demo-families.js";
 import { findUserByEmail } from "../users/user-repository.js";
 import { findWorkspaceBySlug } from "../workspaces/workspace-repository.js";
 import { DEMO_WORKSPACE } from "../seed/demo-seed.js";
@@ -11,8 +12,10 @@ import { advanceComparison, prescanChunks } from "./comparison-jobs.js";
 import { findComparison, findComparisonIdByName, insertComparison } from "./comparison-repository.js";
 
 export const DEMO_COMPARISON_NAME = "Ember line — which criterion should we tune by?";
-/** The demo family: the three transfer-function plates of the Ember line. */
+/** The demo family: the three transfer-function plates of the Ember line (the saved family's revision 1). */
 export const DEMO_COMPARISON_PLANTS = ["Ember 200 plate", "Ember 400 plate", "Ember 800 plate"] as const;
+/** The revision of the saved Ember line the demo comparison runs on. */
+const DEMO_FAMILY_REVISION = 1;
 /** Longest the seed waits for the demo comparison to finish [ms]. */
 const DEMO_TIMEOUT_MS = 15 * 60_000;
 
@@ -25,10 +28,11 @@ const DEMO_TIMEOUT_MS = 15 * 60_000;
  * step: a generous bound on the derivative kick) on every plate. The box is wide (log axes) so that
  * the criteria, not the box, choose.
  */
-export function demoComparisonInput(revisions: readonly string[]): ComparisonInput {
+export function demoComparisonInput(family: SweepFamily): ComparisonInput {
   return comparisonInputSchema.parse({
     name: DEMO_COMPARISON_NAME,
-    family: { name: "Ember line", variants: revisions.map((plantRevisionId, i) => ({ plantRevisionId, label: DEMO_COMPARISON_PLANTS[i]?.replace(" plate", "") })) },
+    family,
+    familyRevisionId: family.source?.familyRevisionId,
     structure: "pid",
     ranges: { kp: { min: 0.05, max: 30, scale: "log" }, ki: { min: 0.005, max: 3, scale: "log" }, kd: { min: 0.01, max: 300, scale: "log" } },
     filter: { mode: "ratio", n: 10 },
@@ -55,14 +59,7 @@ export async function seedDemoComparison(db: Database, databaseUrl: string): Pro
   let id = await findComparisonIdByName(db, workspace.id, DEMO_COMPARISON_NAME);
   let created = false;
   if (!id) {
-    const revisions: string[] = [];
-    for (const name of DEMO_COMPARISON_PLANTS) {
-      const plantId = await findPlantIdByName(db, workspace.id, name);
-      const revision = plantId ? (await findPlantWithRevisions(db, workspace.id, plantId))?.revisions[0] : undefined;
-      if (!revision) throw new Error(`the ${name} has no revision to compare on`);
-      revisions.push(revision.id);
-    }
-    const input = demoComparisonInput(revisions);
+    const input = demoComparisonInput(libraryFamily(await findDemoFamilyRevision(db, workspace.id, DEMO_FAMILY_NAME, DEMO_FAMILY_REVISION)));
     const plan = planOf(input, await resolveFamily(db, input));
     id = await insertComparison(db, {
       workspaceId: workspace.id,

@@ -65,7 +65,7 @@ export async function resolveFamily(db: Database, input: ComparisonInput): Promi
 
 /** Core's definition inside a stored input (everything but name and family). */
 export function definitionOf(input: ComparisonInput): ComparisonDefinition {
-  const { name: _name, family: _family, ...definition } = input;
+  const { name: _name, family: _family, familyRevisionId: _familyRevisionId, ...definition } = input;
   return comparisonDefinitionSchema.parse(definition);
 }
 

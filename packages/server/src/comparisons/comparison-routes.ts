@@ -2,7 +2,8 @@ import { Router } from "express";
 import { z } from "zod";
 import { comparisonInputSchema } from "@loopyard/core";
 import type { Database } from "../db/database.js";
-import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
+import { parseIdParam, parseQuery, parseValue } from "../http/validation.js";
+import { resolveFamilyReference } from "../families/family-reference.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
 import { getComparisonsAcross } from "./comparison-across.js";
 import {
@@ -39,8 +40,10 @@ export function comparisonRoutes(db: Database, jobs: ComparisonJobControl): Rout
   });
 
   router.post("/", memberOf(db, "engineer", "Starting comparisons"), async (req, res) => {
-    const input = parseBody(comparisonInputSchema, req);
-    res.status(201).json(await createComparison(db, jobs, accessOf(req), input));
+    const access = accessOf(req);
+    // A saved family (familyRevisionId) becomes the comparison's variant list before it is parsed.
+    const input = parseValue(comparisonInputSchema, await resolveFamilyReference(db, access, req.body, false));
+    res.status(201).json(await createComparison(db, jobs, access, input));
   });
 
   // Before /:comparisonId, so that "across" is not read as an id.

@@ -152,6 +152,8 @@ export const plant = pgTable(
       .references(() => user.id),
     createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+    /** When the plant was archived (hidden from pickers, kept for the sweeps on it); null while in use. */
+    archivedAt: timestamp("archived_at", { withTimezone: true }),
   },
   (table) => [index("plant_workspace_idx").on(table.workspaceId)],
 );
@@ -174,6 +176,8 @@ export const plantRevision = pgTable(
      * before; filled in on their first view). Derived from `model` alone.
      */
     preview: jsonb("preview"),
+    /** What changed and why (required when revising); null for revisions stored before notes existed ("no note"). */
+    note: text("note"),
     createdBy: text("created_by")
       .notNull()
       .references(() => user.id),
@@ -468,6 +472,54 @@ export const decisionSetting = pgTable("decision_setting", {
   updatedBy: text("updated_by").references(() => user.id),
   updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
 });
+
+// ---------------------------------------------------------------- families (saved variant sets, revised like plants)
+
+/** A family of the library: a named product line whose variants live in its revisions. */
+export const family = pgTable(
+  "family",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    /** Name of the latest revision, kept here for listing and sorting. */
+    name: text("name").notNull(),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+    /** When the family was archived (hidden from pickers, kept for the sweeps and comparisons on it); null while in use. */
+    archivedAt: timestamp("archived_at", { withTimezone: true }),
+  },
+  (table) => [index("family_workspace_idx").on(table.workspaceId)],
+);
+
+/**
+ * An immutable version of a family: its entries (core FamilyDefinition, parsed by
+ * familyDefinitionSchema before storing; expandFamily gives the variant list). Rows are inserted,
+ * never updated or deleted by the app.
+ */
+export const familyRevision = pgTable(
+  "family_revision",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    familyId: uuid("family_id")
+      .notNull()
+      .references(() => family.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    definition: jsonb("definition").notNull(),
+    note: text("note"),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [unique("family_revision_family_number_unique").on(table.familyId, table.number)],
+);
 
 export const authSchema = { user, session, account, verification };
 

@@ -27,6 +27,16 @@ export function parseBody<S extends z.ZodType>(schema: S, req: Request): z.outpu
   return result.data;
 }
 
+/** Parses a request body already read (e.g. with a saved family filled in), or throws a 400 that names the field. */
+export function parseValue<S extends z.ZodType>(schema: S, body: unknown): z.output<S> {
+  if (body === undefined) {
+    throw new HttpError(400, "Send the request body as JSON with the header Content-Type: application/json.");
+  }
+  const result = schema.safeParse(body);
+  if (!result.success) throw zodToHttpError(result.error);
+  return result.data;
+}
+
 /** Parses the query string of `req` with `schema`; field names are the query parameter names. */
 export function parseQuery<S extends z.ZodType>(schema: S, req: Request): z.output<S> {
   const result = schema.safeParse(req.query);

@@ -13,6 +13,7 @@ const revisionColumns = {
   name: plantRevision.name,
   unitsNote: plantRevision.unitsNote,
   model: plantRevision.model,
+  note: plantRevision.note,
   createdAt: plantRevision.createdAt,
   createdBy: userDtoColumns,
 };
@@ -24,6 +25,7 @@ interface RevisionRow {
   name: string;
   unitsNote: string;
   model: unknown;
+  note: string | null;
   createdAt: Date;
   createdBy: UserDto;
 }
@@ -37,6 +39,7 @@ function toRevisionDto(row: RevisionRow): PlantRevisionDto {
     unitsNote: row.unitsNote,
     // Stored only after plantModelSchema parsed it; revisions are never changed afterwards.
     model: row.model as Plant,
+    note: row.note,
     createdAt: row.createdAt.toISOString(),
     createdBy: row.createdBy,
   };
@@ -47,9 +50,10 @@ interface PlantRow {
   name: string;
   kind: string;
   createdAt: Date;
+  archivedAt: Date | null;
 }
 
-const plantColumns = { id: plant.id, name: plant.name, kind: plant.kind, createdAt: plant.createdAt };
+const plantColumns = { id: plant.id, name: plant.name, kind: plant.kind, createdAt: plant.createdAt, archivedAt: plant.archivedAt };
 
 function toSummary(row: PlantRow, revisions: PlantRevisionDto[]): PlantSummaryDto {
   const latest = revisions[revisions.length - 1];
@@ -61,6 +65,7 @@ function toSummary(row: PlantRow, revisions: PlantRevisionDto[]): PlantSummaryDt
     latestRevision: latest,
     revisionCount: revisions.length,
     createdAt: row.createdAt.toISOString(),
+    archivedAt: row.archivedAt?.toISOString() ?? null,
   };
 }
 
@@ -151,6 +156,7 @@ export async function insertPlant(db: Database, workspaceId: string, userId: str
       unitsNote: input.unitsNote,
       model: input.model,
       preview,
+      note: input.note ?? null,
       createdBy: userId,
     });
     return created.id;
@@ -183,6 +189,7 @@ export async function insertRevision(db: Database, plantId: string, userId: stri
       unitsNote: input.unitsNote,
       model: input.model,
       preview,
+      note: input.note ?? null,
       createdBy: userId,
     });
     await tx.update(plant).set({ name: input.name, kind: input.model.kind, updatedAt: new Date() }).where(eq(plant.id, plantId));
@@ -203,4 +210,14 @@ export async function findRevisionPreview(db: Database, revisionId: string): Pro
 export async function storeRevisionPreview(db: Database, revisionId: string, preview: unknown, replace: boolean): Promise<void> {
   const where = replace ? eq(plantRevision.id, revisionId) : and(eq(plantRevision.id, revisionId), isNull(plantRevision.preview));
   await db.update(plantRevision).set({ preview }).where(where);
+}
+
+/** Archives (a date) or restores (null) a plant of the workspace; false when there is no such plant. */
+export async function setPlantArchived(db: Database, workspaceId: string, plantId: string, archivedAt: Date | null): Promise<boolean> {
+  const rows = await db
+    .update(plant)
+    .set({ archivedAt })
+    .where(and(eq(plant.workspaceId, workspaceId), eq(plant.id, plantId)))
+    .returning({ id: plant.id });
+  return rows.length > 0;
 }

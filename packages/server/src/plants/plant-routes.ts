@@ -7,7 +7,8 @@ import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
 import { sendAnswer } from "../http/answer-cache.js";
 import { plantListAnswer } from "./plant-list-cache.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
-import { createPlant, createRevision, getPlantDetail, listPlants, PLANT_NOT_FOUND } from "./plant-service.js";
+import { diffQuerySchema } from "../revisions/revision-rules.js";
+import { createPlant, createRevision, getPlantDetail, getPlantDiff, listPlants, PLANT_NOT_FOUND, setPlantArchive } from "./plant-service.js";
 
 const detailQuerySchema = z.object({
   revision: z.coerce.number({ error: "give a revision number" }).int("give a whole revision number").min(1, "revisions start at 1").optional(),
@@ -39,6 +40,22 @@ export function plantRoutes(db: Database, compute: Compute): Router {
     const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
     const input = parseBody(plantInputSchema, req);
     res.status(201).json(await createRevision(db, compute, accessOf(req), plantId, input));
+  });
+
+  router.get("/:plantId/diff", canRead, async (req, res) => {
+    const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
+    const query = parseQuery(diffQuerySchema, req);
+    res.json(await getPlantDiff(db, accessOf(req), plantId, query));
+  });
+
+  router.post("/:plantId/archive", memberOf(db, "engineer", "Archiving plants"), async (req, res) => {
+    const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
+    res.json(await setPlantArchive(db, compute, accessOf(req), plantId, true));
+  });
+
+  router.post("/:plantId/restore", memberOf(db, "engineer", "Restoring plants"), async (req, res) => {
+    const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
+    res.json(await setPlantArchive(db, compute, accessOf(req), plantId, false));
   });
 
   return router;

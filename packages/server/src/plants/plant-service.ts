@@ -1,10 +1,20 @@
-import type { PlantDetailDto, PlantInputParsed, PlantRevisionDto, PlantSummaryDto } from "@loopyard/core";
+import { diffPlantRevisions } from "@loopyard/core";
+import type { PlantDetailDto, PlantInputParsed, PlantRevisionDto, PlantSummaryDto, RevisionDiffDto } from "@loopyard/core";
 import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { notFound } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { previewPlantModel, PREVIEW_VERSION, type StoredPreview } from "./plant-model-check.js";
-import { findPlantWithRevisions, findRevisionPreview, insertPlant, insertRevision, listPlantSummaries, storeRevisionPreview } from "./plant-repository.js";
+import { assertChangeNote, diffNumbers, revisionRangeSentence } from "../revisions/revision-rules.js";
+import {
+  findPlantWithRevisions,
+  findRevisionPreview,
+  insertPlant,
+  insertRevision,
+  listPlantSummaries,
+  setPlantArchived,
+  storeRevisionPreview,
+} from "./plant-repository.js";
 
 /** What the poles of a nonlinear plant are. */
 export const NONLINEAR_POLES_NOTE =
@@ -33,13 +43,13 @@ export async function getPlantDetail(
   const revision =
     revisionNumber === undefined ? found.summary.latestRevision : found.revisions.find((r) => r.number === revisionNumber);
   if (!revision) {
-    throw notFound(`${found.summary.name} has no revision ${revisionNumber}; it has revisions 1 to ${found.revisions.length}.`);
+    throw notFound(revisionRangeSentence(found.summary.name, revisionNumber ?? 0, found.revisions.length));
   }
   const preview = await previewOf(db, compute, revision);
   return {
     plant: found.summary,
     revision,
-    revisions: found.revisions.map(({ id, number, createdAt, createdBy }) => ({ id, number, createdAt, createdBy })),
+    revisions: found.revisions.map(({ id, number, note, createdAt, createdBy }) => ({ id, number, note, createdAt, createdBy })),
     poles: preview.poles,
     polesNote: revision.model.kind === "nonlinear" ? NONLINEAR_POLES_NOTE : null,
     step: preview.step,
@@ -71,7 +81,35 @@ export async function createRevision(
 ): Promise<PlantDetailDto> {
   const found = await findPlantWithRevisions(db, access.workspace.id, plantId);
   if (!found) throw notFound(PLANT_NOT_FOUND);
+  assertChangeNote(input.note);
   const preview = await previewPlantModel(compute, input.model);
   const number = await insertRevision(db, plantId, access.user.id, input, preview);
   return getPlantDetail(db, compute, access, plantId, number);
+}
+
+/** What changed from revision `from` to revision `to` of a plant (core diffPlantRevisions). */
+export async function getPlantDiff(
+  db: Database,
+  access: MemberAccess,
+  plantId: string,
+  query: { from?: number | undefined; to?: number | undefined },
+): Promise<RevisionDiffDto> {
+  const found = await findPlantWithRevisions(db, access.workspace.id, plantId);
+  if (!found) throw notFound(PLANT_NOT_FOUND);
+  const pick = (n: number) => {
+    const revision = found.revisions.find((r) => r.number === n);
+    if (!revision) throw notFound(revisionRangeSentence(found.summary.name, n, found.revisions.length));
+    return revision;
+  };
+  const { from, to } = diffNumbers(query, found.revisions.length);
+  return { from, to, changes: diffPlantRevisions(pick(from), pick(to)) };
+}
+
+/**
+ * Archives a plant (archived true: hidden from the pickers, its revisions kept for the sweeps and
+ * comparisons that use them) or restores it (engineer+ checked by the route). Idempotent.
+ */
+export async function setPlantArchive(db: Database, compute: Compute, access: MemberAccess, plantId: string, archived: boolean): Promise<PlantDetailDto> {
+  if (!(await setPlantArchived(db, access.workspace.id, plantId, archived ? new Date() : null))) throw notFound(PLANT_NOT_FOUND);
+  return getPlantDetail(db, compute, access, plantId);
 }

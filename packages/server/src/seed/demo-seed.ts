@@ -2,7 +2,9 @@ import type { PlantInputParsed, Role, SweepInputParsed, UserDto } from "@loopyar
 import { planSweep, plantInputSchema, sweepInputSchema } from "@loopyard/core";
 import type { Auth } from "../auth/auth.js";
 import type { Database } from "../db/database.js";
-import { findPlantIdByName, findPlantWithRevisions, insertPlant } from "../plants/plant-repository.js";
+import { libraryFamily } from "../families/family-reference.js";
+import { findPlantIdByName, findPlantWithRevisions, findRevisionById, insertPlant } from "../plants/plant-repository.js";
+import { DEMO_FAMILY_NAME, findDemoFamilyRevision, seedDemoFamilies } from "./demo-families.js";
 import { findSweepForRun, findSweepIdByName, insertSweep } from "../sweeps/sweep-repository.js";
 import { findUserByEmail } from "../users/user-repository.js";
 import { markEmailVerified } from "../members/member-repository.js";
@@ -80,12 +82,33 @@ export const DEMO_PLANTS: readonly PlantInputParsed[] = [
 
 export const DEMO_SWEEP_NAME = "Ember 200 — first PID grid";
 export const DEMO_LOAD_SWEEP_NAME = "Ember 600 — PI load rejection";
+export const DEMO_FAMILY_SWEEP_NAME = "Ember line — PI over the family";
 
 /** A demo sweep: its name, the plant it runs on (revision 1) and its definition. */
 interface DemoSweep {
   name: string;
   plantName: string;
   input(plantRevisionId: string): SweepInputParsed;
+}
+
+/**
+ * The demo sweep on a saved family: a 6 × 6 PI grid over the Ember line (revision 1: the 200, 400
+ * and 800 plates), worst case over the three, 120 s after a unit setpoint step at dt = 0.02 s.
+ * Its definition names the family revision; the variants are the revision's (libraryFamily).
+ */
+function demoFamilySweep(family: ReturnType<typeof libraryFamily>): SweepInputParsed {
+  const source = family.source;
+  return sweepInputSchema.parse({
+    name: DEMO_FAMILY_SWEEP_NAME,
+    plantRevisionId: family.variants[0]?.plantRevisionId,
+    familyRevisionId: source?.familyRevisionId,
+    family,
+    structure: "pi",
+    ranges: { kp: { min: 0.2, max: 3, count: 6 }, ki: { min: 0.02, max: 0.4, count: 6 } },
+    scenario: { kind: "setpoint-step", horizon: 120, dt: 0.02 },
+    criteria: ["iae", "ise", "effort", "overshoot"],
+    aggregate: { kind: "worst" },
+  });
 }
 
 export const DEMO_SWEEPS: readonly DemoSweep[] = [
@@ -137,6 +160,7 @@ export interface SeedReport {
   workspaceCreated: boolean;
   membershipsAdded: number;
   plantsCreated: number;
+  familiesCreated: number;
   sweepsCreated: number;
 }
 
@@ -149,7 +173,7 @@ export interface SeedReport {
  * sweeps once the seed returns.
  */
 export async function seedDemo(db: Database, auth: Auth, jobs: DemoSweepJobs, options: { waitMs?: number } = {}): Promise<SeedReport> {
-  const report: SeedReport = { usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, sweepsCreated: 0 };
+  const report: SeedReport = { usersCreated: 0, workspaceCreated: false, membershipsAdded: 0, plantsCreated: 0, familiesCreated: 0, sweepsCreated: 0 };
 
   const users = new Map<string, UserDto>();
   for (const demo of DEMO_USERS) {
@@ -184,6 +208,7 @@ export async function seedDemo(db: Database, auth: Auth, jobs: DemoSweepJobs, op
     await insertPlant(db, workspace.id, engineer.id, plantInputSchema.parse(demo));
     report.plantsCreated += 1;
   }
+  report.familiesCreated = await seedDemoFamilies(db, workspace.id, engineer.id);
 
   for (const demo of DEMO_SWEEPS) {
     let sweepId = await findSweepIdByName(db, workspace.id, demo.name);
@@ -201,6 +226,21 @@ export async function seedDemo(db: Database, auth: Auth, jobs: DemoSweepJobs, op
     await jobs.start(sweepId);
     started.push({ id: sweepId, name: demo.name });
   }
+  let familySweepId = await findSweepIdByName(db, workspace.id, DEMO_FAMILY_SWEEP_NAME);
+  if (!familySweepId) {
+    const definition = demoFamilySweep(libraryFamily(await findDemoFamilyRevision(db, workspace.id, DEMO_FAMILY_NAME, 1)));
+    const models = [];
+    for (const variant of definition.family?.variants ?? []) {
+      const revision = await findRevisionById(db, variant.plantRevisionId);
+      if (!revision) throw new Error(`a plant revision of the ${DEMO_FAMILY_NAME} family is missing`);
+      models.push(revision.model);
+    }
+    const total = planSweep(definition, models).budget;
+    familySweepId = await insertSweep(db, { workspaceId: workspace.id, createdBy: engineer.id, definition, total });
+    report.sweepsCreated += 1;
+  }
+  await jobs.start(familySweepId);
+  started.push({ id: familySweepId, name: DEMO_FAMILY_SWEEP_NAME });
   for (const sweep of started) await waitForSweep(db, sweep, options.waitMs ?? DEMO_SWEEP_WAIT_MS);
   return report;
 }

@@ -34,6 +34,7 @@ function send(req: Request, res: Response, found: { answer: CachedAnswer; finish
   if (found.finished) sendAnswer(req, res, found.answer);
   else res.type(found.answer.type).send(found.answer.body);
 }
+import { resolveFamilyReference } from "../families/family-reference.js";
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
@@ -59,9 +60,9 @@ function candidateIndex(param: string | string[] | undefined): number {
  * The sweep definition of a POST body, or a 400 with core's sentence for its first problem
  * (firstSweepIssue): the words the web form shows at the field and the CLI prints.
  */
-function parseSweepBody(req: Request): SweepInputParsed {
-  if (req.body === undefined) throw new HttpError(400, "Send the request body as JSON with the header Content-Type: application/json.");
-  const result = sweepInputSchema.safeParse(req.body);
+function parseSweepBody(body: unknown): SweepInputParsed {
+  if (body === undefined) throw new HttpError(400, "Send the request body as JSON with the header Content-Type: application/json.");
+  const result = sweepInputSchema.safeParse(body);
   if (result.success) return result.data;
   const first = firstSweepIssue(result.error);
   const issues = sweepIssues(result.error).map((i) => ({ field: i.field, message: i.sentence }));
@@ -79,8 +80,9 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
   });
 
   router.post("/", memberOf(db, "engineer", "Starting sweeps"), async (req, res) => {
-    const input = parseSweepBody(req);
     const access = accessOf(req);
+    // A saved family (familyRevisionId) becomes the definition's variant list before it is parsed.
+    const input = parseSweepBody(await resolveFamilyReference(db, access, req.body, true));
     const created = await createSweep(db, jobs.start, access, input, limits);
     res.status(201).json(created);
     // The bound and the baselines follow from the definition: ready by the time the sweep has results.

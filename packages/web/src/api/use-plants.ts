@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { PlantDetailDto, PlantInput, PlantSummaryDto } from "@loopyard/core";
+import type { PlantDetailDto, PlantInput, PlantSummaryDto, RevisionDiffDto } from "@loopyard/core";
 import { apiFetch } from "./client.js";
 import { queryKeys } from "./query-keys.js";
 
@@ -40,6 +40,25 @@ export function useCreateRevision(slug: string, plantId: string) {
   return useMutation({
     mutationFn: (input: PlantInput) =>
       apiFetch<PlantDetailDto>(`${plantsPath(slug)}/${encodeURIComponent(plantId)}/revisions`, { method: "POST", body: input }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.workspace(slug) }),
+  });
+}
+
+/** GET /api/workspaces/:slug/plants/:plantId/diff?from=A&to=B: what changed between two revisions. */
+export function usePlantDiff(slug: string, plantId: string, from: number, to: number) {
+  return useQuery({
+    queryKey: [...queryKeys.plants(slug), plantId, "diff", from, to] as const,
+    queryFn: () => apiFetch<RevisionDiffDto>(`${plantsPath(slug)}/${encodeURIComponent(plantId)}/diff?from=${from}&to=${to}`),
+    enabled: Boolean(plantId) && from >= 1 && to >= 1,
+  });
+}
+
+/** POST …/plants/:plantId/archive or …/restore (engineer+): hide a plant from the pickers, or bring it back. */
+export function useArchivePlant(slug: string, plantId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (archive: boolean) =>
+      apiFetch<PlantDetailDto>(`${plantsPath(slug)}/${encodeURIComponent(plantId)}/${archive ? "archive" : "restore"}`, { method: "POST", body: {} }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.workspace(slug) }),
   });
 }

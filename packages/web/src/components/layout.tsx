@@ -17,6 +17,7 @@ export interface LayoutProps {
 const NAV = [
   { to: "", label: "Home", end: true, testId: "nav-home" },
   { to: "plants", label: "Library", end: false, testId: "nav-library" },
+  { to: "families", label: "Families", end: false, testId: "nav-families" },
   { to: "sweeps", label: "Sweeps", end: false, testId: "nav-sweeps" },
   { to: "comparisons", label: "Compare criteria", end: false, testId: "nav-comparisons" },
   { to: "members", label: "Members", end: false, testId: "nav-members" },

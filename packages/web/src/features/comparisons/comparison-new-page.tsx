@@ -3,6 +3,9 @@ import { useForm, useWatch, type Control, type FieldErrors, type Resolver, type 
 import { useNavigate, useSearchParams } from "react-router";
 import { useComparison, useCreateComparison } from "../../api/use-comparisons.js";
 import { usePlant, usePlants } from "../../api/use-plants.js";
+import { useFamilies } from "../../api/use-families.js";
+import type { FamilyRevisionDto } from "@loopyard/core";
+import { SavedFamilyPicker } from "../sweeps/saved-family-picker.js";
 import { useSweep } from "../../api/use-sweeps.js";
 import { Button, ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
@@ -42,6 +45,9 @@ export function ComparisonNewPage() {
   const { slug, workspace, role, canEdit } = useWorkspaceRole();
   const [params] = useSearchParams();
   const plants = usePlants(slug);
+  const families = useFamilies(slug);
+  // A saved family chosen instead of variants built here (null: build them here).
+  const [savedFamily, setSavedFamily] = useState<FamilyRevisionDto | null>(null);
   const [plantId, setPlantId] = useState<string | undefined>(params.get("plant") ?? undefined);
   const plant = usePlant(slug, plantId);
   const create = useCreateComparison(slug);
@@ -84,7 +90,7 @@ export function ComparisonNewPage() {
   const weightsText = useWatch({ control, name: "quadraticWeights" });
   const judges = useWatch({ control, name: "judges" });
   const budget = useWatch({ control, name: "budget" });
-  const variantCount = 1 + (variants?.length ?? 0);
+  const variantCount = savedFamily ? savedFamily.variants.length : 1 + (variants?.length ?? 0);
   const weights = parseWeights(weightsText ?? "");
   const contenderCount = (Array.isArray(contenders) ? contenders.length : 0) + (weights.ok ? weights.values.length : 0);
 
@@ -103,9 +109,22 @@ export function ComparisonNewPage() {
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [sweep.data, source.data]);
 
+  // Archived plants are not offered (a copied definition keeps its own).
+  const offeredPlants = useMemo(() => (plants.data ?? []).filter((p) => p.archivedAt === null || p.id === plantId), [plants.data, plantId]);
   useEffect(() => {
-    if (!plantId && !sweepId && !fromId && plants.data && plants.data.length > 0) setPlantId(plants.data[0].id);
-  }, [plantId, sweepId, fromId, plants.data]);
+    if (!plantId && !sweepId && !fromId && offeredPlants.length > 0) setPlantId(offeredPlants[0].id);
+  }, [plantId, sweepId, fromId, offeredPlants]);
+
+  /** A saved family chosen (or "build one here"): its first variant stands above, for the horizon and the state count. */
+  const chooseFamily = (revision: FamilyRevisionDto | null) => {
+    setSavedFamily(revision);
+    const first = revision?.variants[0];
+    if (first) {
+      setPlantId(first.plantId);
+      setValue("plantRevisionId", first.plantRevisionId);
+      setValue("variants", []);
+    }
+  };
 
   useEffect(() => {
     if (!plant.data) return;
@@ -120,12 +139,19 @@ export function ComparisonNewPage() {
 
   useEffect(() => {
     if (!plant.data || nameTyped.current || prefilled.current) return;
-    setValue("name", `${plant.data.plant.name}${variantCount > 1 ? ` family (${variantCount})` : ""}: which criterion?`);
+    const what = savedFamily ? `${savedFamily.name} rev ${savedFamily.number}` : `${plant.data.plant.name}${variantCount > 1 ? ` family (${variantCount})` : ""}`;
+    setValue("name", `${what}: which criterion?`);
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [plant.data, variantCount]);
+  }, [plant.data, variantCount, savedFamily]);
 
-  const submit = handleSubmit(async (input) => {
+  const submit = handleSubmit(async (typed) => {
     setFailure(null);
+    // With a saved family the server expands its revision into the variants (and keeps which revision it used).
+    let input = typed;
+    if (savedFamily) {
+      const { family: _adHoc, ...rest } = typed;
+      input = { ...rest, familyRevisionId: savedFamily.id };
+    }
     try {
       const created = await create.mutateAsync(input);
       navigate(`/w/${slug}/comparisons/${created.id}`);
@@ -178,9 +204,14 @@ export function ComparisonNewPage() {
               <Field label="Name" htmlFor="comparison-name" name="name" error={errors.name?.message} className="sm:col-span-2">
                 <input id="comparison-name" className={inputClass} {...register("name", { onChange: () => (nameTyped.current = true) })} data-testid="comparison-name" />
               </Field>
+              <div className="sm:col-span-2">
+                <SavedFamilyPicker slug={slug} families={families.data ?? []} chosen={savedFamily} onChoose={chooseFamily} />
+              </div>
+            </div>
+            <div className={`mt-4 grid grid-cols-1 gap-4 sm:grid-cols-2 ${savedFamily ? "hidden" : ""}`}>
               <Field label="Plant" htmlFor="comparison-plant" name="plant">
                 <select id="comparison-plant" className={inputClass} value={plantId ?? ""} onChange={(e) => setPlantId(e.target.value)} data-testid="comparison-plant">
-                  {plants.data.map((p) => (
+                  {offeredPlants.map((p) => (
                     <option key={p.id} value={p.id}>
                       {p.name}
                     </option>
@@ -206,7 +237,9 @@ export function ComparisonNewPage() {
                 <input id="first-variant-label" className={inputClass} {...register("firstVariant.label")} />
               </Field>
             </div>
-            <FamilyVariants slug={slug} plants={plants.data} control={sweepControl} register={sweepRegister} setValue={sweepSetValue} errors={sweepErrors} />
+            {savedFamily ? null : (
+              <FamilyVariants slug={slug} plants={offeredPlants} control={sweepControl} register={sweepRegister} setValue={sweepSetValue} errors={sweepErrors} />
+            )}
           </Section>
           <StructureSection
             register={sweepRegister}

@@ -1,6 +1,6 @@
-import { useEffect } from "react";
+import { useEffect, useState } from "react";
 import { Link, useParams, useSearchParams } from "react-router";
-import { usePlant } from "../../api/use-plants.js";
+import { useArchivePlant, usePlant, usePlantDiff } from "../../api/use-plants.js";
 import { ButtonLink } from "../../components/button.js";
 import { preloadPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS } from "../../components/charts/chart-theme.js";
@@ -15,6 +15,10 @@ import { ActuatorLimitsList } from "./actuator-limits-view.js";
 import { PlantModelView } from "./plant-model-view.js";
 import { plantKindShort } from "./plant-kind.js";
 import { PolesTable } from "./poles-table.js";
+import { RevisionDiffView } from "../revisions/revision-diff-view.js";
+import { RevisionList } from "../revisions/revision-list.js";
+import { ArchiveControl } from "../revisions/archive-control.js";
+import { ExportButton, libraryFileName } from "../library/export-button.js";
 
 /** /w/:slug/plants/:plantId[?revision=N] — one revision of a plant: model, poles, open-loop step, revisions. */
 export function PlantDetailPage() {
@@ -26,6 +30,12 @@ export function PlantDetailPage() {
   const revisionParam = params.get("revision");
   const revision = revisionParam !== null && /^\d+$/.test(revisionParam) ? Number(revisionParam) : undefined;
   const plant = usePlant(slug, plantId, revision);
+  const archive = useArchivePlant(slug, plantId);
+  const shownNumber = plant.data?.revision.number ?? 1;
+  const [pair, setPair] = useState<{ from: number; to: number } | null>(null);
+  const diffFrom = pair?.from ?? Math.max(1, shownNumber - 1);
+  const diffTo = pair?.to ?? shownNumber;
+  const diff = usePlantDiff(slug, plantId, diffFrom, diffTo);
   const base = `/w/${slug}`;
   const back = { to: `${base}/plants`, label: "Library" };
 
@@ -75,12 +85,24 @@ export function PlantDetailPage() {
             <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" testId="sweep-this-revision" disabledReason={refusal ? roleSentence("Running sweeps", "engineer", workspace.data?.workspace.name, role) : null}>
               Sweep this revision
             </ButtonLink>
+            <ExportButton slug={slug} plant={summary.id} fileName={libraryFileName(summary.name)} />
+            <ArchiveControl
+              archivedAt={summary.archivedAt}
+              what="plant"
+              refusal={refusal ? roleSentence("Archiving plants", "engineer", workspace.data?.workspace.name, role) : null}
+              mutation={archive}
+            />
             <ButtonLink to={`${base}/plants/${summary.id}/revise`} tone="primary" disabledReason={refusal} testId="new-revision">
               New revision
             </ButtonLink>
           </>
         }
       />
+      {summary.archivedAt ? (
+        <p role="note" className="mb-4 rounded-md border border-line bg-sheet px-4 py-2 text-sm text-ink-soft" data-testid="archived-note">
+          Archived {formatDateTime(summary.archivedAt)}: new sweeps and families do not offer it; sweeps, comparisons and families that use its revisions keep them. Restore it to offer it again.
+        </p>
+      ) : null}
       {isLatest ? null : (
         <p role="note" className="mb-4 rounded-md border border-line bg-sheet px-4 py-2 text-sm text-ink-soft">
           You are looking at an earlier revision. It stays unchanged; sweeps that used it keep their results.
@@ -120,21 +142,14 @@ export function PlantDetailPage() {
             <ActuatorLimitsList limits={model.actuator} />
           </Section>
           <Section title="Revisions" testId="revision-list">
-            <ol className="space-y-1 text-sm">
-              {[...revisions].sort((a, b) => b.number - a.number).map((r) => (
-                <li key={r.id}>
-                  <Link
-                    to={`${base}/plants/${summary.id}?revision=${r.number}`}
-                    className={`flex items-baseline justify-between gap-3 rounded px-2 py-1 ${r.number === shown.number ? "bg-moss-wash text-moss" : "hover:bg-paper"}`}
-                  >
-                    <span className="font-mono">rev {r.number}</span>
-                    <span className="truncate text-xs text-ink-soft">
-                      {formatDateTime(r.createdAt)} · {r.createdBy.name}
-                    </span>
-                  </Link>
-                </li>
-              ))}
-            </ol>
+            <RevisionList revisions={revisions} shown={shown.number} linkTo={(n) => `${base}/plants/${summary.id}?revision=${n}`} />
+          </Section>
+          <Section title="What changed" aside="between two revisions" testId="plant-diff">
+            {revisions.length < 2 ? (
+              <p className="text-sm text-ink-soft">One revision so far. Each new revision says what changed, and shows it here field by field.</p>
+            ) : (
+              <RevisionDiffView numbers={revisions.map((r) => r.number)} from={diffFrom} to={diffTo} onChange={(from, to) => setPair({ from, to })} query={diff} />
+            )}
           </Section>
         </div>
       </div>

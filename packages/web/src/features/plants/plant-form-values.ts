@@ -14,6 +14,8 @@ import { formatParametersText, parseNames, parseParameters } from "./nonlinear-t
 export interface PlantFormValues {
   name: string;
   unitsNote: string;
+  /** What changed and why (required for a new revision; optional on a new plant). */
+  note: string;
   model: {
     kind: PlantKind;
     /** Transfer function: coefficient lists and dead time. */
@@ -43,6 +45,7 @@ const indexed = (name: string) => Array.from({ length: MAX_NONLINEAR_STATES }, (
 export const PLANT_FORM_FIELDS = [
   "name",
   "unitsNote",
+  "note",
   "model.kind",
   "model.num",
   "model.den",
@@ -68,6 +71,7 @@ export const PLANT_FORM_FIELDS = [
 export const EMPTY_PLANT_FORM: PlantFormValues = {
   name: "",
   unitsNote: "",
+  note: "",
   model: {
     kind: "transfer-function",
     num: "",
@@ -95,6 +99,7 @@ export function plantFormFromRevision(revision: PlantRevisionDto): PlantFormValu
   const values: PlantFormValues = {
     name: revision.name,
     unitsNote: revision.unitsNote,
+    note: "",
     model: { ...EMPTY_PLANT_FORM.model, kind: model.kind, actuator: { min: text(model.actuator?.min), max: text(model.actuator?.max), rate: text(model.actuator?.rate) } },
   };
   if (model.kind === "transfer-function") {
@@ -210,6 +215,7 @@ export function readPlantForm(values: PlantFormValues): { ok: true; input: Plant
   }
   const model: Plant = actuator.limits ? { ...read.model, actuator: actuator.limits } : read.model;
   const input: PlantInput = { name: values.name, unitsNote: values.unitsNote, model };
+  if ((values.note ?? "").trim() !== "") input.note = values.note;
   const parsed = plantInputSchema.safeParse(input);
   if (!parsed.success) return { ok: false, errors: fieldErrors(parsed.error.issues, PLANT_FORM_FIELDS) };
   return { ok: true, input };

@@ -27,6 +27,7 @@ export function PlantForm({
   pendingLabel,
   onSubmit,
   refusal,
+  noteRequired = false,
 }: {
   initial: PlantFormValues;
   submitLabel: string;
@@ -35,6 +36,8 @@ export function PlantForm({
   onSubmit: (input: PlantInput) => Promise<unknown>;
   /** When set, the caller may not submit; the sentence says why. */
   refusal?: string | null;
+  /** A new revision must say what changed (the server refuses it otherwise). */
+  noteRequired?: boolean;
 }) {
   const form = useForm<PlantFormValues, unknown, PlantInput>({ defaultValues: initial, resolver: plantFormResolver });
   const { register, handleSubmit, formState, setError, control } = form;
@@ -49,6 +52,10 @@ export function PlantForm({
 
   const submit = handleSubmit(async (input) => {
     setFailure(null);
+    if (noteRequired && !input.note?.trim()) {
+      setError("note", { type: "required", message: "say what changed in this revision and why" });
+      return;
+    }
     try {
       await onSubmit(input);
     } catch (error) {
@@ -77,6 +84,16 @@ export function PlantForm({
           hint="What u and y stand for, with units — e.g. u: heater power fraction [0–1]; y: plate temperature rise [K]"
         >
           <textarea id="plant-units" rows={2} className={inputClass} aria-invalid={Boolean(errors.unitsNote)} {...register("unitsNote")} />
+        </Field>
+
+        <Field
+          label={noteRequired ? "Change note" : "Change note (optional)"}
+          htmlFor="plant-note"
+          name="note"
+          error={errors.note?.message}
+          hint={noteRequired ? "What changed and why — e.g. refitted from the March step test; dead time 0.8 s" : "Where the model comes from — e.g. fitted from the bench step test"}
+        >
+          <input id="plant-note" className={inputClass} aria-invalid={Boolean(errors.note)} data-testid="plant-note" {...register("note")} />
         </Field>
 
         <fieldset data-testid="plant-kind">

@@ -1,4 +1,6 @@
+import { useState } from "react";
 import { Link } from "react-router";
+import { ExportButton, libraryFileName } from "../library/export-button.js";
 import { usePlants } from "../../api/use-plants.js";
 import { ButtonLink } from "../../components/button.js";
 import { EmptyState } from "../../components/empty-state.js";
@@ -25,10 +27,18 @@ export function PlantListPage() {
   const plants = usePlants(slug);
   const base = `/w/${slug}`;
   const refusal = workspace.data && !canEdit ? roleSentence("Creating plants", "engineer", workspace.data.workspace.name, role) : null;
+  const [showArchived, setShowArchived] = useState(false);
+  const archivedCount = plants.data?.filter((p) => p.archivedAt !== null).length ?? 0;
   const newButton = (
-    <ButtonLink to={`${base}/plants/new`} tone="primary" disabledReason={refusal} testId="new-plant">
-      New plant
-    </ButtonLink>
+    <>
+      <ExportButton slug={slug} fileName={libraryFileName(workspace.data?.workspace.name ?? slug)} label="Export library" />
+      <ButtonLink to={`${base}/library/import`} tone="quiet" disabledReason={refusal ? roleSentence("Importing into the library", "engineer", workspace.data?.workspace.name, role) : null} testId="import-library">
+        Import library
+      </ButtonLink>
+      <ButtonLink to={`${base}/plants/new`} tone="primary" disabledReason={refusal} testId="new-plant">
+        New plant
+      </ButtonLink>
+    </>
   );
 
   return (
@@ -60,13 +70,15 @@ export function PlantListPage() {
       }
     >
       {(rows) => (
+        <>
         <ListTable testId="plant-table" columns={PLANT_COLUMNS}>
-          {rows.map((p) => (
-            <tr key={p.id} className="hover:bg-paper">
+          {rows.filter((p) => showArchived || p.archivedAt === null).map((p) => (
+            <tr key={p.id} className={`hover:bg-paper ${p.archivedAt ? "opacity-60" : ""}`}>
               <td className="px-4 py-2.5">
                 <Link to={`${base}/plants/${p.id}`} className="font-medium hover:text-moss" data-testid="plant-link">
                   {p.name}
                 </Link>
+                {p.archivedAt ? <span className="ml-2 rounded bg-line px-1.5 py-0.5 text-[11px] text-ink-soft">archived</span> : null}
                 {p.latestRevision.unitsNote ? <div className="max-w-xs truncate text-xs text-ink-soft">{p.latestRevision.unitsNote}</div> : null}
               </td>
               <td className="whitespace-nowrap px-4 py-2.5 text-xs text-ink-soft" data-testid="plant-kind-cell">
@@ -88,6 +100,13 @@ export function PlantListPage() {
             </tr>
           ))}
         </ListTable>
+        {archivedCount > 0 ? (
+          <label className="mt-3 flex items-center gap-2 text-xs text-ink-soft">
+            <input type="checkbox" className="accent-moss" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} data-testid="show-archived-plants" />
+            Show {archivedCount} archived plant{archivedCount === 1 ? "" : "s"}
+          </label>
+        ) : null}
+        </>
       )}
     </ListPage>
   );

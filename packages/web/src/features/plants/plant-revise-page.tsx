@@ -39,6 +39,7 @@ export function PlantRevisePage() {
         submitLabel={`Save as revision ${latest.number + 1}`}
         pendingLabel="Saving…"
         refusal={refusal}
+        noteRequired
         onSubmit={async (input) => {
           const created = await revise.mutateAsync(input);
           navigate(`/w/${slug}/plants/${plantId}?revision=${created.revision.number}`);

@@ -78,6 +78,14 @@ export function SweepDetailPage() {
         }
         subtitle={
           <>
+            {s.definition.family?.source ? (
+              <>
+                <Link to={`/w/${slug}/families/${s.definition.family.source.familyId}?revision=${s.definition.family.source.number}`} className="text-ink hover:text-moss" data-testid="sweep-family-link">
+                  {s.definition.family.name ?? "family"}
+                </Link>{" "}
+                <span className="font-mono text-xs">rev {s.definition.family.source.number}</span> ·{" "}
+              </>
+            ) : null}
             <Link to={`/w/${slug}/plants/${s.plant.id}?revision=${s.plant.revisionNumber}`} className="text-ink hover:text-moss">
               {s.plant.name}
             </Link>{" "}

@@ -1,7 +1,8 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useForm, useWatch, type Resolver } from "react-hook-form";
 import { useNavigate, useSearchParams } from "react-router";
-import { MAX_SWEEP_CANDIDATES, type SweepInput } from "@loopyard/core";
+import { MAX_SWEEP_CANDIDATES, type FamilyRevisionDto, type SweepInput } from "@loopyard/core";
+import { useFamilies } from "../../api/use-families.js";
 import { useSweep } from "../../api/use-sweeps.js";
 import { usePlant, usePlants } from "../../api/use-plants.js";
 import { useCreateSweep } from "../../api/use-sweeps.js";
@@ -20,7 +21,9 @@ import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.
 import { candidateCount, isWithinCandidateCap } from "./candidate-count.js";
 import { DesignSection } from "./design-section.js";
 import { FamilyVariants, OVERRIDES_HINT } from "./family-variants.js";
-import { DESIGNS, designCandidateCount, drawsOwnCount } from "./sweep-design-values.js";
+import { DESIGNS, designCandidateCount, drawsOwnCount, toAggregate, toFamily } from "./sweep-design-values.js";
+import { SavedFamilyPicker } from "./saved-family-picker.js";
+import { SaveAsFamily } from "./save-as-family.js";
 import { formatCount } from "./sweep-progress.js";
 import { formFromSweep } from "./sweep-prefill.js";
 import { CriteriaSection } from "./criteria-section.js";
@@ -42,6 +45,9 @@ export function SweepNewPage() {
   const { slug, workspace, role, canEdit } = useWorkspaceRole();
   const [params] = useSearchParams();
   const plants = usePlants(slug);
+  const families = useFamilies(slug);
+  // A saved family chosen instead of variants built here (null: build them here).
+  const [savedFamily, setSavedFamily] = useState<FamilyRevisionDto | null>(null);
   const [plantId, setPlantId] = useState<string | undefined>(params.get("plant") ?? undefined);
   const plant = usePlant(slug, plantId);
   const create = useCreateSweep(slug);
@@ -82,7 +88,7 @@ export function SweepNewPage() {
   const design = useWatch({ control, name: "design" });
   const aggregateKind = useWatch({ control, name: "aggregate.kind" });
   const variants = useWatch({ control, name: "variants" });
-  const variantCount = 1 + (variants?.length ?? 0);
+  const variantCount = savedFamily ? savedFamily.variants.length : 1 + (variants?.length ?? 0);
   const count = design ? designCandidateCount(design, gridCount) : gridCount;
   const ownCount = design ? drawsOwnCount(design.kind) : false;
 
@@ -92,13 +98,39 @@ export function SweepNewPage() {
     prefilled.current = true;
     form.reset(formFromSweep(source.data));
     setPlantId(source.data.plant.id);
+    const fromFamily = source.data.definition.family?.source;
+    const saved = fromFamily ? families.data?.find((f) => f.id === fromFamily.familyId) : undefined;
+    if (saved && saved.latestRevision.id === fromFamily?.familyRevisionId) setSavedFamily(saved.latestRevision);
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [source.data]);
 
-  // Pick the first plant when none was asked for.
+  // Pick the first plant when none was asked for (archived plants are not offered).
+  const offeredPlants = useMemo(() => (plants.data ?? []).filter((p) => p.archivedAt === null || p.id === plantId), [plants.data, plantId]);
   useEffect(() => {
-    if (!plantId && !fromId && plants.data && plants.data.length > 0) setPlantId(plants.data[0].id);
-  }, [plantId, fromId, plants.data]);
+    if (!plantId && !fromId && offeredPlants.length > 0) setPlantId(offeredPlants[0].id);
+  }, [plantId, fromId, offeredPlants]);
+
+  // ?family=<family revision id> ("Sweep this family"): choose it once the families are in.
+  const familyParam = params.get("family");
+  const familyChosen = useRef(false);
+  useEffect(() => {
+    if (!familyParam || familyChosen.current || !families.data) return;
+    familyChosen.current = true;
+    const found = families.data.find((f) => f.latestRevision.id === familyParam)?.latestRevision;
+    if (found) chooseFamily(found);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [familyParam, families.data]);
+
+  /** A saved family chosen (or "build one here"): its first variant's plant and revision stand above, for the horizon and the state count. */
+  const chooseFamily = (revision: FamilyRevisionDto | null) => {
+    setSavedFamily(revision);
+    const first = revision?.variants[0];
+    if (first) {
+      setPlantId(first.plantId);
+      setValue("plantRevisionId", first.plantRevisionId);
+      setValue("variants", []);
+    }
+  };
 
   // When a plant loads: choose its latest revision (unless a listed one is chosen), a horizon from its step response.
   useEffect(() => {
@@ -117,12 +149,21 @@ export function SweepNewPage() {
   useEffect(() => {
     if (!plant.data || nameTyped.current || prefilled.current) return;
     const how = !design || design.kind === "grid" ? "grid" : design.kind === "nelder-mead" || design.kind === "nsga2" ? "search" : DESIGNS[design.kind].label.toLowerCase().replace("latin", "Latin").replace("sobol", "Sobol");
-    setValue("name", `${plant.data.plant.name}${variantCount > 1 ? ` family (${variantCount})` : ""} ${STRUCTURES[structure].label} ${how}`);
+    const what = savedFamily ? `${savedFamily.name} rev ${savedFamily.number}` : `${plant.data.plant.name}${variantCount > 1 ? ` family (${variantCount})` : ""}`;
+    setValue("name", `${what} ${STRUCTURES[structure].label} ${how}`);
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [plant.data, structure, design?.kind, variantCount]);
+  }, [plant.data, structure, design?.kind, variantCount, savedFamily]);
 
-  const submit = handleSubmit(async (input) => {
+  const submit = handleSubmit(async (typed) => {
     setFailure(null);
+    let input: SweepInput = typed;
+    if (savedFamily) {
+      // The server expands the saved revision into the variants (and keeps which revision it used).
+      const { family: _adHoc, ...rest } = typed;
+      input = { ...rest, familyRevisionId: savedFamily.id, plantRevisionId: savedFamily.variants[0]?.plantRevisionId ?? typed.plantRevisionId };
+      const aggregate = getValues("aggregate");
+      if (aggregate && savedFamily.variants.length > 1) input.aggregate = toAggregate(aggregate);
+    }
     try {
       const created = await create.mutateAsync(input);
       navigate(`/w/${slug}/sweeps/${created.id}`);
@@ -188,9 +229,14 @@ export function SweepNewPage() {
               <Field label="Name" htmlFor="sweep-name" name="name" error={errors.name?.message} className="sm:col-span-2">
                 <input id="sweep-name" className={inputClass} aria-invalid={Boolean(errors.name)} {...register("name", { onChange: () => (nameTyped.current = true) })} />
               </Field>
+            </div>
+            <div className="mt-4">
+              <SavedFamilyPicker slug={slug} families={families.data ?? []} chosen={savedFamily} onChoose={chooseFamily} />
+            </div>
+            <div className={`mt-4 grid grid-cols-1 gap-4 sm:grid-cols-2 ${savedFamily ? "hidden" : ""}`}>
               <Field label="Plant" htmlFor="sweep-plant" name="plant" hint={plant.data ? `${plantKindShort(plant.data.revision.model.kind)}${hasLimits(plant.data.revision.model) ? ", with actuator limits" : ""}` : undefined}>
                 <select id="sweep-plant" className={inputClass} value={plantId ?? ""} onChange={(e) => setPlantId(e.target.value)} data-testid="sweep-plant">
-                  {plants.data.map((p) => (
+                  {offeredPlants.map((p) => (
                     <option key={p.id} value={p.id}>
                       {p.name}
                     </option>
@@ -212,7 +258,7 @@ export function SweepNewPage() {
                 </select>
               </Field>
             </div>
-            <div className="mt-4 grid grid-cols-1 gap-4 sm:grid-cols-2">
+            <div className={`mt-4 grid grid-cols-1 gap-4 sm:grid-cols-2 ${savedFamily ? "hidden" : ""}`}>
               <Field label="Variant label" htmlFor="first-variant-label" name="firstVariant.label" error={errors.firstVariant?.label?.message} hint={variantCount > 1 ? "how this variant is named in the results" : "optional with one plant"}>
                 <input id="first-variant-label" className={inputClass} data-testid="first-variant-label" {...register("firstVariant.label")} />
               </Field>
@@ -223,7 +269,19 @@ export function SweepNewPage() {
               ) : null}
             </div>
             {plant.isError ? <div className="mt-3"><ErrorNote error={plant.error} title="Could not load the plant" /></div> : null}
-            <FamilyVariants slug={slug} plants={plants.data} control={control} register={register} setValue={setValue} errors={errors} />
+            {savedFamily ? null : (
+              <>
+                <FamilyVariants slug={slug} plants={offeredPlants} control={control} register={register} setValue={setValue} errors={errors} />
+                {(variants?.length ?? 0) > 0 ? (
+                  <SaveAsFamily
+                    slug={slug}
+                    refusal={refusal}
+                    family={() => toFamily({ plantRevisionId: getValues("plantRevisionId"), ...(getValues("firstVariant") ?? { label: "", parameters: "" }) }, getValues("variants") ?? [])}
+                    onSaved={(detail) => chooseFamily(detail.revision)}
+                  />
+                ) : null}
+              </>
+            )}
           </Section>
 
           <StructureSection
