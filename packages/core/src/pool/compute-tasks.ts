@@ -22,13 +22,18 @@ import type { SweepShape } from "../sweeps/sweep-input.js";
 import { downsampleIndices, pick } from "../traces/downsample-trace.js";
 import type { ReferencesDto } from "../api/dto.js";
 import { sweepReferences, type SweepReferencesInput } from "./sweep-references-task.js";
+import { fitStepTest, type StepTestFitReport } from "../identification/fit-step-test.js";
+import type { StepModelKind } from "../identification/step-model.js";
+import { StepTestFileError } from "../identification/step-test-file-error.js";
+import { stepTestOverview, type StepTestOverview } from "../identification/step-test-overview.js";
+import type { StepTestSettings } from "../identification/step-test-settings.js";
 
 /**
  * Why a task gave no value: "budget" (its work budget ran out), "time" (its time limit passed; set
  * by the pool), "refused" (core refused the input; `field` names it when known: an expression's
- * dotted path, a sweep definition's field), "ill-posed" (the loop 1 + C·G vanishes at high frequency).
+ * dotted path, a sweep definition's field; a step-test file's problem carries `row` and `column`), "ill-posed" (the loop 1 + C·G vanishes at high frequency).
  */
-export type ComputeFailure = { ok: false; kind: "budget" | "time" | "refused" | "ill-posed"; reason: string; field?: string; error?: string };
+export type ComputeFailure = { ok: false; kind: "budget" | "time" | "refused" | "ill-posed"; reason: string; field?: string; error?: string; row?: number; column?: number };
 
 export type ComputeOutcome<T> = { ok: true; value: T } | ComputeFailure;
 
@@ -55,6 +60,10 @@ export interface ComputeTasks {
   candidateFrequency: { input: CandidateTaskInput & { weight?: SensitivityWeight }; output: ThinFrequencyResponse };
   /** A sweep's bound curve and tuning-rule baselines (sweep-references-task.ts). */
   sweepReferences: { input: SweepReferencesInput; output: ReferencesDto };
+  /** What an uploaded step-test file holds (columns, preview, suggested columns), or its first problem. */
+  stepTestOverview: { input: { text: string }; output: StepTestOverview };
+  /** A step test read with the chosen settings and fitted with each model (fitStepTest). */
+  stepTestFit: { input: { text: string; settings: StepTestSettings; models: StepModelKind[] }; output: StepTestFitReport };
 }
 
 export type ComputeTaskName = keyof ComputeTasks;
@@ -88,6 +97,8 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
     return thinFrequencyResponse(response);
   },
   sweepReferences,
+  stepTestOverview: ({ text }) => stepTestOverview(text),
+  stepTestFit: ({ text, settings, models }) => fitStepTest(text, settings, models),
 };
 
 function candidateLoop({ definition, models, params, variant }: CandidateTaskInput) {
@@ -113,6 +124,10 @@ export function runComputeTask<K extends ComputeTaskName>(request: ComputeReques
     if (error instanceof ExpressionError || error instanceof DeclaredNameError || error instanceof SweepPlanError) {
       const field = (error as { field?: string }).field;
       return { ok: false, kind: "refused", reason: error.message, error: error.name, ...(field ? { field } : {}) };
+    }
+    if (error instanceof StepTestFileError) {
+      const at = { ...(error.row === undefined ? {} : { row: error.row }), ...(error.column === undefined ? {} : { column: error.column }) };
+      return { ok: false, kind: "refused", reason: error.message, error: error.name, field: "file", ...at };
     }
     if (error instanceof RangeError || error instanceof TypeError) return { ok: false, kind: "refused", reason: error.message, error: error.name };
     throw error;
