@@ -20,6 +20,8 @@ import { serveWebApp, webAppMissing } from "./http/web-app.js";
 import { createCompute } from "./compute/compute.js";
 import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
+import { stepTestRoutes } from "./step-tests/step-test-routes.js";
+import { MULTIPART_PATHS } from "./step-tests/multipart-paths.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
@@ -84,7 +86,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use(requestLogger(config.requestLogLevel ?? "info"));
   app.use(securityHeaders(publicOrigin.startsWith("https://")));
   app.use(urlGuard);
-  app.use("/api", apiHeaders, sameOriginGuard(trustedOrigins, SESSION_COOKIE_PATTERN));
+  app.use("/api", apiHeaders, sameOriginGuard(trustedOrigins, SESSION_COOKIE_PATTERN, MULTIPART_PATHS));
 
   // better-auth, behind Loopyard's own limits and checks: rate limits per address and per account,
   // a small JSON body (parsed here; better-auth reads the parsed body), names and passwords checked.
@@ -113,6 +115,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth, sessions));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
+  app.use("/api/workspaces/:slug/step-tests", stepTestRoutes(db, compute));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",

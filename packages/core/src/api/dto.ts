@@ -6,6 +6,7 @@
  */
 import type { Role } from "./roles.js";
 import type { Plant } from "../plants/plant.js";
+import type { StepTestOverview } from "../identification/step-test-overview.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import type { SweepInputParsed } from "../sweeps/sweep-input.js";
 import type { Complex } from "../linear-algebra/complex.js";
@@ -328,4 +329,15 @@ export interface FrequencyDto {
   T: number[];
   /** 1/|W(jω)| when the sweep's criterion options hold a sensitivity weight. */
   invW?: number[];
+}
+
+/** POST /api/workspaces/:slug/step-tests (multipart, field "file") and GET …/step-tests/:stepTestId */
+export interface StepTestDto {
+  id: string;
+  fileName: string;
+  sizeBytes: number;
+  createdAt: string;
+  createdBy: UserDto;
+  /** Columns, row count, the first rows and the suggested time, input and output columns. */
+  overview: StepTestOverview;
 }

@@ -1,10 +1,11 @@
 import { Router } from "express";
 import { z } from "zod";
-import { plantInputSchema } from "@loopyard/core";
+import { plantInputSchema, refitInputSchema } from "@loopyard/core";
 import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
+import { refitPlant } from "../step-tests/step-test-service.js";
 import { createPlant, createRevision, getPlantDetail, listPlants, PLANT_NOT_FOUND } from "./plant-service.js";
 
 const detailQuerySchema = z.object({
@@ -35,6 +36,11 @@ export function plantRoutes(db: Database, compute: Compute): Router {
     const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
     const input = parseBody(plantInputSchema, req);
     res.status(201).json(await createRevision(db, compute, accessOf(req), plantId, input));
+  });
+
+  router.post("/:plantId/refit", memberOf(db, "engineer", "Editing plants"), async (req, res) => {
+    const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
+    res.status(201).json(await refitPlant(db, compute, accessOf(req), plantId, parseBody(refitInputSchema, req)));
   });
 
   return router;
