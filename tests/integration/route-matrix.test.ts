@@ -21,13 +21,19 @@ import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
 import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
 import { twoLagPlant, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { EMBER_SETTINGS, emberStepCsv } from "./step-test-fixtures.js";
+
+/** A body sent as multipart/form-data: one file in the field "file", as the web app's file input sends it. */
+class FileUpload {
+  constructor(readonly name: string, readonly text: string) {}
+}
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
 let lead: ApiClient;
 let nonMember: ApiClient;
 let other: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; plantName: string; sweepName: string; comparisonName: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; stepTestId: string; identifiedPlantId: string; plantName: string; sweepName: string; comparisonName: string };
 
 /** A 2 × 2 PI grid on the two-lag plant, 5 s at 10 ms: four candidates, done in a moment. */
 function tinySweep(name: string, plantRevisionId: string) {
@@ -82,6 +88,15 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
       return tinySweep("Matrix sweep", revisionId);
     case "POST /api/workspaces/:slug/comparisons":
       return tinyComparison("Matrix comparison", revisionId);
+    case "POST /api/workspaces/:slug/step-tests":
+      return new FileUpload("matrix-step.csv", emberStepCsv({ rows: 80 }));
+    case "POST /api/workspaces/:slug/step-tests/:stepTestId/fits":
+      return { settings: EMBER_SETTINGS, models: ["fopdt"] };
+    case "POST /api/workspaces/:slug/step-tests/:stepTestId/plants":
+      return { name: "Matrix identified plant", settings: EMBER_SETTINGS, model: "fopdt" };
+    case "POST /api/workspaces/:slug/plants/:plantId/refit":
+      // On the identified plant (fill() puts its id in :plantId for this route).
+      return { settings: EMBER_SETTINGS, model: "ipdt" };
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
@@ -99,7 +114,9 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
 function fill(path: string, slug: string): string {
   return path
     .replace(":slug", slug)
+    .replace(":plantId/refit", `${ids.identifiedPlantId}/refit`)
     .replace(":plantId", ids.plantId)
+    .replace(":stepTestId", ids.stepTestId)
     .replace(":sweepId", ids.sweepId)
     .replace(":comparisonId", ids.comparisonId)
     .replace(":index", "0")
@@ -108,13 +125,14 @@ function fill(path: string, slug: string): string {
 
 async function call(client: ApiClient, route: RouteEntry, slug: string) {
   const body = route.method === "GET" ? undefined : await sampleBody(route, ids.revisionId);
+  if (body instanceof FileUpload) return client.upload(fill(route.path, slug), { name: body.name, text: body.text });
   return client.request(route.method, fill(route.path, slug), body === undefined ? {} : { json: body });
 }
 
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.plantName, ids.sweepName, ids.comparisonName]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.stepTestId, ids.identifiedPlantId, ids.plantName, ids.sweepName, ids.comparisonName]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -129,6 +147,7 @@ beforeAll(async () => {
   other = await workspaceWithTeam(server.url, "Matrix other");
   const plantName = `Matrix secret plant ${randomUUID().slice(0, 8)}`;
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant(plantName));
+  expect(plant.status, JSON.stringify(plant.body)).toBe(201);
   const sweepName = `Matrix secret sweep ${randomUUID().slice(0, 8)}`;
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, tinySweep(sweepName, plant.body.revision.id));
   expect(sweep.status).toBe(201);
@@ -137,7 +156,21 @@ beforeAll(async () => {
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, tinyComparison(comparisonName, plant.body.revision.id));
   expect(comparison.status, JSON.stringify(comparison.body)).toBe(201);
   await waitForComparison(team.viewer, team.slug, comparison.body.id);
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, comparisonId: comparison.body.id, plantName, sweepName, comparisonName };
+  const stepTest = await team.engineer.upload(`/api/workspaces/${team.slug}/step-tests`, { name: "matrix-step.csv", text: emberStepCsv({ rows: 80 }) });
+  expect(stepTest.status, JSON.stringify(stepTest.body)).toBe(201);
+  const identified = await team.engineer.post(`/api/workspaces/${team.slug}/step-tests/${stepTest.body.id}/plants`, { name: `Matrix identified ${randomUUID().slice(0, 8)}`, settings: EMBER_SETTINGS, model: "fopdt" });
+  expect(identified.status, JSON.stringify(identified.body)).toBe(201);
+  ids = {
+    plantId: plant.body.plant.id,
+    revisionId: plant.body.revision.id,
+    sweepId: sweep.body.id,
+    comparisonId: comparison.body.id,
+    stepTestId: stepTest.body.id,
+    identifiedPlantId: identified.body.plant.id,
+    plantName,
+    sweepName,
+    comparisonName,
+  };
 }, 120_000);
 
 afterAll(async () => {
@@ -183,7 +216,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:stepTestId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

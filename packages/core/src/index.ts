@@ -452,6 +452,7 @@ export { STEP_TEST_PREVIEW_ROWS, stepTestOverview } from "./identification/step-
 export { FIT_PLOT_POINTS, fitStepTest, identificationProvenance } from "./identification/fit-step-test.js";
 export { stepModelKindSchema, stepTestSettingsSchema } from "./identification/step-test-settings.js";
 export { identifiedSchema, identifiedTransferFunction } from "./plants/identified.js";
+export { plantZeros } from "./plants/plant-zeros.js";
 export { MAX_STEP_TEST_BYTES, refitInputSchema, stepTestFitInputSchema, stepTestPlantInputSchema } from "./schemas/step-test-input.js";
 export type { RefitInput, StepTestFitInput, StepTestPlantInput } from "./schemas/step-test-input.js";
 export type { StepTestOverview } from "./identification/step-test-overview.js";

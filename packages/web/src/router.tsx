@@ -2,6 +2,9 @@ import { createBrowserRouter } from "react-router";
 import { RequireSession } from "./features/auth/require-session.js";
 import { SignInPage } from "./features/auth/sign-in-page.js";
 import { SignUpPage } from "./features/auth/sign-up-page.js";
+import { PlantRefitPage } from "./features/identification/plant-refit-page.js";
+import { StepTestFitPage } from "./features/identification/step-test-fit-page.js";
+import { StepTestUploadPage } from "./features/identification/step-test-upload-page.js";
 import { PlantDetailPage } from "./features/plants/plant-detail-page.js";
 import { PlantListPage } from "./features/plants/plant-list-page.js";
 import { PlantNewPage } from "./features/plants/plant-new-page.js";
@@ -35,7 +38,10 @@ export const router = createBrowserRouter([
           { index: true, element: <WorkspaceHomePage /> },
           { path: "plants", element: <PlantListPage /> },
           { path: "plants/new", element: <PlantNewPage /> },
+          { path: "plants/identify", element: <StepTestUploadPage /> },
+          { path: "plants/identify/:stepTestId", element: <StepTestFitPage /> },
           { path: "plants/:plantId", element: <PlantDetailPage /> },
+          { path: "plants/:plantId/refit", element: <PlantRefitPage /> },
           { path: "plants/:plantId/revise", element: <PlantRevisePage /> },
           { path: "sweeps", element: <SweepListPage /> },
           { path: "sweeps/new", element: <SweepNewPage /> },

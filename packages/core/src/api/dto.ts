@@ -92,6 +92,8 @@ export interface PlantDetailDto {
    * the operating point (`initial`, `operatingInput`); see polesNote.
    */
   poles: Complex[];
+  /** Zeros of the shown revision (of the linearisation for a nonlinear plant); Re z > 0 is a right-half-plane zero. */
+  zeros: Complex[];
   /** A sentence saying what `poles` means when it is not the plain plant poles (nonlinear plants); null otherwise. */
   polesNote: string | null;
   /**

@@ -11,6 +11,7 @@ import { nonlinearPlantModel } from "../plants/nonlinear-plant-model.js";
 import { openLoopStep } from "../plants/open-loop-step.js";
 import type { LinearPlant, Plant } from "../plants/plant.js";
 import { plantPoles } from "../plants/plant-poles.js";
+import { plantZeros } from "../plants/plant-zeros.js";
 import { suggestHorizon } from "../plants/suggest-horizon.js";
 import { IllPosedLoopError } from "../simulation/ill-posed-loop-error.js";
 import { loopTransferFunction } from "../simulation/loop-transfer-function.js";
@@ -37,9 +38,10 @@ export type ComputeFailure = { ok: false; kind: "budget" | "time" | "refused" | 
 
 export type ComputeOutcome<T> = { ok: true; value: T } | ComputeFailure;
 
-/** A plant's preview: poles (of the linearisation for a nonlinear plant) and open-loop step, downsampled. */
+/** A plant's preview: poles and zeros (of the linearisation for a nonlinear plant) and open-loop step, downsampled. */
 export interface PlantPreview {
   poles: Complex[];
+  zeros: Complex[];
   step: { t: number[]; y: number[] };
 }
 
@@ -80,9 +82,10 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
     if (model.kind === "nonlinear") nonlinearPlantModel(model);
     const horizon = suggestHorizon(model);
     const poles = plantPoles(model);
+    const zeros = plantZeros(model);
     const { t, y } = openLoopStep(model, horizon, horizon / samples);
     const indices = downsampleIndices(t.length);
-    return { poles: poles.map(({ re, im }) => ({ re, im })), step: { t: pick(t, indices), y: pick(y, indices) } };
+    return { poles: poles.map(({ re, im }) => ({ re, im })), zeros: zeros.map(({ re, im }) => ({ re, im })), step: { t: pick(t, indices), y: pick(y, indices) } };
   },
   candidateResponse(input) {
     const { plant, controller, plan } = candidateLoop(input);

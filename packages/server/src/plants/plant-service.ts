@@ -41,6 +41,7 @@ export async function getPlantDetail(
     revision,
     revisions: found.revisions.map(({ id, number, createdAt, createdBy }) => ({ id, number, createdAt, createdBy })),
     poles: preview.poles,
+    zeros: preview.zeros,
     polesNote: revision.model.kind === "nonlinear" ? NONLINEAR_POLES_NOTE : null,
     step: preview.step,
   };

@@ -7,6 +7,7 @@ export const queryKeys = {
   plants: (slug: string) => ["workspace", slug, "plants"] as const,
   plant: (slug: string, plantId: string, revision?: number) =>
     ["workspace", slug, "plants", plantId, revision ?? "latest"] as const,
+  stepTest: (slug: string, id: string) => ["workspace", slug, "step-tests", id] as const,
   sweeps: (slug: string) => ["workspace", slug, "sweeps"] as const,
   sweep: (slug: string, sweepId: string) => ["workspace", slug, "sweeps", sweepId] as const,
   candidate: (slug: string, sweepId: string, index: number) => ["workspace", slug, "sweeps", sweepId, "candidate", index] as const,
