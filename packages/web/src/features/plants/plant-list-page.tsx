@@ -26,9 +26,14 @@ export function PlantListPage() {
   const base = `/w/${slug}`;
   const refusal = workspace.data && !canEdit ? roleSentence("Creating plants", "engineer", workspace.data.workspace.name, role) : null;
   const newButton = (
-    <ButtonLink to={`${base}/plants/new`} tone="primary" disabledReason={refusal} testId="new-plant">
-      New plant
-    </ButtonLink>
+    <>
+      <ButtonLink to={`${base}/plants/identify`} tone="quiet" disabledReason={refusal} testId="upload-step-test-link">
+        Upload a step test
+      </ButtonLink>
+      <ButtonLink to={`${base}/plants/new`} tone="primary" disabledReason={refusal} testId="new-plant">
+        New plant
+      </ButtonLink>
+    </>
   );
 
   return (
@@ -54,7 +59,7 @@ export function PlantListPage() {
           testId="plants-empty"
         >
           {canEdit
-            ? "Add a plant: a transfer function, a state-space model or nonlinear equations. Then sweep controller gains on it."
+            ? "Add a plant: a transfer function, a state-space model or nonlinear equations, or upload a step test and fit a model to it. Then sweep controller gains on it."
             : "An engineer of this workspace can add the first plant; you will see it here."}
         </EmptyState>
       }
