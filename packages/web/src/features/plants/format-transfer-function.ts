@@ -64,3 +64,8 @@ export function formatTransferFunction(plant: Pick<TransferFunctionPlant, "num" 
   const delay = formatDelay(plant.delay);
   return `G(s) = ${ratio}${delay ? ` · ${delay}` : ""}`;
 }
+
+/** Coefficients as stored, each with its sign: [5, −1] → "[5, −1]". */
+export function coefficientList(values: readonly number[]): string {
+  return `[${values.map(formatCoefficient).join(", ")}]`;
+}

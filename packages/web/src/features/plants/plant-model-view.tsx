@@ -1,5 +1,5 @@
 import type { Plant } from "@loopyard/core";
-import { formatCoefficient } from "./format-transfer-function.js";
+import { coefficientList, formatCoefficient } from "./format-transfer-function.js";
 import { MatrixView, formatEntry } from "./matrix-view.js";
 import { TransferFunctionView } from "./transfer-function-view.js";
 import { IdentificationView } from "../identification/identification-view.js";
@@ -23,11 +23,6 @@ export function PlantModelView({ model }: { model: Plant }) {
         </>
       );
   }
-}
-
-/** Coefficients as stored, each with its sign: [5, −1]. */
-export function coefficientList(values: readonly number[]): string {
-  return `[${values.map(formatCoefficient).join(", ")}]`;
 }
 
 function TransferFunctionModel({ model }: { model: ModelOf<"transfer-function"> | ModelOf<"identified"> }) {
