@@ -23,7 +23,7 @@ export function FitChart({
   testId?: string;
 }) {
   const data: Record<string, unknown>[] = [
-    { type: "scatter", mode: "markers", name: "measured y", x: t, y: measured, marker: { color: CHART_COLORS.cloud, size: 4 }, hovertemplate: "y = %{y:.4g}<br>t = %{x:.4g} s<extra></extra>" },
+    { type: "scatter", mode: "markers", name: "measured y", x: t, y: measured, marker: { color: CHART_COLORS.inkSoft, size: 3, opacity: 0.6 }, hovertemplate: "y = %{y:.4g}<br>t = %{x:.4g} s<extra></extra>" },
   ];
   for (const fit of fits) {
     const color = MODEL_COLORS[fit.kind];

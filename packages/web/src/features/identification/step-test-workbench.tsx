@@ -202,7 +202,7 @@ export function StepTestWorkbench({
               </div>
             </div>
             <div className="mt-4 flex items-center gap-3">
-              <Button tone="primary" onClick={() => void fit()} disabled={fitPending} data-testid="fit-models">
+              <Button tone="primary" className="whitespace-nowrap" onClick={() => void fit()} disabled={fitPending} data-testid="fit-models">
                 {fitPending ? "Fitting…" : report ? "Fit again" : "Fit the three models"}
               </Button>
               <span className="text-xs text-ink-soft">Least squares from a two-point start (28.3 % and 63.2 % times); intervals at 95 %.</span>
