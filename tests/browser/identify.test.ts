@@ -89,7 +89,7 @@ describe("a plant identified from a step test", () => {
   it("when she sweeps a controller on it, then the sweep finishes with a front", async () => {
     await page.click("[data-testid=sweep-this-revision]");
     await page.waitForSelector("[data-testid=sweep-form]");
-    await page.fill("#sweep-name", `${plantName} PI`);
+    await page.fill("#sweep-name", `${plantName} sweep`);
     await saveScreenshot(page, "identify-05-sweep-form");
     await page.click("[data-testid=sweep-submit]");
     await page.waitForURL((url) => /\/sweeps\/[^/]+$/.test(url.pathname) && !url.pathname.endsWith("/new"));
