@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { textField } from "../schemas/text.js";
-import { TIME_UNITS } from "./read-step-test.js";
+// time-units.js, not read-step-test.js: the plant schema imports this file, and should not pull the CSV parser in.
+import { TIME_UNITS } from "./time-units.js";
 import { STEP_MODEL_KINDS } from "./step-model.js";
 
 /** A chosen column: its header name or its number from 1. */
