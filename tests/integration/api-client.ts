@@ -37,11 +37,18 @@ export class ApiClient {
     return { status: response.status, headers: response.headers };
   }
 
-  async request<T = any>(method: string, path: string, options: { json?: unknown; rawBody?: string; headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
+  async request<T = any>(
+    method: string,
+    path: string,
+    options: { json?: unknown; rawBody?: string; form?: FormData; headers?: Record<string, string> } = {},
+  ): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { origin: this.#baseUrl, ...options.headers };
     if (this.#cookies.size > 0) headers.cookie = [...this.#cookies].map(([name, value]) => `${name}=${value}`).join("; ");
-    let body: string | undefined;
-    if (options.json !== undefined) {
+    let body: string | FormData | undefined;
+    if (options.form !== undefined) {
+      // fetch sets Content-Type: multipart/form-data with its boundary.
+      body = options.form;
+    } else if (options.json !== undefined) {
       headers["content-type"] = "application/json";
       body = JSON.stringify(options.json);
     } else if (options.rawBody !== undefined) {
@@ -65,6 +72,13 @@ export class ApiClient {
       // not JSON: keep the text
     }
     return { status: response.status, body: parsed as T, headers: response.headers };
+  }
+
+  /** POST of one file as multipart/form-data in `field` (as a browser's file input sends it). */
+  upload<T = any>(path: string, file: { name: string; text: string | Uint8Array; type?: string }, field = "file") {
+    const form = new FormData();
+    form.append(field, new Blob([file.text], { type: file.type ?? "text/csv" }), file.name);
+    return this.request<T>("POST", path, { form });
   }
 
   get<T = any>(path: string) {

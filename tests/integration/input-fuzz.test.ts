@@ -16,6 +16,10 @@ import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, freshUser, signedInClient } from "./api-client.js";
 import { smallComparison } from "./comparison-fixtures.js";
 import { addMemberInDatabase, twoLagPlant, tinyLibraryFile, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { EMBER_SETTINGS, emberStepCsv } from "./step-test-fixtures.js";
+
+/** The one route whose body is a file (multipart/form-data), fuzzed by its file's contents instead of JSON. */
+const UPLOAD_ROUTE = "POST /api/workspaces/:slug/step-tests";
 
 const ANSWER_BUDGET_MS = 2_000;
 const HEALTH_BUDGET_MS = 200;
@@ -25,7 +29,7 @@ const RUNS = 25;
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string; userId: string; invitationId: string; familyId: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string; userId: string; invitationId: string; familyId: string; stepTestId: string; identifiedPlantId: string };
 let healthWorst = 0;
 let healthWorstDuring = "";
 /** Every /api/health time while the fuzzing ran [ms]. */
@@ -124,6 +128,12 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
     case "POST /api/invitations/accept":
     case "POST /api/invitations/decline":
       return { token: "A".repeat(43) };
+    case "POST /api/workspaces/:slug/step-tests/:stepTestId/fits":
+      return { settings: EMBER_SETTINGS, models: ["fopdt"] };
+    case "POST /api/workspaces/:slug/step-tests/:stepTestId/plants":
+      return { name: "Fuzz identified plant", settings: EMBER_SETTINGS, model: "fopdt" };
+    case "POST /api/workspaces/:slug/plants/:plantId/refit":
+      return { settings: EMBER_SETTINGS, model: "ipdt" };
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "POST /api/workspaces/:slug/plants/:plantId/archive":
@@ -202,7 +212,11 @@ function encode(text: string): string {
 }
 
 function fill(path: string): string {
-  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":familyId", ids.familyId).replace(":index", "0").replace(":sessionId", randomUUID()).replace(":userId", ids.userId).replace(":invitationId", ids.invitationId);
+  return path
+    .replace(":slug", team.slug)
+    .replace(":plantId/refit", `${ids.identifiedPlantId}/refit`)
+    .replace(":stepTestId", ids.stepTestId)
+    .replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":familyId", ids.familyId).replace(":userId", ids.userId).replace(":invitationId", ids.invitationId).replace(":index", "0").replace(":sessionId", randomUUID());
 }
 
 beforeAll(async () => {
@@ -214,9 +228,14 @@ beforeAll(async () => {
   await addMemberInDatabase(team.slug, target.user.email, "viewer");
   const targetMe = await target.client.get("/api/me");
   const invited = await team.admin.post(`/api/workspaces/${team.slug}/invitations`, { email: `fuzz-pending-${randomUUID().slice(0, 8)}@loopyard-tests.example`, role: "viewer" });
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "", userId: targetMe.body.user.id, invitationId: invited.body.id, familyId: "" };
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "", userId: targetMe.body.user.id, invitationId: invited.body.id, familyId: "", stepTestId: "", identifiedPlantId: "" };
   const family = await team.engineer.post(`/api/workspaces/${team.slug}/families`, validBody({ method: "POST", path: "/api/workspaces/:slug/families", role: "engineer" }));
   ids.familyId = family.body.family.id;
+  // A short step test (60 rows: each fit takes a moment) and the plant identified from it.
+  const stepTest = await team.engineer.upload(`/api/workspaces/${team.slug}/step-tests`, { name: "fuzz-step.csv", text: emberStepCsv({ rows: 60 }) });
+  ids.stepTestId = stepTest.body.id;
+  const identified = await team.engineer.post(`/api/workspaces/${team.slug}/step-tests/${ids.stepTestId}/plants`, { name: "Fuzz identified", settings: EMBER_SETTINGS, model: "fopdt" });
+  ids.identifiedPlantId = identified.body.plant.id;
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, validBody({ method: "POST", path: "/api/workspaces/:slug/sweeps", role: "engineer" }));
   ids.sweepId = sweep.body.id;
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, validBody({ method: "POST", path: "/api/workspaces/:slug/comparisons", role: "engineer" }));
@@ -243,7 +262,7 @@ afterAll(async () => {
 });
 
 describe("fuzzing every input over HTTP", () => {
-  for (const route of ROUTES.filter((r) => r.method !== "GET")) {
+  for (const route of ROUTES.filter((r) => r.method !== "GET" && `${r.method} ${r.path}` !== UPLOAD_ROUTE)) {
     it(`${route.method} ${route.path}: hostile bodies → never a 5xx, never over 2 s`, async () => {
       phase = `${route.method} ${route.path}`;
       // An admin passes every role check, so the body is what gets tested.
@@ -253,6 +272,38 @@ describe("fuzzing every input over HTTP", () => {
       );
     }, 120_000);
   }
+
+  it(`${UPLOAD_ROUTE}: hostile files (any bytes, hostile cells in a good file, hostile names and types) → never a 5xx, never over 2 s`, async () => {
+    phase = UPLOAD_ROUTE;
+    const good = emberStepCsv({ rows: 60 });
+    const lines = good.split("\n");
+    const hostileCell = fc.oneof(fc.string({ unit: "binary", maxLength: 40 }), fc.constantFrom('"', '"a,b', "\u0000", "1e400", "-0", "NaN", "Infinity", "=cmd|' /C calc'!A0", "\r", ";", "\t"));
+    const files = fc.oneof(
+      fc.uint8Array({ maxLength: 2_000 }).map((bytes) => ({ name: "fuzz.csv", text: bytes as Uint8Array | string, type: "text/csv" })),
+      fc.string({ unit: "binary", maxLength: 2_000 }).map((text) => ({ name: "fuzz.csv", text: text as Uint8Array | string, type: "text/csv" })),
+      fc
+        .tuple(fc.integer({ min: 0, max: lines.length - 1 }), fc.integer({ min: 0, max: 2 }), hostileCell)
+        .map(([row, column, cell]) => {
+          const copy = [...lines];
+          const cells = copy[row].split(",");
+          cells[column] = cell;
+          copy[row] = cells.join(",");
+          return { name: "fuzz.csv", text: copy.join("\n") as Uint8Array | string, type: "text/csv" };
+        }),
+      fc.tuple(fc.string({ unit: "binary", maxLength: 300 }), fc.string({ maxLength: 60 })).map(([name, type]) => ({ name, text: good as Uint8Array | string, type })),
+    );
+    await fc.assert(
+      fc.asyncProperty(files, async (file) => {
+        const started = performance.now();
+        const response = await team.admin.upload(fill("/api/workspaces/:slug/step-tests"), file);
+        const took = performance.now() - started;
+        expect(response.status, `${file.name} ${String(file.text).slice(0, 200)} → ${JSON.stringify(response.body)}`).toBeLessThan(500);
+        if (response.status >= 400) expect(response.body.error.message).toMatch(/\.$/);
+        expect(took).toBeLessThan(ANSWER_BUDGET_MS);
+      }),
+      { numRuns: RUNS * 2, seed: 1_103 },
+    );
+  }, 120_000);
 
   for (const path of ["/api/auth/sign-up/email", "/api/auth/sign-in/email", "/api/auth/update-user", "/api/auth/request-password-reset", "/api/auth/reset-password"]) {
     it(`POST ${path}: hostile bodies → never a 5xx, never over 2 s`, async () => {
@@ -281,7 +332,7 @@ describe("fuzzing every input over HTTP", () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...getRoutes),
-        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":decisionId", ":familyId", ":index", ":messageId", "?"),
+        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":decisionId", ":familyId", ":stepTestId", ":index", ":messageId", "?"),
         segment,
         segment,
         async (route, where, value, query) => {

@@ -24,6 +24,12 @@ import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient, signedInClient } from "./api-client.js";
 import { smallComparison, waitForComparison } from "./comparison-fixtures.js";
 import { addMemberInDatabase, twoLagPlant, tinyLibraryFile, twoVariantFamily, waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { EMBER_SETTINGS, emberStepCsv } from "./step-test-fixtures.js";
+
+/** A body sent as multipart/form-data: one file in the field "file", as the web app's file input sends it. */
+class FileUpload {
+  constructor(readonly name: string, readonly text: string) {}
+}
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
@@ -43,6 +49,8 @@ let ids: {
   comparisonName: string;
   familyId: string;
   familyName: string;
+  stepTestId: string;
+  identifiedPlantId: string;
   /** A member whose role the matrix changes and whom it then removes. */
   userId: string;
   /** A pending invitation the matrix re-sends and then revokes. */
@@ -118,6 +126,15 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
       return tinySweep("Matrix sweep", revisionId);
     case "POST /api/workspaces/:slug/comparisons":
       return tinyComparison("Matrix comparison", revisionId);
+    case "POST /api/workspaces/:slug/step-tests":
+      return new FileUpload("matrix-step.csv", emberStepCsv({ rows: 80 }));
+    case "POST /api/workspaces/:slug/step-tests/:stepTestId/fits":
+      return { settings: EMBER_SETTINGS, models: ["fopdt"] };
+    case "POST /api/workspaces/:slug/step-tests/:stepTestId/plants":
+      return { name: "Matrix identified plant", settings: EMBER_SETTINGS, model: "fopdt" };
+    case "POST /api/workspaces/:slug/plants/:plantId/refit":
+      // On the identified plant (fill() puts its id in :plantId for this route).
+      return { settings: EMBER_SETTINGS, model: "ipdt" };
     case "POST /api/workspaces/:slug/decisions":
     case "PUT /api/workspaces/:slug/decisions/:decisionId":
       return tinyProposal("Matrix proposal");
@@ -162,7 +179,9 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
 function fill(path: string, slug: string): string {
   return path
     .replace(":slug", slug)
+    .replace(":plantId/refit", `${ids.identifiedPlantId}/refit`)
     .replace(":plantId", ids.plantId)
+    .replace(":stepTestId", ids.stepTestId)
     .replace(":sweepId", ids.sweepId)
     .replace(":comparisonId", ids.comparisonId)
     .replace(":decisionId", ids.decisionId)
@@ -187,13 +206,14 @@ function sampleQuery(route: RouteEntry): string {
 
 async function call(client: ApiClient, route: RouteEntry, slug: string) {
   const body = route.method === "GET" ? undefined : await sampleBody(route, ids.revisionId);
+  if (body instanceof FileUpload) return client.upload(fill(route.path, slug), { name: body.name, text: body.text });
   return client.request(route.method, fill(route.path, slug) + sampleQuery(route), body === undefined ? {} : { json: body });
 }
 
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle, ids.invitationId, ids.familyId, ids.familyName]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle, ids.invitationId, ids.familyId, ids.familyName, ids.stepTestId, ids.identifiedPlantId]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -237,6 +257,10 @@ beforeAll(async () => {
   const familyName = `Matrix secret family ${randomUUID().slice(0, 8)}`;
   const family = await team.engineer.post(`/api/workspaces/${team.slug}/families`, twoVariantFamily(familyName, plant.body.revision.id));
   expect(family.status, JSON.stringify(family.body)).toBe(201);
+  const stepTest = await team.engineer.upload(`/api/workspaces/${team.slug}/step-tests`, { name: "matrix-step.csv", text: emberStepCsv({ rows: 80 }) });
+  expect(stepTest.status, JSON.stringify(stepTest.body)).toBe(201);
+  const identified = await team.engineer.post(`/api/workspaces/${team.slug}/step-tests/${stepTest.body.id}/plants`, { name: `Matrix identified ${randomUUID().slice(0, 8)}`, settings: EMBER_SETTINGS, model: "fopdt" });
+  expect(identified.status, JSON.stringify(identified.body)).toBe(201);
   ids = {
     plantId: plant.body.plant.id,
     revisionId: plant.body.revision.id,
@@ -250,6 +274,8 @@ beforeAll(async () => {
     comparisonName,
     familyId: family.body.family.id,
     familyName,
+    stepTestId: stepTest.body.id,
+    identifiedPlantId: identified.body.plant.id,
     userId: targetMe.body.user.id,
     invitationId: invited.body.id,
   };
@@ -305,7 +331,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId|:messageId|:decisionId|:userId|:invitationId|:familyId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:messageId|:decisionId|:userId|:invitationId|:familyId|:stepTestId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

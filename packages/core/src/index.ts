@@ -546,6 +546,17 @@ export { FOPDT, IPDT, SOPDT, STEP_MODELS, STEP_MODEL_KINDS } from "./identificat
 export { studentTQuantile } from "./identification/student-t-quantile.js";
 export { CONFIDENCE_LEVEL, MAX_SEARCH_SAMPLES, fitStepModel } from "./identification/fit-step-model.js";
 export { identifyStepTest } from "./identification/identify-step-test.js";
+export { STEP_TEST_PREVIEW_ROWS, stepTestOverview } from "./identification/step-test-overview.js";
+export { FIT_PLOT_POINTS, fitStepTest, identificationProvenance } from "./identification/fit-step-test.js";
+export { stepModelKindSchema, stepTestSettingsSchema } from "./identification/step-test-settings.js";
+export { identifiedSchema, identifiedTransferFunction } from "./plants/identified.js";
+export { plantZeros } from "./plants/plant-zeros.js";
+export { MAX_STEP_TEST_BYTES, refitInputSchema, stepTestFitInputSchema, stepTestPlantInputSchema } from "./schemas/step-test-input.js";
+export type { RefitInput, StepTestFitInput, StepTestPlantInput } from "./schemas/step-test-input.js";
+export type { StepTestOverview } from "./identification/step-test-overview.js";
+export type { StepFitResult, StepTestFitReport } from "./identification/fit-step-test.js";
+export type { StepTestSettings, StepTestSettingsInput } from "./identification/step-test-settings.js";
+export type { IdentificationProvenance, IdentifiedPlant } from "./plants/identified.js";
 export type { StepTestTable } from "./identification/parse-step-test-table.js";
 export type { StepTest, StepTestColumn, StepTestColumnInfo, StepTestReadOptions, TimeUnit } from "./identification/read-step-test.js";
 export type { PreparedStepTest, StepTestPrepareOptions } from "./identification/prepare-step-test.js";

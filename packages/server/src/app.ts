@@ -22,6 +22,8 @@ import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { familyRoutes } from "./families/family-routes.js";
 import { libraryRoutes } from "./library/library-routes.js";
+import { stepTestRoutes } from "./step-tests/step-test-routes.js";
+import { MULTIPART_PATHS } from "./step-tests/multipart-paths.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
 import { exportRoutes } from "./exports/export-routes.js";
@@ -125,7 +127,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use(requestLogger(config.requestLogLevel ?? "info"));
   app.use(securityHeaders(publicOrigin.startsWith("https://")));
   app.use(urlGuard);
-  app.use("/api", apiHeaders, sameOriginGuard(trustedOrigins, SESSION_COOKIE_PATTERN));
+  app.use("/api", apiHeaders, sameOriginGuard(trustedOrigins, SESSION_COOKIE_PATTERN, MULTIPART_PATHS));
 
   // better-auth, behind Loopyard's own limits and checks: rate limits per address and per account,
   // a small JSON body (parsed here; better-auth reads the parsed body), names and passwords checked.
@@ -159,6 +161,7 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api/workspaces/:slug", exportRoutes(db, database.pool));
   app.use("/api/workspaces/:slug/families", familyRoutes(db));
   app.use("/api/workspaces/:slug/library", libraryRoutes(db));
+  app.use("/api/workspaces/:slug/step-tests", stepTestRoutes(db, compute));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",

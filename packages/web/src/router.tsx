@@ -7,6 +7,9 @@ import { ResetPasswordPage } from "./features/auth/reset-password-page.js";
 import { VerifyEmailPage } from "./features/auth/verify-email-page.js";
 import { InvitationPage } from "./features/auth/invitation-page.js";
 import { MembersPage } from "./features/members/members-page.js";
+import { PlantRefitPage } from "./features/identification/plant-refit-page.js";
+import { StepTestFitPage } from "./features/identification/step-test-fit-page.js";
+import { StepTestUploadPage } from "./features/identification/step-test-upload-page.js";
 import { PlantDetailPage } from "./features/plants/plant-detail-page.js";
 import { PlantListPage } from "./features/plants/plant-list-page.js";
 import { PlantNewPage } from "./features/plants/plant-new-page.js";
@@ -52,7 +55,10 @@ export const router = createBrowserRouter([
           { index: true, element: <WorkspaceHomePage /> },
           { path: "plants", element: <PlantListPage /> },
           { path: "plants/new", element: <PlantNewPage /> },
+          { path: "plants/identify", element: <StepTestUploadPage /> },
+          { path: "plants/identify/:stepTestId", element: <StepTestFitPage /> },
           { path: "plants/:plantId", element: <PlantDetailPage /> },
+          { path: "plants/:plantId/refit", element: <PlantRefitPage /> },
           { path: "plants/:plantId/revise", element: <PlantRevisePage /> },
           { path: "library/import", element: <LibraryImportPage /> },
           { path: "families", element: <FamilyListPage /> },

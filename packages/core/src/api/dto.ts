@@ -6,6 +6,7 @@
  */
 import type { Role } from "./roles.js";
 import type { Plant } from "../plants/plant.js";
+import type { StepTestOverview } from "../identification/step-test-overview.js";
 import type { CriterionId } from "../criteria/criterion-id.js";
 import type { SweepInputParsed } from "../sweeps/sweep-input.js";
 import type { Complex } from "../linear-algebra/complex.js";
@@ -99,6 +100,8 @@ export interface PlantDetailDto {
    * the operating point (`initial`, `operatingInput`); see polesNote.
    */
   poles: Complex[];
+  /** Zeros of the shown revision (of the linearisation for a nonlinear plant); Re z > 0 is a right-half-plane zero. */
+  zeros: Complex[];
   /** A sentence saying what `poles` means when it is not the plain plant poles (nonlinear plants); null otherwise. */
   polesNote: string | null;
   /**
@@ -378,4 +381,15 @@ export interface RevisionDiffDto {
   from: number;
   to: number;
   changes: RevisionChange[];
+}
+
+/** POST /api/workspaces/:slug/step-tests (multipart, field "file") and GET …/step-tests/:stepTestId */
+export interface StepTestDto {
+  id: string;
+  fileName: string;
+  sizeBytes: number;
+  createdAt: string;
+  createdBy: UserDto;
+  /** Columns, row count, the first rows and the suggested time, input and output columns. */
+  overview: StepTestOverview;
 }

@@ -1,3 +1,4 @@
+import { chargeEvaluations } from "../simulation/work-budget.js";
 import { levenbergMarquardt } from "ml-levenberg-marquardt";
 import { inverse, Matrix, solve } from "ml-matrix";
 import type { PreparedStepTest } from "./prepare-step-test.js";
@@ -91,7 +92,8 @@ const SOPDT_RATIOS = [0.1, 0.3, 0.6];
  *   s² = SSE/(n − q),   Cov = s²·(JᵀJ)⁻¹,   p̂ᵢ ± t_{0.975}(n − q)·√Covᵢᵢ   (q parameters, δ included).
  *
  * R² = 1 − SSE/Σ(y_k − ȳ)². SOPDT time constants are reported with τ1 ≥ τ2.
- * Returns { ok: false, reason } when no start can be read from the data.
+ * Returns { ok: false, reason } when no start can be read from the data. Every model evaluation is
+ * charged to the active work budget (withWorkBudget), so a caller can bound the work of a fit.
  * References: D. W. Marquardt, "An algorithm for least-squares estimation of nonlinear parameters",
  * J. SIAM 11(2), 431–441, 1963; D. M. Bates and D. G. Watts, Nonlinear Regression Analysis and Its
  * Applications, Wiley, 1988, §2.3 (linear-approximation intervals).
@@ -113,7 +115,16 @@ export function fitStepModel(test: PreparedStepTest, kind: StepModelKind): StepM
   const scales = [...model.gains.map((g) => (g ? gainScale : span)), ...(fitOffset ? [peak] : [])];
   const du = Math.sign(stepSize);
   // ŷ(x; p) in normalised units: the model's response plus, with offset "initial", a correction δ of y0.
-  const evaluate: Evaluate = fitOffset ? (p, xi) => p[m] + model.response(p, xi, du) : (p, xi) => model.response(p, xi, du);
+  // Each model evaluation is charged to the active work budget (withWorkBudget), one evaluation each.
+  const evaluate: Evaluate = fitOffset
+    ? (p, xi) => {
+        chargeEvaluations(1);
+        return p[m] + model.response(p, xi, du);
+      }
+    : (p, xi) => {
+        chargeEvaluations(1);
+        return model.response(p, xi, du);
+      };
 
   const starts = startingPoints(test, kind);
   if (!starts.ok) return starts;

@@ -4,9 +4,9 @@ import { StepTestFileError } from "./step-test-file-error.js";
 /** A column of the file: its header name, or its number counted from 1 (a string of digits counts as a number when no header has that name). */
 export type StepTestColumn = string | number;
 
-/** Units of the time column and the factor that turns them into seconds. */
-export const TIME_UNITS = { s: 1, ms: 1e-3, min: 60, h: 3600 } as const;
-export type TimeUnit = keyof typeof TIME_UNITS;
+import { TIME_UNITS, type TimeUnit } from "./time-units.js";
+
+export { TIME_UNITS, type TimeUnit };
 
 /** Fewest data rows a step test may have (a few before the step and enough after it to fit). */
 export const MIN_STEP_TEST_ROWS = 10;

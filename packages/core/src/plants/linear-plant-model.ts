@@ -1,5 +1,6 @@
 import type { SisoStateSpace } from "../linear-algebra/siso-state-space.js";
 import { normalizeTransferFunction } from "./normalize-transfer-function.js";
+import { identifiedTransferFunction } from "./identified.js";
 import type { LinearPlant } from "./plant.js";
 import { stateSpaceToTransferFunction } from "./state-space-to-transfer-function.js";
 import { transferFunctionToStateSpace } from "./transfer-function-to-state-space.js";
@@ -20,15 +21,15 @@ const cache = new WeakMap<object, LinearPlantModel>();
  * Both forms of a linear plant. Transfer functions: normalised (normalizeTransferFunction) and
  * realised in controllable canonical form (transferFunctionToStateSpace) — these are the states a
  * state-feedback controller sees. State space: (A, B, C, D) as given, its transfer function by
- * stateSpaceToTransferFunction. Results are cached per plant object (plants are treated as immutable).
+ * stateSpaceToTransferFunction. An identified plant is its fitted transfer function with dead time. Results are cached per plant object (plants are treated as immutable).
  * Throws a RangeError naming the bad field.
  */
 export function linearPlantModel(plant: LinearPlant): LinearPlantModel {
   const hit = cache.get(plant);
   if (hit) return hit;
   let model: LinearPlantModel;
-  if (plant.kind === "transfer-function") {
-    const tf = normalizeTransferFunction(plant);
+  if (plant.kind === "transfer-function" || plant.kind === "identified") {
+    const tf = normalizeTransferFunction(plant.kind === "identified" ? identifiedTransferFunction(plant) : plant);
     model = { ss: transferFunctionToStateSpace(tf), num: tf.num, den: tf.den, delay: tf.delay };
   } else if (plant.kind === "state-space") {
     const ss = stateSpaceFromMatrices(plant.A, plant.B, plant.C, plant.D);

@@ -1,4 +1,5 @@
 import { compileSystem, type CompiledSystem } from "../expressions/compile-system.js";
+import { ExpressionError } from "../expressions/expression-error.js";
 import type { SisoStateSpace } from "../linear-algebra/siso-state-space.js";
 import type { NonlinearPlant } from "./nonlinear.js";
 
@@ -39,11 +40,32 @@ export function nonlinearPlantModel(plant: NonlinearPlant): NonlinearPlantModel 
   if (!initial.every(Number.isFinite)) throw new RangeError("plant.initial: every value must be finite");
   const operatingInput = plant.operatingInput ?? 0;
   if (!Number.isFinite(operatingInput)) throw new RangeError("plant.operatingInput must be finite");
+  const at = operatingPointText(plant, operatingInput);
+  const rates = new Float64Array(plant.states.length);
+  system.derivatives(0, initial, parameters, operatingInput, rates);
+  rates.forEach((rate, i) => {
+    if (!Number.isFinite(rate)) throw notFiniteAt(`d${plant.states[i]}/dt`, plant.derivatives[i], `derivatives.${i}`, rate, at);
+  });
   const y0 = system.output(0, initial, parameters, operatingInput);
-  if (!Number.isFinite(y0)) throw new RangeError("plant.initial: the output at the initial state is not finite");
+  if (!Number.isFinite(y0)) throw notFiniteAt("the output y", plant.output, "output", y0, at);
   const model = { system, parameters, initial, operatingInput, y0 };
   cache.set(plant, model);
   return model;
+}
+
+/** "x = 0, u = 0" for the sentences below. */
+function operatingPointText(plant: NonlinearPlant, operatingInput: number): string {
+  return `${plant.states.map((name, i) => `${name} = ${plant.initial[i]}`).join(", ")}, u = ${operatingInput}`;
+}
+
+/** The error for an expression that is not finite at the operating point, at its field (e.g. derivatives.1). */
+function notFiniteAt(what: string, expression: string, field: string, value: number, at: string): ExpressionError {
+  const how = Number.isNaN(value) ? "is not a number (NaN)" : "is infinite";
+  return new ExpressionError(`${what} ${how} at the operating point (${at}): the expression divides by zero or leaves its domain there; change the initial state, the operating input or the expression`, {
+    expression,
+    token: "",
+    field,
+  });
 }
 
 /** Relative step of the central differences in linearizeNonlinearPlant. */
@@ -81,5 +103,12 @@ export function linearizeNonlinearPlant(plant: NonlinearPlant): SisoStateSpace {
   system.derivatives(0, x, parameters, operatingInput - hu, minus);
   for (let i = 0; i < n; i++) b[i] = (plus[i] - minus[i]) / (2 * hu);
   const d = (system.output(0, x, parameters, operatingInput + hu) - system.output(0, x, parameters, operatingInput - hu)) / (2 * hu);
+  const at = operatingPointText(plant, operatingInput);
+  for (let i = 0; i < n; i++) {
+    let row = b[i];
+    for (let j = 0; j < n; j++) row += a[i * n + j];
+    if (!Number.isFinite(row)) throw notFiniteAt(`the slope of d${plant.states[i]}/dt`, plant.derivatives[i], `derivatives.${i}`, row, at);
+  }
+  if (!Number.isFinite(d) || !c.every(Number.isFinite)) throw notFiniteAt("the slope of the output y", plant.output, "output", Number.isFinite(d) ? Number.NaN : d, at);
   return { n, a, b, c, d };
 }

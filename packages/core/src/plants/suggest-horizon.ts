@@ -19,7 +19,7 @@ const NICE_STEPS = [1, 1.5, 2, 2.5, 3, 4, 5, 6, 8, 10];
  * Five time constants cover the usual 1 % settling band (e^(−5) ≈ 0.7 %): common practice.
  */
 export function suggestHorizon(plant: Plant): number {
-  const delay = plant.kind === "transfer-function" ? plant.delay ?? 0 : 0;
+  const delay = plant.kind === "transfer-function" || plant.kind === "identified" ? plant.delay ?? 0 : 0;
   const poles = plantPoles(plant);
   let slowest = 0;
   for (const p of poles) if (p.re < 0) slowest = Math.max(slowest, 1 / -p.re);

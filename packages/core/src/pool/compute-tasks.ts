@@ -11,6 +11,7 @@ import { nonlinearPlantModel } from "../plants/nonlinear-plant-model.js";
 import { openLoopStep } from "../plants/open-loop-step.js";
 import type { LinearPlant, Plant } from "../plants/plant.js";
 import { plantPoles } from "../plants/plant-poles.js";
+import { plantZeros } from "../plants/plant-zeros.js";
 import { suggestHorizon } from "../plants/suggest-horizon.js";
 import { IllPosedLoopError } from "../simulation/ill-posed-loop-error.js";
 import { loopTransferFunction } from "../simulation/loop-transfer-function.js";
@@ -27,19 +28,25 @@ import { buildDeploymentSheet } from "../deployment/build-deployment-sheet.js";
 import { designCurves, type DesignCurves } from "../deployment/design-curves.js";
 import { DeploymentSheetError, type DeploymentDesign, type DeploymentSheetRequest } from "../deployment/deployment-design.js";
 import { baselineScores, type BaselineScores, type BaselineScoresInput } from "./baseline-scores-task.js";
+import { fitStepTest, type StepTestFitReport } from "../identification/fit-step-test.js";
+import type { StepModelKind } from "../identification/step-model.js";
+import { StepTestFileError } from "../identification/step-test-file-error.js";
+import { stepTestOverview, type StepTestOverview } from "../identification/step-test-overview.js";
+import type { StepTestSettings } from "../identification/step-test-settings.js";
 
 /**
  * Why a task gave no value: "budget" (its work budget ran out), "time" (its time limit passed; set
  * by the pool), "refused" (core refused the input; `field` names it when known: an expression's
- * dotted path, a sweep definition's field), "ill-posed" (the loop 1 + C·G vanishes at high frequency).
+ * dotted path, a sweep definition's field; a step-test file's problem carries `row` and `column`), "ill-posed" (the loop 1 + C·G vanishes at high frequency).
  */
-export type ComputeFailure = { ok: false; kind: "budget" | "time" | "refused" | "ill-posed"; reason: string; field?: string; error?: string };
+export type ComputeFailure = { ok: false; kind: "budget" | "time" | "refused" | "ill-posed"; reason: string; field?: string; error?: string; row?: number; column?: number };
 
 export type ComputeOutcome<T> = { ok: true; value: T } | ComputeFailure;
 
-/** A plant's preview: poles (of the linearisation for a nonlinear plant) and open-loop step, downsampled. */
+/** A plant's preview: poles and zeros (of the linearisation for a nonlinear plant) and open-loop step, downsampled. */
 export interface PlantPreview {
   poles: Complex[];
+  zeros: Complex[];
   step: { t: number[]; y: number[] };
 }
 
@@ -66,6 +73,10 @@ export interface ComputeTasks {
   designCurves: { input: { design: DeploymentDesign }; output: DesignCurves };
   /** A tuning rule's controller of a sweep scored on every variant (baseline-scores-task.ts), for a decision's record. */
   baselineScores: { input: BaselineScoresInput; output: BaselineScores };
+  /** What an uploaded step-test file holds (columns, preview, suggested columns), or its first problem. */
+  stepTestOverview: { input: { text: string }; output: StepTestOverview };
+  /** A step test read with the chosen settings and fitted with each model (fitStepTest). */
+  stepTestFit: { input: { text: string; settings: StepTestSettings; models: StepModelKind[] }; output: StepTestFitReport };
 }
 
 export type ComputeTaskName = keyof ComputeTasks;
@@ -82,9 +93,10 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
     if (model.kind === "nonlinear") nonlinearPlantModel(model);
     const horizon = suggestHorizon(model);
     const poles = plantPoles(model);
+    const zeros = plantZeros(model);
     const { t, y } = openLoopStep(model, horizon, horizon / samples);
     const indices = downsampleIndices(t.length);
-    return { poles: poles.map(({ re, im }) => ({ re, im })), step: { t: pick(t, indices), y: pick(y, indices) } };
+    return { poles: poles.map(({ re, im }) => ({ re, im })), zeros: zeros.map(({ re, im }) => ({ re, im })), step: { t: pick(t, indices), y: pick(y, indices) } };
   },
   candidateResponse(input) {
     const { plant, controller, plan } = candidateLoop(input);
@@ -102,6 +114,8 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
   deploymentSheet: ({ design, request }) => buildDeploymentSheet(design, request),
   designCurves: ({ design }) => designCurves(design),
   baselineScores,
+  stepTestOverview: ({ text }) => stepTestOverview(text),
+  stepTestFit: ({ text, settings, models }) => fitStepTest(text, settings, models),
 };
 
 function candidateLoop({ definition, models, params, variant }: CandidateTaskInput) {
@@ -128,6 +142,10 @@ export function runComputeTask<K extends ComputeTaskName>(request: ComputeReques
       const field = (error as { field?: string }).field;
       const invalid = error instanceof DeploymentSheetError && error.kind === "invalid";
       return { ok: false, kind: "refused", reason: error.message, error: invalid ? "DeploymentSheetInvalid" : error.name, ...(field ? { field } : {}) };
+    }
+    if (error instanceof StepTestFileError) {
+      const at = { ...(error.row === undefined ? {} : { row: error.row }), ...(error.column === undefined ? {} : { column: error.column }) };
+      return { ok: false, kind: "refused", reason: error.message, error: error.name, field: "file", ...at };
     }
     if (error instanceof RangeError || error instanceof TypeError) return { ok: false, kind: "refused", reason: error.message, error: error.name };
     throw error;

@@ -21,6 +21,11 @@ export const COMPUTE_LIMITS: Record<ComputeTaskName, ComputeLimits> = {
   designCurves: { budget: { evaluations: 4_000_000 }, timeLimitMs: 15_000 },
   // One tuning rule scored on every variant: one closed-loop simulation per variant.
   baselineScores: { budget: { evaluations: 4_000_000 }, timeLimitMs: 15_000 },
+  // Reading a step-test file integrates nothing; papaparse over 10 MB takes seconds on a busy core.
+  stepTestOverview: { budget: { evaluations: 1 }, timeLimitMs: 30_000 },
+  // Model evaluations of the three fits (fitStepModel charges one per sample and parameter vector):
+  // measured 95 million for a 7 MB, 350,000-row test (FOPDT 28 M, SOPDT 49 M, IPDT 18 M), 3 million for 20,000 rows.
+  stepTestFit: { budget: { evaluations: 200_000_000 }, timeLimitMs: 90_000 },
 };
 
 /** Worker threads of the web server's compute pool (the sweep worker has its own pool). */

@@ -521,6 +521,35 @@ export const familyRevision = pgTable(
   (table) => [unique("family_revision_family_number_unique").on(table.familyId, table.number)],
 );
 
+// ---------------------------------------------------------------- step tests (identification)
+
+/**
+ * An uploaded step-test file (CSV or TSV), kept as uploaded so that identified plants can be
+ * refitted from it; `overview` is what stepTestOverview found in it (columns, preview, suggestions).
+ * Rows are inserted, never changed.
+ */
+export const stepTest = pgTable(
+  "step_test",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    fileName: text("file_name").notNull(),
+    mediaType: text("media_type").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    sha256: text("sha256").notNull(),
+    /** The file's text as uploaded (UTF-8). */
+    content: text("content").notNull(),
+    overview: jsonb("overview").notNull(),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).defaultNow().notNull(),
+  },
+  (table) => [index("step_test_workspace_idx").on(table.workspaceId)],
+);
+
 export const authSchema = { user, session, account, verification };
 
 // ---------------------------------------------------------------- members: invitations and the audit trail

@@ -21,12 +21,14 @@ function hasBody(headers: { "content-length"?: string | undefined; "transfer-enc
  * - `Sec-Fetch-Site`, when sent, must be `same-origin` (or `none`: typed by the user);
  * - `Origin`, when sent, must be one of `trustedOrigins`;
  * - a request that sends a session cookie must send one of the two (every browser does);
- * - a body must be JSON (`Content-Type: application/json`), which no HTML form can send.
+ * - a body must be JSON (`Content-Type: application/json`), which no HTML form can send; on the
+ *   upload paths (`multipartPaths`, matched against the path under /api) multipart/form-data too,
+ *   still behind the three checks above.
  *
  * Scripts outside a browser (curl, the load bench) send neither header nor a cookie from a browser's
  * jar, so they pass the first three checks; they gain nothing an attacker's page could use.
  */
-export function sameOriginGuard(trustedOrigins: readonly string[], sessionCookie: RegExp): RequestHandler {
+export function sameOriginGuard(trustedOrigins: readonly string[], sessionCookie: RegExp, multipartPaths: readonly RegExp[] = []): RequestHandler {
   const trusted = new Set(trustedOrigins);
   return (req, _res, next) => {
     if (SAFE_METHODS.has(req.method)) {
@@ -47,7 +49,8 @@ export function sameOriginGuard(trustedOrigins: readonly string[], sessionCookie
       next(new HttpError(403, "A signed-in change must name its origin (the Origin header); send it from a Loopyard page."));
       return;
     }
-    if (hasBody(req.headers) && !req.is("application/json")) {
+    const upload = req.method === "POST" && multipartPaths.some((path) => path.test(req.path)) && req.is("multipart/form-data");
+    if (hasBody(req.headers) && !req.is("application/json") && !upload) {
       next(new HttpError(415, "Send the request body as JSON with the header Content-Type: application/json."));
       return;
     }

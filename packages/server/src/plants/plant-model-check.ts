@@ -10,7 +10,7 @@ export const STEP_SAMPLES = 600;
  * Version of a stored preview: raise it when what the plantPreview task returns changes, so that
  * previews stored by an earlier version are computed again on their next view.
  */
-export const PREVIEW_VERSION = 1;
+export const PREVIEW_VERSION = 2;
 
 /** A preview as stored with its revision. */
 export interface StoredPreview extends PlantPreview {

@@ -1,6 +1,6 @@
 import { Router } from "express";
 import { z } from "zod";
-import { plantInputSchema } from "@loopyard/core";
+import { plantInputSchema, refitInputSchema } from "@loopyard/core";
 import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
 import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
@@ -8,6 +8,7 @@ import { sendAnswer } from "../http/answer-cache.js";
 import { plantListAnswer } from "./plant-list-cache.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
 import { diffQuerySchema } from "../revisions/revision-rules.js";
+import { refitPlant } from "../step-tests/step-test-service.js";
 import { createPlant, createRevision, getPlantDetail, getPlantDiff, listPlants, PLANT_NOT_FOUND, setPlantArchive } from "./plant-service.js";
 
 const detailQuerySchema = z.object({
@@ -56,6 +57,11 @@ export function plantRoutes(db: Database, compute: Compute): Router {
   router.post("/:plantId/restore", memberOf(db, "engineer", "Restoring plants"), async (req, res) => {
     const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
     res.json(await setPlantArchive(db, compute, accessOf(req), plantId, false));
+  });
+
+  router.post("/:plantId/refit", memberOf(db, "engineer", "Editing plants"), async (req, res) => {
+    const plantId = parseIdParam(req.params.plantId, PLANT_NOT_FOUND);
+    res.status(201).json(await refitPlant(db, compute, accessOf(req), plantId, parseBody(refitInputSchema, req)));
   });
 
   return router;

@@ -2,7 +2,7 @@ import { diffPlantRevisions } from "@loopyard/core";
 import type { PlantDetailDto, PlantInputParsed, PlantRevisionDto, PlantSummaryDto, RevisionDiffDto } from "@loopyard/core";
 import type { Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
-import { notFound } from "../http/http-error.js";
+import { badRequest, notFound } from "../http/http-error.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
 import { previewPlantModel, PREVIEW_VERSION, type StoredPreview } from "./plant-model-check.js";
 import { assertChangeNote, diffNumbers, revisionRangeSentence } from "../revisions/revision-rules.js";
@@ -51,6 +51,7 @@ export async function getPlantDetail(
     revision,
     revisions: found.revisions.map(({ id, number, note, createdAt, createdBy }) => ({ id, number, note, createdAt, createdBy })),
     poles: preview.poles,
+    zeros: preview.zeros,
     polesNote: revision.model.kind === "nonlinear" ? NONLINEAR_POLES_NOTE : null,
     step: preview.step,
   };
@@ -64,8 +65,21 @@ async function previewOf(db: Database, compute: Compute, revision: PlantRevision
   return preview;
 }
 
+/** Who may store a model of kind `identified`: only the step-test service, which fits it from a stored file. */
+export interface PlantWriteOptions {
+  identified?: boolean;
+}
+
+/** An identified plant typed by hand would claim a provenance it does not have: refused with a sentence. */
+function assertNotHandIdentified(input: PlantInputParsed, options: PlantWriteOptions): void {
+  if (input.model.kind === "identified" && !options.identified) {
+    throw badRequest("model.kind: an identified plant is fitted from an uploaded step test; upload one from the library, or refit the plant from its page.", "model.kind");
+  }
+}
+
 /** Adds a plant with its revision 1 (and its preview) to the library (engineer+ checked by the route). */
-export async function createPlant(db: Database, compute: Compute, access: MemberAccess, input: PlantInputParsed): Promise<PlantDetailDto> {
+export async function createPlant(db: Database, compute: Compute, access: MemberAccess, input: PlantInputParsed, options: PlantWriteOptions = {}): Promise<PlantDetailDto> {
+  assertNotHandIdentified(input, options);
   const preview = await previewPlantModel(compute, input.model);
   const plantId = await insertPlant(db, access.workspace.id, access.user.id, input, preview);
   return getPlantDetail(db, compute, access, plantId);
@@ -78,7 +92,9 @@ export async function createRevision(
   access: MemberAccess,
   plantId: string,
   input: PlantInputParsed,
+  options: PlantWriteOptions = {},
 ): Promise<PlantDetailDto> {
+  assertNotHandIdentified(input, options);
   const found = await findPlantWithRevisions(db, access.workspace.id, plantId);
   if (!found) throw notFound(PLANT_NOT_FOUND);
   assertChangeNote(input.note);

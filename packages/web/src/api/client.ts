@@ -41,6 +41,24 @@ export async function apiFetch<T>(path: string, options: { method?: Method; body
   return parseJson(text) as T;
 }
 
+/**
+ * POSTs one file as multipart/form-data in `field` (the browser sets the boundary); returns the
+ * parsed JSON answer or throws an ApiError like apiFetch.
+ */
+export async function apiUpload<T>(path: string, file: File, field = "file"): Promise<T> {
+  const form = new FormData();
+  form.append(field, file, file.name);
+  let response: Response;
+  try {
+    response = await fetch(`/api${path}`, { method: "POST", credentials: "same-origin", headers: { accept: "application/json" }, body: form });
+  } catch {
+    throw new ApiError(0, { message: "Could not reach the Loopyard server." });
+  }
+  const text = await response.text();
+  if (!response.ok) throw apiErrorOf(response.status, text);
+  return parseJson(text) as T;
+}
+
 /** The ApiError of a failed response from its status and body text. */
 export function apiErrorOf(status: number, text: string): ApiError {
   return new ApiError(status, errorBody(status, parseJson(text)));

@@ -11,6 +11,7 @@ export const queryKeys = {
   families: (slug: string) => ["workspace", slug, "families"] as const,
   family: (slug: string, familyId: string, revision?: number) => ["workspace", slug, "families", familyId, revision ?? "latest"] as const,
   familyDiff: (slug: string, familyId: string, from: number, to: number) => ["workspace", slug, "families", familyId, "diff", from, to] as const,
+  stepTest: (slug: string, id: string) => ["workspace", slug, "step-tests", id] as const,
   sweeps: (slug: string) => ["workspace", slug, "sweeps"] as const,
   sweep: (slug: string, sweepId: string) => ["workspace", slug, "sweeps", sweepId] as const,
   candidate: (slug: string, sweepId: string, index: number) => ["workspace", slug, "sweeps", sweepId, "candidate", index] as const,

@@ -22,7 +22,11 @@ export function Button({ tone = "quiet", className = "", ...props }: ButtonHTMLA
   return <button type="button" className={`${buttonClass(tone)} ${className}`} {...props} />;
 }
 
-/** A link that looks like a button; rendered as a disabled button with the reason as its title when `disabledReason` is set. */
+/**
+ * A link that looks like a button. With `disabledReason` set (the member's role does not allow the
+ * action) it is not rendered at all: nobody is offered a button that leads to a form they cannot
+ * submit; the page says why in its role note.
+ */
 export function ButtonLink({
   tone = "quiet",
   disabledReason,
@@ -31,13 +35,7 @@ export function ButtonLink({
   testId,
   ...props
 }: LinkProps & { tone?: ButtonTone; disabledReason?: string | null; testId?: string; children: ReactNode }) {
-  if (disabledReason) {
-    return (
-      <button type="button" disabled title={disabledReason} aria-disabled className={`${buttonClass(tone)} ${className}`} data-testid={testId}>
-        {children}
-      </button>
-    );
-  }
+  if (disabledReason) return null;
   return (
     <Link className={`${buttonClass(tone)} ${className}`} data-testid={testId} {...props}>
       {children}

@@ -10,11 +10,16 @@ function superscript(n: number): string {
     .join("");
 }
 
-/** A coefficient as short text: integers as is, others to 6 significant digits, without trailing zeros. */
-export function formatCoefficient(value: number): string {
+/** The magnitude of a coefficient as short text: integers as is, others to 6 significant digits, without trailing zeros. */
+export function formatMagnitude(value: number): string {
   if (Number.isInteger(value) && Math.abs(value) < 1e9) return String(Math.abs(value));
   const text = Math.abs(value).toPrecision(6);
   return text.includes("e") ? text.replace(/\.?0+e/, "e") : text.replace(/\.?0+$/, "");
+}
+
+/** A coefficient with its sign as short text: −1 → "−1" (typographic minus), 2.50 → "2.5". */
+export function formatCoefficient(value: number): string {
+  return `${value < 0 ? MINUS : ""}${formatMagnitude(value)}`;
 }
 
 /** s to a power: "", "s", "s²", "s¹⁰". */
@@ -35,7 +40,7 @@ export function formatPolynomial(coeffs: readonly number[]): string {
     if (c === 0) return;
     const exponent = degree - i;
     const magnitude = Math.abs(c);
-    const factor = magnitude === 1 && exponent > 0 ? "" : formatCoefficient(c);
+    const factor = magnitude === 1 && exponent > 0 ? "" : formatMagnitude(c);
     terms.push({ negative: c < 0, body: `${factor}${power(exponent)}` });
   });
   if (terms.length === 0) return "0";
@@ -46,7 +51,7 @@ export function formatPolynomial(coeffs: readonly number[]): string {
 
 /** The dead-time factor, "e^(−1.5s)", or "" without dead time. */
 export function formatDelay(delay: number): string {
-  return delay > 0 ? `e^(${MINUS}${formatCoefficient(delay)}s)` : "";
+  return delay > 0 ? `e^(${MINUS}${formatMagnitude(delay)}s)` : "";
 }
 
 function grouped(text: string): string {
@@ -58,4 +63,9 @@ export function formatTransferFunction(plant: Pick<TransferFunctionPlant, "num" 
   const ratio = `${grouped(formatPolynomial(plant.num))} / ${grouped(formatPolynomial(plant.den))}`;
   const delay = formatDelay(plant.delay);
   return `G(s) = ${ratio}${delay ? ` · ${delay}` : ""}`;
+}
+
+/** Coefficients as stored, each with its sign: [5, −1] → "[5, −1]". */
+export function coefficientList(values: readonly number[]): string {
+  return `[${values.map(formatCoefficient).join(", ")}]`;
 }

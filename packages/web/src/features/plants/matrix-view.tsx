@@ -2,7 +2,7 @@ import { formatCoefficient } from "./format-transfer-function.js";
 
 /** A signed coefficient with the typographic minus. */
 export function formatEntry(value: number): string {
-  return `${value < 0 ? "−" : ""}${formatCoefficient(value)}`;
+  return formatCoefficient(value);
 }
 
 /** A matrix drawn in monospace between brackets, entries right-aligned; its name to the left. */

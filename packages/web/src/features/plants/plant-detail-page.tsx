@@ -9,12 +9,14 @@ import { ErrorNote } from "../../components/error-note.js";
 import { formatDateTime } from "../../components/format-date.js";
 import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
+import { RoleNote } from "../../components/role-note.js";
 import { Section } from "../../components/section.js";
 import { roleSentence, useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { ActuatorLimitsList } from "./actuator-limits-view.js";
 import { PlantModelView } from "./plant-model-view.js";
 import { plantKindShort } from "./plant-kind.js";
-import { PolesTable } from "./poles-table.js";
+import { PolesTable, ZerosTable } from "./poles-table.js";
+import { inputUnitOf } from "./plant-units.js";
 import { RevisionDiffView } from "../revisions/revision-diff-view.js";
 import { RevisionList } from "../revisions/revision-list.js";
 import { ArchiveControl } from "../revisions/archive-control.js";
@@ -48,9 +50,9 @@ export function PlantDetailPage() {
       </>
     );
 
-  const { plant: summary, revision: shown, revisions, poles, step, polesNote } = plant.data;
+  const { plant: summary, revision: shown, revisions, poles, zeros = [], step, polesNote } = plant.data;
   const isLatest = shown.number === summary.latestRevision.number;
-  const refusal = workspace.data && !canEdit ? roleSentence("Revising plants", "engineer", workspace.data.workspace.name, role) : null;
+  const refusal = workspace.data && !canEdit ? roleSentence("Revising plants and running sweeps", "engineer", workspace.data.workspace.name, role) : null;
   const model = shown.model;
   const nonlinear = model.kind === "nonlinear";
   const stepNote =
@@ -81,23 +83,29 @@ export function PlantDetailPage() {
           </>
         }
         actions={
+          // A viewer is not offered buttons that lead to forms they cannot submit: the note below says why.
           <>
-            <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" testId="sweep-this-revision" disabledReason={refusal ? roleSentence("Running sweeps", "engineer", workspace.data?.workspace.name, role) : null}>
-              Sweep this revision
-            </ButtonLink>
+            {canEdit ? (
+              <ButtonLink to={`${base}/sweeps/new?plant=${summary.id}&revision=${shown.id}`} tone="quiet" testId="sweep-this-revision">
+                Sweep this revision
+              </ButtonLink>
+            ) : null}
+            {canEdit && model.kind === "identified" ? (
+              <ButtonLink to={`${base}/plants/${summary.id}/refit`} tone="quiet" testId="refit-plant">
+                Refit from the step test
+              </ButtonLink>
+            ) : null}
             <ExportButton slug={slug} plant={summary.id} fileName={libraryFileName(summary.name)} />
-            <ArchiveControl
-              archivedAt={summary.archivedAt}
-              what="plant"
-              refusal={refusal ? roleSentence("Archiving plants", "engineer", workspace.data?.workspace.name, role) : null}
-              mutation={archive}
-            />
-            <ButtonLink to={`${base}/plants/${summary.id}/revise`} tone="primary" disabledReason={refusal} testId="new-revision">
-              New revision
-            </ButtonLink>
+            {canEdit ? <ArchiveControl archivedAt={summary.archivedAt} what="plant" refusal={null} mutation={archive} /> : null}
+            {canEdit ? (
+              <ButtonLink to={`${base}/plants/${summary.id}/revise`} tone="primary" testId="new-revision">
+                New revision
+              </ButtonLink>
+            ) : null}
           </>
         }
       />
+      {refusal ? <RoleNote sentence={refusal} /> : null}
       {summary.archivedAt ? (
         <p role="note" className="mb-4 rounded-md border border-line bg-sheet px-4 py-2 text-sm text-ink-soft" data-testid="archived-note">
           Archived {formatDateTime(summary.archivedAt)}: new sweeps and families do not offer it; sweeps, comparisons and families that use its revisions keep them. Restore it to offer it again.
@@ -138,8 +146,11 @@ export function PlantDetailPage() {
             ) : null}
             <PolesTable poles={poles} />
           </Section>
+          <Section title="Zeros" aside={`${zeros.length} zero${zeros.length === 1 ? "" : "s"}`} testId="zeros-section">
+            <ZerosTable zeros={zeros} />
+          </Section>
           <Section title="Actuator limits">
-            <ActuatorLimitsList limits={model.actuator} />
+            <ActuatorLimitsList limits={model.actuator} inputUnit={inputUnitOf(model, shown.unitsNote)} />
           </Section>
           <Section title="Revisions" testId="revision-list">
             <RevisionList revisions={revisions} shown={shown.number} linkTo={(n) => `${base}/plants/${summary.id}?revision=${n}`} />

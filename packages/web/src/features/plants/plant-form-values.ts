@@ -100,9 +100,10 @@ export function plantFormFromRevision(revision: PlantRevisionDto): PlantFormValu
     name: revision.name,
     unitsNote: revision.unitsNote,
     note: "",
-    model: { ...EMPTY_PLANT_FORM.model, kind: model.kind, actuator: { min: text(model.actuator?.min), max: text(model.actuator?.max), rate: text(model.actuator?.rate) } },
+    // A hand-made revision of an identified plant is a typed transfer function with its coefficients.
+    model: { ...EMPTY_PLANT_FORM.model, kind: model.kind === "identified" ? "transfer-function" : model.kind, actuator: { min: text(model.actuator?.min), max: text(model.actuator?.max), rate: text(model.actuator?.rate) } },
   };
-  if (model.kind === "transfer-function") {
+  if (model.kind === "transfer-function" || model.kind === "identified") {
     Object.assign(values.model, { num: formatCoefficientText(model.num), den: formatCoefficientText(model.den), delay: String(model.delay) });
   } else if (model.kind === "state-space") {
     Object.assign(values.model, { A: formatMatrixText(model.A), B: formatMatrixText(model.B), C: formatMatrixText(model.C), D: formatMatrixText(model.D) });
@@ -196,6 +197,7 @@ const READERS: Record<PlantKind, (m: PlantFormValues["model"]) => ModelRead> = {
   "transfer-function": readTransferFunction,
   "state-space": readStateSpace,
   nonlinear: readNonlinear,
+  identified: () => ({ model: null, issues: [{ path: "model.kind", message: "an identified plant is fitted from a step test; choose a transfer function to type its coefficients" }] }),
 };
 
 /**

@@ -35,6 +35,9 @@ export function PlantListPage() {
       <ButtonLink to={`${base}/library/import`} tone="quiet" disabledReason={refusal ? roleSentence("Importing into the library", "engineer", workspace.data?.workspace.name, role) : null} testId="import-library">
         Import library
       </ButtonLink>
+      <ButtonLink to={`${base}/plants/identify`} tone="quiet" disabledReason={refusal} testId="upload-step-test-link">
+        Upload a step test
+      </ButtonLink>
       <ButtonLink to={`${base}/plants/new`} tone="primary" disabledReason={refusal} testId="new-plant">
         New plant
       </ButtonLink>
@@ -64,7 +67,7 @@ export function PlantListPage() {
           testId="plants-empty"
         >
           {canEdit
-            ? "Add a plant: a transfer function, a state-space model or nonlinear equations. Then sweep controller gains on it."
+            ? "Add a plant: a transfer function, a state-space model or nonlinear equations, or upload a step test and fit a model to it. Then sweep controller gains on it."
             : "An engineer of this workspace can add the first plant; you will see it here."}
         </EmptyState>
       }

@@ -1,7 +1,8 @@
 import type { Plant } from "@loopyard/core";
-import { formatCoefficient } from "./format-transfer-function.js";
+import { coefficientList, formatCoefficient } from "./format-transfer-function.js";
 import { MatrixView, formatEntry } from "./matrix-view.js";
 import { TransferFunctionView } from "./transfer-function-view.js";
+import { IdentificationView } from "../identification/identification-view.js";
 
 type ModelOf<K extends Plant["kind"]> = Extract<Plant, { kind: K }>;
 
@@ -14,10 +15,17 @@ export function PlantModelView({ model }: { model: Plant }) {
       return <StateSpaceModel model={model} />;
     case "nonlinear":
       return <NonlinearModel model={model} />;
+    case "identified":
+      return (
+        <>
+          <TransferFunctionModel model={model} />
+          <IdentificationView model={model} />
+        </>
+      );
   }
 }
 
-function TransferFunctionModel({ model }: { model: ModelOf<"transfer-function"> }) {
+function TransferFunctionModel({ model }: { model: ModelOf<"transfer-function"> | ModelOf<"identified"> }) {
   return (
     <>
       <div className="overflow-x-auto py-2">
@@ -25,9 +33,9 @@ function TransferFunctionModel({ model }: { model: ModelOf<"transfer-function"> 
       </div>
       <dl className="mt-4 grid grid-cols-[max-content_1fr] gap-x-6 gap-y-1.5 text-sm">
         <dt className="text-ink-soft">Numerator</dt>
-        <dd className="font-mono text-[13px]" data-testid="coefficients-num">[{model.num.map(formatCoefficient).join(", ")}]</dd>
+        <dd className="font-mono text-[13px]" data-testid="coefficients-num">{coefficientList(model.num)}</dd>
         <dt className="text-ink-soft">Denominator</dt>
-        <dd className="font-mono text-[13px]" data-testid="coefficients-den">[{model.den.map(formatCoefficient).join(", ")}]</dd>
+        <dd className="font-mono text-[13px]" data-testid="coefficients-den">{coefficientList(model.den)}</dd>
         <dt className="text-ink-soft">Dead time θ</dt>
         <dd className="font-mono text-[13px]">{formatCoefficient(model.delay)} s</dd>
       </dl>

@@ -4,6 +4,18 @@ import { ExpressionGrammarNote } from "./expression-grammar-note.js";
 import { parseMatrix } from "./matrix-text.js";
 import { MatrixView } from "./matrix-view.js";
 import { TransferFunctionView } from "./transfer-function-view.js";
+import { stateSpaceProblems, transferFunctionProblems } from "./plant-preview-checks.js";
+
+/** The problems the preview found, in the same words the form's check will use. */
+function PreviewProblems({ problems }: { problems: readonly string[] }) {
+  return (
+    <ul role="alert" className="space-y-0.5 text-sm text-rust" data-testid="plant-preview-problems">
+      {problems.map((p) => (
+        <li key={p}>{p}</li>
+      ))}
+    </ul>
+  );
+}
 
 /** The plant as typed so far, for the kind chosen, beside the form. */
 export function PlantPreview({ model, stateNames }: { model: PlantFormValues["model"] | undefined; stateNames: readonly string[] }) {
@@ -31,6 +43,11 @@ function TransferFunctionPreview({ num, den, delay }: { num: string; den: string
         <p className="font-mono text-sm text-ink-faint" data-testid="plant-preview">
           G(s) = … <span className="font-sans">— type both coefficient lists to see the plant</span>
         </p>
+      ) : transferFunctionProblems(n.values, d.values, Number.isFinite(theta) && theta > 0 ? theta : 0).length > 0 ? (
+        <div data-testid="plant-preview">
+          <p className="mb-1 font-mono text-sm text-ink-faint">G(s) cannot be drawn:</p>
+          <PreviewProblems problems={transferFunctionProblems(n.values, d.values, Number.isFinite(theta) && theta > 0 ? theta : 0)} />
+        </div>
       ) : (
         <div data-testid="plant-preview" className="overflow-x-auto">
           <TransferFunctionView num={n.values} den={d.values} delay={Number.isFinite(theta) && theta > 0 ? theta : 0} testId="plant-preview-tf" />
@@ -69,6 +86,11 @@ function StateSpacePreview({ model }: { model: PlantFormValues["model"] | undefi
           ),
         )}
       </div>
+      {matrices.every((m) => m.parsed.ok) ? (
+        <div className="mt-3">
+          <PreviewProblems problems={stateSpaceProblems(...(matrices.map((m) => (m.parsed.ok ? m.parsed.rows : [])) as [number[][], number[][], number[][], number[][]]))} />
+        </div>
+      ) : null}
       <p className="mt-4 text-xs text-ink-faint">A is n × n, B is n × 1, C is 1 × n, D is 1 × 1; order at most 10. The state starts at zero.</p>
     </div>
   );

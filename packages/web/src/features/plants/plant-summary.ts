@@ -8,6 +8,8 @@ export function plantModelSummary(model: Plant): string {
   switch (model.kind) {
     case "transfer-function":
       return formatTransferFunction({ ...model, delay: 0 }).replace("G(s) = ", "");
+    case "identified":
+      return `${model.identification.fit.model.toUpperCase()} fit: ${formatTransferFunction({ ...model, delay: 0 }).replace("G(s) = ", "")}`;
     case "state-space":
       return `order n = ${model.A.length}`;
     case "nonlinear":
@@ -18,7 +20,8 @@ export function plantModelSummary(model: Plant): string {
 /** The number of states a plant's state-feedback gains refer to: state-space n, TF den degree, nonlinear states. */
 export function plantStateCount(model: Plant): number {
   switch (model.kind) {
-    case "transfer-function": {
+    case "transfer-function":
+    case "identified": {
       const first = model.den.findIndex((c) => c !== 0);
       return first < 0 ? 0 : model.den.length - 1 - first;
     }
@@ -31,7 +34,7 @@ export function plantStateCount(model: Plant): number {
 
 /** Dead time of a plant, 0 for the kinds without one. */
 export function plantDelay(model: Plant): number | null {
-  return model.kind === "transfer-function" ? model.delay : null;
+  return model.kind === "transfer-function" || model.kind === "identified" ? model.delay : null;
 }
 
 /** True when the plant has any actuator limit. */

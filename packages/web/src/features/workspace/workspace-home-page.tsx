@@ -125,16 +125,23 @@ function NextSteps({ home, base, canEdit }: { home: WorkspaceHomeDto; base: stri
   }
   if (home.counts.plants === 0) {
     return (
-      <Step text="Start the library: enter a plant as a transfer function — numerator and denominator coefficients, and dead time if it has one.">
-        <ButtonLink to={`${base}/plants/new`} tone="primary">
-          Add the first plant
-        </ButtonLink>
-      </Step>
+      <div className="space-y-4">
+        <Step text="Start the library: type a plant as a transfer function with dead time, a state-space model or nonlinear equations.">
+          <ButtonLink to={`${base}/plants/new`} tone="primary">
+            Add the first plant
+          </ButtonLink>
+        </Step>
+        <Step text="Or upload a step test (CSV or TSV) and fit a first-order, second-order or integrating model with dead time to it.">
+          <ButtonLink to={`${base}/plants/identify`} tone="quiet">
+            Upload a step test
+          </ButtonLink>
+        </Step>
+      </div>
     );
   }
   return (
     <div className="space-y-4">
-      <Step text="Sweep PID gains over a grid on one plant revision; every candidate is scored on IAE, ISE, ITAE and effort.">
+      <Step text="Sweep a controller's parameters (P, PI, PID, two-degree-of-freedom PID, lead–lag or state feedback) on a plant or a family of variants, under setpoint and load steps, scored on the criteria you pick, with the LQR bound and published tuning rules beside the front.">
         <ButtonLink to={`${base}/sweeps/new`} tone="primary">
           New sweep
         </ButtonLink>
@@ -146,10 +153,20 @@ function NextSteps({ home, base, canEdit }: { home: WorkspaceHomeDto; base: stri
           </ButtonLink>
         </Step>
       ) : null}
-      <Step text="Add another plant to the library, or a new revision of an existing one.">
-        <ButtonLink to={`${base}/plants/new`} tone="quiet">
-          New plant
+      <Step text="Pit criteria against each other on a family: each contender's best design, judged on every criterion and every variant.">
+        <ButtonLink to={`${base}/comparisons/new`} tone="quiet">
+          Compare criteria
         </ButtonLink>
+      </Step>
+      <Step text="Add a plant to the library by typing it or by fitting a model to a step test, or revise an existing one.">
+        <span className="flex gap-2">
+          <ButtonLink to={`${base}/plants/identify`} tone="quiet">
+            Upload a step test
+          </ButtonLink>
+          <ButtonLink to={`${base}/plants/new`} tone="quiet">
+            New plant
+          </ButtonLink>
+        </span>
       </Step>
     </div>
   );
