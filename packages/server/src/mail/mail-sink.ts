@@ -2,7 +2,7 @@ import { randomBytes } from "node:crypto";
 import { mkdir, rename, writeFile } from "node:fs/promises";
 import type { AddressInfo } from "node:net";
 import path from "node:path";
-import { SMTPServer } from "smtp-server";
+import type { SMTPServer as SMTPServerType } from "smtp-server";
 
 /** Largest message the sink takes [bytes]: a decision record's PDF and then some. */
 export const MAIL_SINK_MAX_BYTES = 25 * 1024 * 1024;
@@ -42,7 +42,9 @@ export async function startMailSink(options: MailSinkOptions): Promise<MailSink>
   if (!/^(127\.\d+\.\d+\.\d+|::1|localhost)$/.test(host)) throw new RangeError(`host: the mail sink listens on loopback only; got "${host}"`);
   const folder = path.resolve(options.folder);
   await mkdir(folder, { recursive: true });
-  const server = new SMTPServer({
+  // Loaded here, not at start-up: only the serving process runs a sink (workers start faster without it).
+  const { SMTPServer } = await import("smtp-server");
+  const server: SMTPServerType = new SMTPServer({
     authOptional: true,
     disabledCommands: ["AUTH", "STARTTLS"],
     size: MAIL_SINK_MAX_BYTES,

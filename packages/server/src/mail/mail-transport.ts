@@ -1,4 +1,4 @@
-import nodemailer, { type Transporter } from "nodemailer";
+import type { Transporter } from "nodemailer";
 import { MAIL_HEADERS, type MailJobData } from "./mail-message.js";
 
 /** Sends one queued message; rejects when the SMTP server cannot be reached or refuses it. */
@@ -13,15 +13,20 @@ const SMTP_TIMEOUT_MS = 15_000;
  * the Loopyard headers (kind, link, workspace) that the outbox reads back.
  */
 export function createMailTransport(smtpUrl: string, from: string): { send: SendMail; close(): void } {
-  const transporter: Transporter = nodemailer.createTransport({
-    url: smtpUrl,
-    connectionTimeout: SMTP_TIMEOUT_MS,
-    greetingTimeout: SMTP_TIMEOUT_MS,
-    socketTimeout: SMTP_TIMEOUT_MS,
-  } as never);
+  // nodemailer is loaded with the first message, not at start-up (processes that never send skip it).
+  let transporter: Promise<Transporter> | null = null;
+  const open = () =>
+    (transporter ??= import("nodemailer").then(({ default: nodemailer }) =>
+      nodemailer.createTransport({
+        url: smtpUrl,
+        connectionTimeout: SMTP_TIMEOUT_MS,
+        greetingTimeout: SMTP_TIMEOUT_MS,
+        socketTimeout: SMTP_TIMEOUT_MS,
+      } as never),
+    ));
   return {
     async send(data) {
-      await transporter.sendMail({
+      await (await open()).sendMail({
         from,
         to: data.to,
         subject: data.subject,
@@ -36,7 +41,7 @@ export function createMailTransport(smtpUrl: string, from: string): { send: Send
       });
     },
     close() {
-      transporter.close();
+      void transporter?.then((t) => t.close()).catch(() => undefined);
     },
   };
 }

@@ -1,6 +1,6 @@
 import { readdir, readFile, stat } from "node:fs/promises";
 import path from "node:path";
-import { simpleParser, type AddressObject, type ParsedMail } from "mailparser";
+import type { AddressObject, ParsedMail } from "mailparser";
 import { isMailKind, type OutboxMessageDto } from "@loopyard/core";
 import { MAIL_HEADERS } from "./mail-message.js";
 
@@ -37,6 +37,8 @@ async function readStoredMail(folder: string, id: string): Promise<StoredMail | 
   }
   const cached = parsed.get(file);
   if (cached && cached.mtimeMs === info.mtimeMs) return cached.mail;
+  // Loaded on the first outbox read, not at start-up.
+  const { simpleParser } = await import("mailparser");
   const mail = await simpleParser(await readFile(file));
   const kind = header(mail, MAIL_HEADERS.kind);
   // The file name holds the receipt time: 20261205T221503123Z → 2026-12-05T22:15:03.123Z.
