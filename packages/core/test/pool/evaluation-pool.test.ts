@@ -63,6 +63,21 @@ describe("createEvaluationPool", () => {
     expect(candidates.length).toBe(403 * 3);
   }, 120_000);
 
+  it("pool.evaluate at niceness 10 gives the same bytes as at 0; a niceness outside 0…19 is refused naming it", async () => {
+    // Niceness changes only the threads' scheduling (setpriority(2), per thread on Linux), never a result.
+    const candidates = core.latinHypercube([{ name: "kp", min: 0.1, max: 10 }, { name: "ki", min: 0, max: 2 }, { name: "kd", min: 0, max: 4 }], 60, 11);
+    const reference = core.evaluateBatch(FAMILY, STRUCTURE, candidates, SCENARIO, CRITERIA);
+    const p = pool.createEvaluationPool({ workers: 1, niceness: 10 });
+    try {
+      const result = await p.evaluate({ family: FAMILY, structure: STRUCTURE, candidates, scenario: SCENARIO, criteria: CRITERIA });
+      expect(bytes(result).equals(bytes(reference))).toBe(true);
+    } finally {
+      await p.close();
+    }
+    expect(() => pool.createEvaluationPool({ workers: 1, niceness: 20 })).toThrow(/niceness/);
+    expect(() => pool.createEvaluationPool({ workers: 1, niceness: -1 })).toThrow(/niceness/);
+  }, 120_000);
+
   it("createEvaluationPool rejects a bad worker count naming it", () => {
     expect(() => pool.createEvaluationPool({ workers: 0 })).toThrow(/workers/);
     expect(() => pool.createEvaluationPool({ workers: 1.5 })).toThrow(/workers/);
