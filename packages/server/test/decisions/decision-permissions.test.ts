@@ -53,9 +53,17 @@ describe("decisionPermissions", () => {
 });
 
 describe("decisionFamilyKey", () => {
-  it("when the same revisions come in another order or twice, then the key is the same", () => {
-    expect(decisionFamilyKey(["b", "a", "c"])).toBe("a+b+c");
-    expect(decisionFamilyKey(["c", "a", "b", "a"])).toBe("a+b+c");
-    expect(() => decisionFamilyKey([])).toThrow(RangeError);
+  it("when two studies use different revisions of one saved family, then they are the same family", () => {
+    const variants = [{ plantRevisionId: "r1" }];
+    const first = decisionFamilyKey({ family: { name: "Ember line", source: { familyId: "f1", familyRevisionId: "fr1", number: 1 }, variants } });
+    const second = decisionFamilyKey({ family: { name: "Ember line", source: { familyId: "f1", familyRevisionId: "fr2", number: 2 }, variants: [...variants, { plantRevisionId: "r2" }] } });
+    expect(second).toBe(first);
+  });
+
+  it("when an ad-hoc family lists the same variants in another order, then the key is the same; other parameters make another family", () => {
+    const a = { plantRevisionId: "a", parameters: { mass: 2 } };
+    const b = { plantRevisionId: "b" };
+    expect(decisionFamilyKey({ family: { variants: [a, b] } })).toBe(decisionFamilyKey({ family: { variants: [b, a] } }));
+    expect(decisionFamilyKey({ family: { variants: [{ ...a, parameters: { mass: 3 } }, b] } })).not.toBe(decisionFamilyKey({ family: { variants: [a, b] } }));
   });
 });
