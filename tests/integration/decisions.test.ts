@@ -23,7 +23,7 @@ import { pdfText } from "../../packages/server/test/exports/pdf-text-check.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { signedInClient, type ApiClient } from "./api-client.js";
 import { lagFamily, smallComparison, waitForComparison } from "./comparison-fixtures.js";
-import { waitForSweep, workspaceWithTeam } from "./fixtures.js";
+import { addMemberInDatabase, waitForSweep, workspaceWithTeam } from "./fixtures.js";
 
 let server: TestServer;
 let sink: MailSink;
@@ -53,7 +53,11 @@ function proposal(title: string, candidateIndex: number) {
 }
 
 /** The .eml files the sink received for `address` (parsed), waiting up to `timeoutMs` for at least `atLeast` of them. */
-async function mailsTo(address: string, atLeast: number, timeoutMs = 30_000) {
+/**
+ * The mails the sink holds for `address`, once there are `atLeast` of them and, when `subject` is
+ * given, one with that subject (each person also gets the address check mailed at sign-up).
+ */
+async function mailsTo(address: string, atLeast: number, subject?: string, timeoutMs = 30_000) {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const names = (await readdir(mailFolder)).filter((n) => n.endsWith(".eml")).sort();
@@ -62,7 +66,8 @@ async function mailsTo(address: string, atLeast: number, timeoutMs = 30_000) {
       const to = Array.isArray(m.to) ? m.to : m.to ? [m.to] : [];
       return to.some((t) => t.value.some((v) => v.address?.toLowerCase() === address.toLowerCase()));
     });
-    if (mine.length >= atLeast || Date.now() > deadline) return mine;
+    const arrived = mine.length >= atLeast && (subject === undefined || mine.some((m) => m.subject === subject));
+    if (arrived || Date.now() > deadline) return mine;
     await new Promise((resolve) => setTimeout(resolve, 200));
   }
 }
@@ -77,7 +82,7 @@ beforeAll(async () => {
   base = `/api/workspaces/${team.slug}`;
   leadA = await signedInClient(server.url, "Decisions lead Astrid");
   leadB = await signedInClient(server.url, "Decisions lead Bram");
-  for (const lead of [leadA, leadB]) expect((await team.admin.post(`${base}/members`, { email: lead.user.email, role: "lead" })).status).toBe(201);
+  for (const lead of [leadA, leadB]) await addMemberInDatabase(team.slug, lead.user.email, "lead");
   revisions = await lagFamily(team.engineer, team.slug, "Decisions");
   const sweep = await team.engineer.post(`${base}/sweeps`, familySweep("Decisions PI grid"));
   expect(sweep.status, JSON.stringify(sweep.body)).toBe(201);
@@ -113,7 +118,7 @@ describe("decisions over HTTP", () => {
 
     // The proposal mail reaches each lead, with a link to the decision's page.
     for (const lead of [leadA, leadB]) {
-      const mails = (await mailsTo(lead.user.email, 2)).filter((m) => m.subject === "Proposal waiting: PI for the lag bench");
+      const mails = (await mailsTo(lead.user.email, 2, "Proposal waiting: PI for the lag bench")).filter((m) => m.subject === "Proposal waiting: PI for the lag bench");
       expect(mails.length, `proposal mails to ${lead.user.email}`).toBe(1);
       const mail = mails[0]!;
       const link = `${server.url}/w/${team.slug}/decisions/${id}`;
@@ -135,7 +140,7 @@ describe("decisions over HTTP", () => {
     expect(returned.status, JSON.stringify(returned.body)).toBe(200);
     expect(returned.body.state).toBe("returned");
     expect((await team.engineer.get(`${base}/decisions/waiting`)).body.returnedToMe.map((d: { id: string }) => d.id)).toEqual([id]);
-    const returnedMails = await mailsTo(team.credentials.engineer.email, 2);
+    const returnedMails = await mailsTo(team.credentials.engineer.email, 2, "Returned: PI for the lag bench");
     expect(returnedMails.some((m) => m.subject === "Returned: PI for the lag bench" && (m.text ?? "").includes("less overshoot"))).toBe(true);
 
     // Only the proposer revises; then it is proposed again.
@@ -199,7 +204,7 @@ describe("decisions over HTTP", () => {
     for (const name of ["kp", "ki"]) expect(text).toContain(name);
 
     // The approval mail reaches the proposer, with the record's PDF attached.
-    const approvalMails = await mailsTo(team.credentials.engineer.email, 3);
+    const approvalMails = await mailsTo(team.credentials.engineer.email, 3, "Approved: PI for the lag bench, gentler");
     const approval = approvalMails.filter((m) => m.subject === "Approved: PI for the lag bench, gentler");
     expect(approval).toHaveLength(1);
     expect(approval[0]!.attachments.map((a) => [a.filename, a.contentType])).toEqual([["decision-pi-for-the-lag-bench-gentler.pdf", "application/pdf"]]);
