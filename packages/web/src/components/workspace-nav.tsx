@@ -1,0 +1,37 @@
+import { NavLink } from "react-router";
+
+/** The pages of a workspace that the navigation lists, in order. `to` is relative to /w/:slug. */
+export const WORKSPACE_NAV = [
+  { to: "", label: "Home", end: true, testId: "nav-home" },
+  { to: "plants", label: "Library", end: false, testId: "nav-library" },
+  { to: "sweeps", label: "Sweeps", end: false, testId: "nav-sweeps" },
+  { to: "comparisons", label: "Compare criteria", end: false, testId: "nav-comparisons" },
+] as const;
+
+/**
+ * The workspace's page links as a vertical list: the left column on wide screens and the menu panel on
+ * narrow ones. `onNavigate` runs when a link is followed (the menu panel closes itself with it).
+ */
+export function WorkspaceNav({ base, onNavigate, idPrefix = "" }: { base: string; onNavigate?: () => void; idPrefix?: string }) {
+  return (
+    <ul className="space-y-0.5">
+      {WORKSPACE_NAV.map((item) => (
+        <li key={item.label}>
+          <NavLink
+            to={item.to === "" ? base : `${base}/${item.to}`}
+            end={item.end}
+            onClick={onNavigate}
+            data-testid={`${idPrefix}${item.testId}`}
+            className={({ isActive }) =>
+              `block rounded-md border-l-2 px-3 py-2 text-sm md:py-1.5 ${
+                isActive ? "border-moss bg-moss-wash font-medium text-moss" : "border-transparent text-ink-soft hover:bg-sheet hover:text-ink"
+              }`
+            }
+          >
+            {item.label}
+          </NavLink>
+        </li>
+      ))}
+    </ul>
+  );
+}
