@@ -1,5 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { sql } from "drizzle-orm";
 import { createApp, DEMO_LOAD_SWEEP_NAME, DEMO_PASSWORD, DEMO_SWEEP_NAME, DEMO_USERS, DEMO_WORKSPACE, seedDemo } from "../../packages/server/src/index.js";
+import { DEMO_DECISION_TITLE, DEMO_PROPOSAL_TITLE } from "../../packages/server/src/decisions/decision-demo.js";
+import { DEMO_COMPARISON_NAME } from "../../packages/server/src/comparisons/comparison-demo.js";
 import type { LoopyardApp } from "../../packages/server/src/index.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { ApiClient } from "./api-client.js";
@@ -80,5 +83,34 @@ describe("demo seed", () => {
     const sweep = await jon.get(`/api/workspaces/${DEMO_WORKSPACE.slug}/sweeps/${load.id}`);
     expect(sweep.body.definition).toMatchObject({ structure: "pi", scenario: { kind: "load-step" } });
     expect(sweep.body.parameters).toEqual(["kp", "ki"]);
+  });
+
+  it("when Tomas (lead) opens the demo, then an approved Ember line decision stands and a proposal from the comparison waits for him, with two comments and their mails queued", async () => {
+    const tomas = new ApiClient(server.url);
+    await tomas.signIn("tomas@halvard.example", DEMO_PASSWORD);
+    const base = `/api/workspaces/${DEMO_WORKSPACE.slug}/decisions`;
+    const approved = (await tomas.get(`${base}?state=approved`)).body.find((d: { title: string }) => d.title === DEMO_DECISION_TITLE);
+    expect(approved).toMatchObject({ state: "approved", supersededBy: null, proposedBy: { email: "priya@halvard.example" }, approvedBy: { email: "tomas@halvard.example" } });
+    expect(approved.family.variants.map((v: { plantName: string }) => v.plantName)).toEqual(["Ember 200 plate", "Ember 400 plate", "Ember 800 plate"]);
+    const waiting = await tomas.get(`${base}/waiting`);
+    const proposal = waiting.body.toApprove.find((d: { title: string }) => d.title === DEMO_PROPOSAL_TITLE);
+    expect(proposal).toMatchObject({ state: "proposed", source: { kind: "comparison-pick" }, commentCount: 2 });
+    expect(proposal.family.key).toBe(approved.family.key);
+    const detail = await tomas.get(`${base}/${proposal.id}`);
+    expect(detail.body.comments.map((c: { author: { email: string } }) => c.author.email)).toEqual(["tomas@halvard.example", "priya@halvard.example"]);
+    expect(detail.body.can).toMatchObject({ canApprove: true, canReturn: true });
+    expect(detail.body.record.comparison.name).toBe(DEMO_COMPARISON_NAME);
+
+    // The mails those steps caused, on the mail queue (a serving process sends them into the outbox).
+    const jobs = await loopyard.db.execute(sql`select data from pgboss.job where name = 'mail-send'`);
+    const mails = (jobs.rows as { data: { to: string[]; kind: string; link: string } }[]).map((r) => r.data).filter((m) => m.link.endsWith(`/decisions/${proposal.id}`) || m.link.endsWith(`/decisions/${approved.id}`));
+    const summary = mails.map((m) => `${m.kind} → ${m.to.join(",")}`).sort();
+    expect(summary).toEqual([
+      "decision-approved → priya@halvard.example",
+      "decision-commented → priya@halvard.example",
+      "decision-commented → tomas@halvard.example",
+      "proposal-submitted → tomas@halvard.example",
+      "proposal-submitted → tomas@halvard.example",
+    ]);
   });
 });

@@ -25,7 +25,7 @@ const RUNS = 25;
 
 let server: TestServer;
 let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string };
 let healthWorst = 0;
 let healthWorstDuring = "";
 let phase = "set-up";
@@ -67,6 +67,17 @@ function validBody(route: RouteEntry): Record<string, unknown> | undefined {
       });
     case "POST /api/workspaces/:slug/members":
       return { email: "jon@halvard.example", role: "viewer" };
+    case "POST /api/workspaces/:slug/decisions":
+    case "PUT /api/workspaces/:slug/decisions/:decisionId":
+      return { title: "Fuzz proposal", rationale: "The first candidate of the fuzz sweep.", source: { kind: "sweep-candidate", sweepId: ids.sweepId, candidateIndex: 0 } };
+    case "POST /api/workspaces/:slug/decisions/:decisionId/return":
+    case "POST /api/workspaces/:slug/decisions/:decisionId/comments":
+      return { comment: "Fuzz comment." };
+    case "PUT /api/workspaces/:slug/decision-settings":
+      return { allowSelfApproval: false };
+    case "POST /api/workspaces/:slug/decisions/:decisionId/approve":
+    case "POST /api/workspaces/:slug/decisions/:decisionId/withdraw":
+      return {};
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
@@ -139,19 +150,21 @@ function encode(text: string): string {
 }
 
 function fill(path: string): string {
-  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":index", "0").replace(":sessionId", randomUUID());
+  return path.replace(":slug", team.slug).replace(":plantId", ids.plantId).replace(":sweepId", ids.sweepId).replace(":comparisonId", ids.comparisonId).replace(":decisionId", ids.decisionId).replace(":index", "0").replace(":sessionId", randomUUID());
 }
 
 beforeAll(async () => {
   server = await startTestServer({ limits: { maxCandidates: 1_000, maxConcurrentSweeps: 3 } });
   team = await workspaceWithTeam(server.url, "Fuzz");
   const plant = await team.engineer.post(`/api/workspaces/${team.slug}/plants`, twoLagPlant("Fuzz base"));
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "" };
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: "", comparisonId: "", decisionId: "" };
   const sweep = await team.engineer.post(`/api/workspaces/${team.slug}/sweeps`, validBody({ method: "POST", path: "/api/workspaces/:slug/sweeps", role: "engineer" }));
   ids.sweepId = sweep.body.id;
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, validBody({ method: "POST", path: "/api/workspaces/:slug/comparisons", role: "engineer" }));
   ids.comparisonId = comparison.body.id;
   await waitForSweep(team.viewer, team.slug, ids.sweepId);
+  const decision = await team.engineer.post(`/api/workspaces/${team.slug}/decisions`, validBody({ method: "POST", path: "/api/workspaces/:slug/decisions", role: "engineer" }));
+  ids.decisionId = decision.body.id;
   // /api/health polled all along: its worst time is checked at the end.
   const health = new ApiClient(server.url);
   healthTimer = setInterval(() => {
@@ -202,12 +215,12 @@ describe("fuzzing every input over HTTP", () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...getRoutes),
-        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":index", "?"),
+        fc.constantFrom(":slug", ":plantId", ":sweepId", ":comparisonId", ":decisionId", ":index", "?"),
         segment,
         segment,
         async (route, where, value, query) => {
           const encoded = encode(value);
-          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}` : fill(route.path.replace(where, encoded));
+          const path = where === "?" ? `${fill(route.path)}?x=${encode(query)}&y=${encoded}&criteria=${encoded}&revision=${encoded}&sampleTime=${encode(query)}&method=${encoded}&format=${encoded}` : fill(route.path.replace(where, encoded));
           await probe(team.viewer, "GET", path);
         },
       ),

@@ -27,7 +27,7 @@ let team: Awaited<ReturnType<typeof workspaceWithTeam>>;
 let lead: ApiClient;
 let nonMember: ApiClient;
 let other: Awaited<ReturnType<typeof workspaceWithTeam>>;
-let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; plantName: string; sweepName: string; comparisonName: string };
+let ids: { plantId: string; revisionId: string; sweepId: string; comparisonId: string; decisionId: string; plantName: string; sweepName: string; comparisonName: string; decisionTitle: string };
 
 /** A 2 × 2 PI grid on the two-lag plant, 5 s at 10 ms: four candidates, done in a moment. */
 function tinySweep(name: string, plantRevisionId: string) {
@@ -53,6 +53,11 @@ function tinyComparison(name: string, plantRevisionId: string) {
     constraints: {},
     budget: { prescan: 16, starts: 1, evaluations: 20, stability: false },
   });
+}
+
+/** A proposal of the tiny sweep's first candidate (stable on the two-lag plant). */
+function tinyProposal(title: string) {
+  return { title, rationale: "The matrix's proposal: the first candidate of the tiny sweep.", source: { kind: "sweep-candidate", sweepId: ids.sweepId, candidateIndex: 0 } };
 }
 
 /** The API routes under test: all but better-auth's own (tested in auth and hostile-request tests). */
@@ -82,6 +87,16 @@ async function sampleBody(route: RouteEntry, revisionId: string): Promise<unknow
       return tinySweep("Matrix sweep", revisionId);
     case "POST /api/workspaces/:slug/comparisons":
       return tinyComparison("Matrix comparison", revisionId);
+    case "POST /api/workspaces/:slug/decisions":
+    case "PUT /api/workspaces/:slug/decisions/:decisionId":
+      return tinyProposal("Matrix proposal");
+    case "POST /api/workspaces/:slug/decisions/:decisionId/return":
+    case "POST /api/workspaces/:slug/decisions/:decisionId/comments":
+      return { comment: "Matrix comment: check the margins on the second plate." };
+    case "PUT /api/workspaces/:slug/decision-settings":
+      return { allowSelfApproval: false };
+    case "POST /api/workspaces/:slug/decisions/:decisionId/approve":
+    case "POST /api/workspaces/:slug/decisions/:decisionId/withdraw":
     case "POST /api/workspaces/:slug/sweeps/:sweepId/cancel":
     case "POST /api/workspaces/:slug/comparisons/:comparisonId/cancel":
     case "DELETE /api/me/sessions/:sessionId":
@@ -102,19 +117,31 @@ function fill(path: string, slug: string): string {
     .replace(":plantId", ids.plantId)
     .replace(":sweepId", ids.sweepId)
     .replace(":comparisonId", ids.comparisonId)
+    .replace(":decisionId", ids.decisionId)
     .replace(":index", "0")
     .replace(":sessionId", randomUUID());
 }
 
+/** A query string for each GET route that needs one to answer 2xx (the rest answer without). */
+function sampleQuery(route: RouteEntry): string {
+  switch (`${route.method} ${route.path}`) {
+    case "GET /api/workspaces/:slug/sweeps/:sweepId/candidates/:index/sheet":
+    case "GET /api/workspaces/:slug/decisions/:decisionId/sheet":
+      return "?sampleTime=0.01&method=tustin&format=q15";
+    default:
+      return "";
+  }
+}
+
 async function call(client: ApiClient, route: RouteEntry, slug: string) {
   const body = route.method === "GET" ? undefined : await sampleBody(route, ids.revisionId);
-  return client.request(route.method, fill(route.path, slug), body === undefined ? {} : { json: body });
+  return client.request(route.method, fill(route.path, slug) + sampleQuery(route), body === undefined ? {} : { json: body });
 }
 
 /** Nothing of this workspace in an answer: its name, its plant's and sweep's names and ids (the slug is the caller's own typing). */
 function expectNoLeak(body: unknown): void {
   const text = JSON.stringify(body ?? "");
-  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.plantName, ids.sweepName, ids.comparisonName]) {
+  for (const secret of [team.name, ids.plantId, ids.revisionId, ids.sweepId, ids.comparisonId, ids.decisionId, ids.plantName, ids.sweepName, ids.comparisonName, ids.decisionTitle]) {
     expect(text).not.toContain(secret);
   }
 }
@@ -137,7 +164,12 @@ beforeAll(async () => {
   const comparison = await team.engineer.post(`/api/workspaces/${team.slug}/comparisons`, tinyComparison(comparisonName, plant.body.revision.id));
   expect(comparison.status, JSON.stringify(comparison.body)).toBe(201);
   await waitForComparison(team.viewer, team.slug, comparison.body.id);
-  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, comparisonId: comparison.body.id, plantName, sweepName, comparisonName };
+  ids = { plantId: plant.body.plant.id, revisionId: plant.body.revision.id, sweepId: sweep.body.id, comparisonId: comparison.body.id, decisionId: "", plantName, sweepName, comparisonName, decisionTitle: "" };
+  // The engineer proposes, so that the lead's and the admin's approval pass the four-eyes rule.
+  ids.decisionTitle = `Matrix secret proposal ${randomUUID().slice(0, 8)}`;
+  const decision = await team.engineer.post(`/api/workspaces/${team.slug}/decisions`, tinyProposal(ids.decisionTitle));
+  expect(decision.status, JSON.stringify(decision.body)).toBe(201);
+  ids.decisionId = decision.body.id;
 }, 120_000);
 
 afterAll(async () => {
@@ -183,7 +215,7 @@ describe("route × role matrix", () => {
     it(`${name}: member of another workspace with this workspace's ids → 404 or their own data only`, async () => {
       const response = await call(other.admin, route, other.slug);
       expect(response.status, JSON.stringify(response.body)).toBeLessThan(500);
-      if (/:plantId|:sweepId|:comparisonId/.test(route.path)) expect(response.status).toBe(404);
+      if (/:plantId|:sweepId|:comparisonId|:decisionId/.test(route.path)) expect(response.status).toBe(404);
       if (route.method === "POST" && /\/(sweeps|comparisons)$/.test(route.path)) expect(response.status).toBeGreaterThanOrEqual(400);
       expectNoLeak(response.body);
     });

@@ -5,7 +5,7 @@
 import { randomBytes } from "node:crypto";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
-import { createApp, type RateLimits } from "../../packages/server/src/index.js";
+import { createApp, type MailConfig, type RateLimits } from "../../packages/server/src/index.js";
 
 export interface TestServer {
   /** Base URL, e.g. http://127.0.0.1:39123 (no trailing slash). */
@@ -31,6 +31,8 @@ export interface TestServerOptions {
   databaseUrl?: string;
   /** Chunk job expiry [s] (default 120). */
   chunkExpireSeconds?: number;
+  /** How this server sends mail (e.g. to a test's own sink); default none: mail is queued, not sent. */
+  mail?: MailConfig;
 }
 
 /** Every limit on, at 10,000 requests a minute: tests sign up many users from 127.0.0.1. */
@@ -65,6 +67,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     ...(options.limits === undefined ? {} : { limits: options.limits }),
     rateLimits: options.rateLimits ?? TEST_RATE_LIMITS,
     ...(options.chunkExpireSeconds === undefined ? {} : { chunkExpireSeconds: options.chunkExpireSeconds }),
+    ...(options.mail === undefined ? {} : { mail: options.mail }),
     // One line per 5xx only; a passing run stays quiet.
     requestLogLevel: "warn",
   });

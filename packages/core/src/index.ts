@@ -69,6 +69,72 @@ export type { PointsBinaryColumns, PointsHeader } from "./api/points-binary.js";
 export { comparisonInputSchema } from "./api/comparison-input.js";
 export type { ComparisonInput } from "./api/comparison-input.js";
 export type * from "./api/comparison-dto.js";
+// Proposals and decisions: request bodies, DTOs and the versioned decision record.
+export {
+  BASELINE_RULE_IDS,
+  BASELINE_VARIANT_IDS,
+  DECISION_RECORD_FORMAT,
+  DECISION_RECORD_VERSION,
+  DECISION_STATES,
+  FROZEN_DECISION_STATES,
+  MAX_COMMENT_LENGTH,
+  MAX_RATIONALE_LENGTH,
+  SAFETY_CAUTION,
+  decisionCommentSchema,
+  decisionListQuerySchema,
+  decisionProposalSchema,
+  decisionRecordSchema,
+  decisionReturnSchema,
+  decisionSettingsSchema,
+  decisionSourceSchema,
+  decisionStateSchema,
+  isFrozenDecision,
+  readDecisionRecord,
+} from "./schemas/decision.js";
+export type {
+  DecisionCommentDto,
+  DecisionCommentInput,
+  DecisionContent,
+  DecisionDetailDto,
+  DecisionEventDto,
+  DecisionEventKind,
+  DecisionFamilyDto,
+  DecisionListItemDto,
+  DecisionPermissionsDto,
+  DecisionProposal,
+  DecisionProposalInput,
+  DecisionRecord,
+  DecisionRecordComparison,
+  DecisionRecordIssue,
+  DecisionRecordVariant,
+  DecisionReturn,
+  DecisionSettingsDto,
+  DecisionSettingsInput,
+  DecisionSource,
+  DecisionState,
+  DecisionVariantDto,
+  DecisionWaitingDto,
+} from "./schemas/decision.js";
+// Mail: the kinds of message, notification settings and the outbox over the API.
+export {
+  ACCOUNT_MAIL_KINDS,
+  MAIL_KINDS,
+  MAIL_KIND_LABELS,
+  SECRET_MAIL_KINDS,
+  isAccountMailKind,
+  isMailKind,
+  notificationSettingsInputSchema,
+} from "./api/mail-kinds.js";
+export type {
+  AccountMailKind,
+  MailKind,
+  NotificationSettingDto,
+  NotificationSettingsDto,
+  NotificationSettingsInput,
+  OutboxDto,
+  OutboxMessageDto,
+  OutboxMessageSummaryDto,
+} from "./api/mail-kinds.js";
 
 // Linear algebra.
 export { polynomialRoots } from "./linear-algebra/polynomial-roots.js";
@@ -468,6 +534,14 @@ export { simulateSampledLoop } from "./deployment/simulate-sampled-loop.js";
 export { deploymentSheet } from "./deployment/deployment-sheet.js";
 export { differenceEquations } from "./deployment/difference-equations.js";
 export { sampledCriteria } from "./deployment/sampled-criteria.js";
+export { discretePidRealization } from "./deployment/discrete-pid-realization.js";
+export { DEPLOYMENT_CAUTION, DeploymentSheetError } from "./deployment/deployment-design.js";
+export { buildDeploymentSheet, MAX_SAMPLE_TIME_FRACTION } from "./deployment/build-deployment-sheet.js";
+export { discreteControllerLoopStability } from "./stability/sampled-loop-stability.js";
+export type { DeploymentDesign, DeploymentSheetRequest, DeploymentVariant } from "./deployment/deployment-design.js";
+export type { DiscreteStateSpaceController } from "./stability/sampled-loop-stability.js";
+export type * from "./api/deployment-sheet-dto.js";
+export { candidateCsvHeader, criterionColumn, csvNumber, parameterColumn, withUnit } from "./api/csv-columns.js";
 export type { DeployablePid } from "./deployment/deployable-pid.js";
 export type { PidForm, PidForms, SeriesPidParameters } from "./deployment/pid-forms.js";
 export type { DiscretePid, DiscretePidCoefficients, DiscretizationMethod } from "./deployment/discrete-pid.js";

@@ -22,11 +22,25 @@ import { meRoutes } from "./me/me-routes.js";
 import { plantRoutes } from "./plants/plant-routes.js";
 import { createSweepJobSystem, type SweepJobSystem } from "./jobs/sweep-job-system.js";
 import { sweepRoutes } from "./sweeps/sweep-routes.js";
+import { exportRoutes } from "./exports/export-routes.js";
 import { DEFAULT_SWEEP_LIMITS } from "./sweeps/sweep-service.js";
 import { workspaceRoutes } from "./workspaces/workspace-routes.js";
 // Comparisons: criteria pitted against each other, as jobs of their own queues.
 import { createComparisonJobSystem, type ComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { comparisonRoutes } from "./comparisons/comparison-routes.js";
+// Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
+import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
+// Decisions: proposals, a lead's approval, the audit trail and the record.
+import { createDecisionMailer, type DecisionPdfForMail } from "./decisions/decision-mailer.js";
+import { decisionRoutes } from "./decisions/decision-routes.js";
+import { decisionSettingsRoutes } from "./decisions/decision-settings-routes.js";
+import type { DecisionDeps } from "./decisions/decision-service.js";
+
+/**
+ * The hook that attaches a decision record's PDF to the approval mail: null until the deployment
+ * sheet's PDF renderer is wired here (then the approval mail carries the record).
+ */
+const decisionRecordPdfForMail: DecisionPdfForMail | null = null;
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -42,6 +56,8 @@ export interface LoopyardApp {
   jobs: SweepJobSystem;
   /** Comparisons as pg-boss jobs, with the embedded comparison worker unless turned off. */
   comparisonJobs: ComparisonJobSystem;
+  /** Outgoing mail: queue(message) and notify({userIds, kind, data}) from routes and services. */
+  mail: MailSystem;
   /** Stops the embedded worker (running chunks finish) and pg-boss, then closes the database pool. */
   close(): Promise<void>;
 }
@@ -71,6 +87,7 @@ export function createApp(config: AppConfig): LoopyardApp {
     ...(config.workerThreads === undefined ? {} : { workerThreads: config.workerThreads }),
     ...(config.chunkExpireSeconds === undefined ? {} : { expireSeconds: config.chunkExpireSeconds }),
   });
+  const mail = createMailSystem(db, config.databaseUrl, config.mail ?? null, comparisonJobs.ready);
 
   const sessions = new SessionCache();
   void loadCommonPasswords();
@@ -113,12 +130,21 @@ export function createApp(config: AppConfig): LoopyardApp {
   app.use("/api", requireSession(auth, sessions));
   app.use("/api/me", meRoutes(db, sessions));
   app.use("/api/workspaces/:slug/plants", plantRoutes(db, compute));
+  app.use("/api/workspaces/:slug", exportRoutes(db, database.pool));
   app.use("/api/workspaces/:slug/sweeps/:sweepId/candidates/:index", candidateIndexGuard);
   app.use(
     "/api/workspaces/:slug/sweeps",
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
+  const decisionMailer = createDecisionMailer(db, mail, config.publicUrl, decisionRecordPdfForMail);
+  const decisions: DecisionDeps = {
+    db,
+    compute,
+    notify: (notice) => background.run(`mailing the ${notice.kind} notice of decision ${notice.decisionId}`, async () => void (await decisionMailer(notice))),
+  };
+  app.use("/api/workspaces/:slug/decisions", decisionRoutes(decisions));
+  app.use("/api/workspaces/:slug/decision-settings", decisionSettingsRoutes(db));
   app.use("/api/workspaces", workspaceRoutes(db));
   app.use("/api", apiNotFound);
 
@@ -136,8 +162,12 @@ export function createApp(config: AppConfig): LoopyardApp {
     db,
     jobs,
     comparisonJobs,
+    mail,
     close() {
       closing ??= (async () => {
+        // Background tasks first: they may still queue mail (a decision's notices).
+        await background.settle();
+        await mail.close();
         await comparisonJobs.close();
         await jobs.close();
         await background.settle();

@@ -10,7 +10,9 @@
  * Environment: DATABASE_URL, PORT, HOST, LOOPYARD_AUTH_SECRET, LOOPYARD_PUBLIC_URL, LOOPYARD_WEB_DIST,
  * LOOPYARD_MIGRATIONS_DIR, LOOPYARD_TRUSTED_ORIGINS (comma-separated extra origins, e.g. a Vite dev server),
  * LOOPYARD_EMBEDDED_WORKER (0: serve without a worker), LOOPYARD_WORKER_THREADS, LOOPYARD_CHUNK_EXPIRE_SECONDS,
- * LOOPYARD_MAX_CANDIDATES, LOOPYARD_MAX_CONCURRENT_SWEEPS.
+ * LOOPYARD_MAX_CANDIDATES, LOOPYARD_MAX_CONCURRENT_SWEEPS; mail: SMTP_URL (a real server), else the local sink
+ * that `serve` starts on 127.0.0.1:LOOPYARD_SMTP_PORT (default 2525) writing into LOOPYARD_MAIL_DIR
+ * (default .data/mail), LOOPYARD_MAIL_FROM, LOOPYARD_MAIL_RETRY_DELAY_SECONDS.
  */
 import type { Server } from "node:http";
 import { createApp } from "./app.js";
@@ -26,6 +28,10 @@ import { resumeSweepJobs } from "./sweeps/sweep-jobs.js";
 import { startSweepWorker } from "./workers/sweep-worker.js";
 import { createComparisonJobSystem } from "./comparisons/comparison-job-system.js";
 import { seedDemoComparison } from "./comparisons/comparison-demo.js";
+import { startMailSink, type MailSink } from "./mail/mail-sink.js";
+import { createMailSystem } from "./mail/mail-system.js";
+import { seedDemoDecisions } from "./decisions/decision-demo.js";
+import { createDecisionMailer } from "./decisions/decision-mailer.js";
 
 const USAGE = "Usage: node packages/server/dist/cli.js <migrate|seed|serve|worker>";
 
@@ -51,7 +57,7 @@ async function seedCommand(): Promise<void> {
   const databaseUrl = process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL;
   // Seeding creates no sessions anyone uses, so a throwaway secret is fine when none is given.
   const authSecret = process.env.LOOPYARD_AUTH_SECRET ?? "seed-only-secret-not-used-for-any-session-0000";
-  const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? "http://127.0.0.1:4470";
+  const publicUrl = process.env.LOOPYARD_PUBLIC_URL ?? `http://127.0.0.1:${process.env.PORT ?? 4470}`;
   const database = createDatabase(databaseUrl, { max: 6 });
   // The demo sweeps run as jobs like any other; this process works them (and what else is pending) until they are done.
   const jobs = createSweepJobSystem(database.db, databaseUrl, { embeddedWorker: true, resume: false });
@@ -60,11 +66,19 @@ async function seedCommand(): Promise<void> {
     const report = await seedDemo(database.db, auth, jobs);
     // The demo comparison runs through the comparison queues, like any other.
     const comparisonCreated = await seedDemoComparison(database.db, databaseUrl);
-    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated);
+    // The demo decisions go through the decision services; their mails are queued here and sent by `serve` (its sink keeps them in the outbox).
+    const mail = createMailSystem(database.db, databaseUrl, null);
+    let decisionsCreated = false;
+    try {
+      decisionsCreated = await seedDemoDecisions(database.db, createDecisionMailer(database.db, mail, publicUrl, null));
+    } finally {
+      await mail.close();
+    }
+    const changed = report.usersCreated + report.membershipsAdded + report.plantsCreated + Number(report.workspaceCreated) + report.sweepsCreated + Number(comparisonCreated) + Number(decisionsCreated);
     console.log(
       changed === 0
         ? "Demo data already present; nothing changed."
-        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps, ${Number(comparisonCreated)} comparison.`,
+        : `Demo data seeded: ${report.usersCreated} users, ${report.membershipsAdded} memberships, ${report.plantsCreated} plants, ${report.sweepsCreated} sweeps, ${Number(comparisonCreated)} comparison, ${decisionsCreated ? "2 decisions" : "no decisions"}.`,
     );
     printDemoSignIns();
   } finally {
@@ -76,6 +90,21 @@ async function seedCommand(): Promise<void> {
 async function serveCommand(): Promise<void> {
   installCrashGuard();
   const config = configFromEnv();
+  // The local mail sink lives in the serving process when no SMTP_URL is given.
+  let sink: MailSink | null = null;
+  if (config.mail?.sink) {
+    const { host, port, folder } = config.mail.sink;
+    try {
+      sink = await startMailSink({ host, port, folder });
+      console.log(`Mail sink on smtp://${host}:${sink.port}; outbox folder ${folder}`);
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      if (code !== "EADDRINUSE") throw error;
+      console.warn(
+        `Port ${port} is taken, so this server starts no mail sink; mail goes to whatever listens on ${host}:${port}. Set LOOPYARD_SMTP_PORT to a free port, or SMTP_URL to a real server.`,
+      );
+    }
+  }
   const loopyard = createApp(config);
   const server: Server = await new Promise((resolve, reject) => {
     const listening = loopyard.app.listen(config.port, config.host, (error?: Error) => (error ? reject(error) : resolve(listening)));
@@ -93,6 +122,7 @@ async function serveCommand(): Promise<void> {
     server.closeAllConnections();
     loopyard
       .close()
+      .then(() => sink?.close())
       .then(() => process.exit(0))
       .catch((error: unknown) => {
         console.error("Stopping failed:", error);

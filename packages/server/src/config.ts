@@ -2,6 +2,7 @@ import { DEFAULT_MAX_CONCURRENT_SWEEPS, MAX_SWEEP_CANDIDATES } from "@loopyard/c
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { DEFAULT_RATE_LIMITS, type RateLimits } from "./http/rate-limits.js";
+import { mailConfigFromEnv, MailConfigError, type MailConfig } from "./mail/mail-config.js";
 
 /** What createApp needs to run; every field comes from the environment in the CLI. */
 export interface AppConfig {
@@ -29,6 +30,11 @@ export interface AppConfig {
   rateLimits?: RateLimits;
   /** Level of the per-request log lines (default "info"; LOOPYARD_LOG_LEVEL sets every log line's). */
   requestLogLevel?: "fatal" | "error" | "warn" | "info" | "debug" | "trace" | "silent";
+  /**
+   * How mail is sent (SMTP_URL, or the local sink's address) and where the local sink's .eml files
+   * are (the outbox). Absent: messages are queued, but this process sends none.
+   */
+  mail?: MailConfig | null;
 }
 
 /** Settings of the command-line entry point on top of AppConfig. */
@@ -105,10 +111,18 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): ServerConfi
     betterAuthCredentials: { windowSeconds: 60, max: Math.max(attemptsPerMinute, DEFAULT_RATE_LIMITS.betterAuthCredentials.max) },
     betterAuth: { windowSeconds: 60, max: Math.max(attemptsPerMinute, DEFAULT_RATE_LIMITS.betterAuth.max) },
   };
+  let mail: MailConfig;
+  try {
+    mail = mailConfigFromEnv(env, REPO_ROOT);
+  } catch (error) {
+    if (error instanceof MailConfigError) throw new ConfigError(error.message);
+    throw error;
+  }
   const workerThreads = env.LOOPYARD_WORKER_THREADS ? wholeNumber("LOOPYARD_WORKER_THREADS", 1, 0) : undefined;
   return {
     limits,
     rateLimits,
+    mail,
     embeddedWorker: env.LOOPYARD_EMBEDDED_WORKER !== "0",
     chunkExpireSeconds: wholeNumber("LOOPYARD_CHUNK_EXPIRE_SECONDS", 120, 1),
     ...(workerThreads === undefined ? {} : { workerThreads }),

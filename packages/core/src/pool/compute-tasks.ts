@@ -22,6 +22,10 @@ import type { SweepShape } from "../sweeps/sweep-input.js";
 import { downsampleIndices, pick } from "../traces/downsample-trace.js";
 import type { ReferencesDto } from "../api/dto.js";
 import { sweepReferences, type SweepReferencesInput } from "./sweep-references-task.js";
+import type { DeploymentSheetDto } from "../api/deployment-sheet-dto.js";
+import { buildDeploymentSheet } from "../deployment/build-deployment-sheet.js";
+import { DeploymentSheetError, type DeploymentDesign, type DeploymentSheetRequest } from "../deployment/deployment-design.js";
+import { baselineScores, type BaselineScores, type BaselineScoresInput } from "./baseline-scores-task.js";
 
 /**
  * Why a task gave no value: "budget" (its work budget ran out), "time" (its time limit passed; set
@@ -55,6 +59,10 @@ export interface ComputeTasks {
   candidateFrequency: { input: CandidateTaskInput & { weight?: SensitivityWeight }; output: ThinFrequencyResponse };
   /** A sweep's bound curve and tuning-rule baselines (sweep-references-task.ts). */
   sweepReferences: { input: SweepReferencesInput; output: ReferencesDto };
+  /** A design's deployment sheet at the reader's sample time, method and format (buildDeploymentSheet). */
+  deploymentSheet: { input: { design: DeploymentDesign; request: DeploymentSheetRequest }; output: DeploymentSheetDto };
+  /** A tuning rule's controller of a sweep scored on every variant (baseline-scores-task.ts), for a decision's record. */
+  baselineScores: { input: BaselineScoresInput; output: BaselineScores };
 }
 
 export type ComputeTaskName = keyof ComputeTasks;
@@ -88,6 +96,8 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
     return thinFrequencyResponse(response);
   },
   sweepReferences,
+  deploymentSheet: ({ design, request }) => buildDeploymentSheet(design, request),
+  baselineScores,
 };
 
 function candidateLoop({ definition, models, params, variant }: CandidateTaskInput) {
@@ -110,9 +120,10 @@ export function runComputeTask<K extends ComputeTaskName>(request: ComputeReques
     return done.ok ? { ok: true, value: done.value } : { ok: false, kind: "budget", reason: done.reason };
   } catch (error) {
     if (error instanceof IllPosedLoopError) return { ok: false, kind: "ill-posed", reason: error.message };
-    if (error instanceof ExpressionError || error instanceof DeclaredNameError || error instanceof SweepPlanError) {
+    if (error instanceof ExpressionError || error instanceof DeclaredNameError || error instanceof SweepPlanError || error instanceof DeploymentSheetError) {
       const field = (error as { field?: string }).field;
-      return { ok: false, kind: "refused", reason: error.message, error: error.name, ...(field ? { field } : {}) };
+      const invalid = error instanceof DeploymentSheetError && error.kind === "invalid";
+      return { ok: false, kind: "refused", reason: error.message, error: invalid ? "DeploymentSheetInvalid" : error.name, ...(field ? { field } : {}) };
     }
     if (error instanceof RangeError || error instanceof TypeError) return { ok: false, kind: "refused", reason: error.message, error: error.name };
     throw error;

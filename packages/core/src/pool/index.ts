@@ -6,3 +6,4 @@ export type { ComputeLimits, ComputePool, ComputePoolConfig } from "./compute-po
 export { runComputeTask } from "./compute-tasks.js";
 export type { CandidateTaskInput, ComputeFailure, ComputeOutcome, ComputeRequest, ComputeTaskName, ComputeTasks, PlantPreview } from "./compute-tasks.js";
 export type { SweepReferencesInput } from "./sweep-references-task.js";
+export type { BaselineScores, BaselineScoresInput } from "./baseline-scores-task.js";

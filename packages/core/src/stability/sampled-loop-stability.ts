@@ -239,3 +239,63 @@ function polynomialAddAligned(a: readonly number[], b: readonly number[]): numbe
   for (let i = 0; i < b.length; i++) out[size - b.length + i] += b[i];
   return out;
 }
+
+/**
+ * A discrete-time controller in state space, from the measurement y to the output u, updated once
+ * per sample: x_c,k+1 = A x_c,k + B y_k,  u_k = C x_c,k + D y_k (A: n × n row-major).
+ */
+export interface DiscreteStateSpaceController {
+  n: number;
+  a: Float64Array;
+  b: Float64Array;
+  c: Float64Array;
+  d: number;
+}
+
+/**
+ * Stability of the closed loop of a linear plant with dead time (zero-order hold at h, as in
+ * sampledLoopStability) and a controller that is ALREADY discrete (its difference equations, e.g. a
+ * PID discretised by Tustin or backward Euler): the same closed-loop matrix and characteristic
+ * polynomial, with the controller's (A, B, C, D) taken as they are instead of the ZOH sampling of
+ * a continuous realisation. Actuator limits are ignored (the verdict is the local one).
+ * References: as sampledLoopStability (Åström & Wittenmark 1997, §2.3 and §3.2).
+ */
+export function discreteControllerLoopStability(
+  plant: SisoStateSpace,
+  delay: number,
+  sampleTime: number,
+  controller: DiscreteStateSpaceController,
+  options: { method?: "eigenvalues" | "schur-cohn" } = {},
+): SampledLoopVerdict {
+  const h = sampleTime;
+  if (!(h > 0) || !Number.isFinite(h)) throw new RangeError(`sampleTime must be a finite time > 0 s, got ${String(h)}`);
+  const realization: ControllerRealization = {
+    n: controller.n,
+    a: new Float64Array(controller.n * controller.n),
+    br: new Float64Array(controller.n),
+    by: new Float64Array(controller.n),
+    c: controller.c,
+    dr: 0,
+    dy: controller.d,
+    kx: null,
+    integrator: -1,
+    ki: 0,
+    trackingTime: Number.NaN,
+  };
+  const loop: SampledLoop = { plant, delay, controller: realization, sampleTime: h };
+  const { m, phi } = splitDelay(delay, h);
+  const delta = phi > 0 ? 1 : 0;
+  const lags = m + delta;
+  const order = plant.n + controller.n + lags;
+  if (lags === 0 && !isWellPosedLoop(-controller.d, plant.d)) return { stable: false, poles: [], method: "eigenvalues" };
+  if (order > MAX_SAMPLED_ORDER) return { stable: null, poles: [], method: "too-large" };
+  const plantSteps = plantDiscretisation(plant, h, phi);
+  const controllerStep = { phi: controller.a, gamma: controller.b };
+  const method = options.method ?? (order <= MAX_SAMPLED_EIGEN_ORDER ? "eigenvalues" : "schur-cohn");
+  if (method === "eigenvalues") {
+    const poles = matrixEigenvalues(closedLoopMatrix(loop, plantSteps, controllerStep, m, delta));
+    const limit = 1 - SAMPLED_STABILITY_TOLERANCE;
+    return { stable: poles.every((z) => Math.hypot(z.re, z.im) < limit), poles, method: "eigenvalues" };
+  }
+  return { stable: isSchurStable(characteristicPolynomial(loop, plantSteps, controllerStep, lags)), poles: [], method: "schur-cohn" };
+}

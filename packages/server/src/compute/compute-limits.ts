@@ -14,6 +14,11 @@ export const COMPUTE_LIMITS: Record<ComputeTaskName, ComputeLimits> = {
   candidateFrequency: { budget: { evaluations: 1_000 }, timeLimitMs: 10_000 },
   // Every tuning rule scored on every variant: several closed-loop simulations per variant.
   sweepReferences: { budget: { evaluations: 20_000_000 }, timeLimitMs: 30_000 },
+  // A deployment sheet: per variant one continuous evaluation and two sampled re-simulations
+  // (linear plants: bounded by MAX_SIMULATION_SAMPLES per run), plus the stability verdicts.
+  deploymentSheet: { budget: { evaluations: 4_000_000 }, timeLimitMs: 20_000 },
+  // One tuning rule scored on every variant: one closed-loop simulation per variant.
+  baselineScores: { budget: { evaluations: 4_000_000 }, timeLimitMs: 15_000 },
 };
 
 /** Worker threads of the web server's compute pool (the sweep worker has its own pool). */

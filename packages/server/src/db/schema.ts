@@ -20,6 +20,7 @@ import {
   text,
   timestamp,
   unique,
+  uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
 
@@ -366,4 +367,124 @@ export const comparisonPick = pgTable(
   (table) => [primaryKey({ columns: [table.comparisonId, table.contender] })],
 );
 
+// ---------------------------------------------------------------- decisions (proposals, approvals, audit trail)
+
+/** Mirrors DECISION_STATES in @loopyard/core. */
+export const decisionStateEnum = pgEnum("decision_state", ["proposed", "returned", "approved", "superseded", "withdrawn"]);
+
+/** Mirrors DecisionEventKind in @loopyard/core. */
+export const decisionEventKindEnum = pgEnum("decision_event_kind", ["proposed", "revised", "returned", "commented", "approved", "superseded", "withdrawn"]);
+
+/**
+ * A proposal and, once a lead approved it, a decision. source: the DecisionSource as proposed
+ * (sweep candidate, comparison pick or baseline); content: the DecisionContent snapshot taken when
+ * it was proposed or last revised (family revisions with models, controller, scenario, evaluation
+ * options, every criterion per variant, the comparison's row). family_key: decisionFamilyKey of its
+ * family; approving supersedes the family's approved decision. The sweep or comparison it came from
+ * is referenced without cascade (checked at the end of the statement, so a whole workspace can still go), so neither can be deleted while a decision points at it; approved
+ * and superseded rows are frozen (the service refuses every change with 409).
+ */
+export const decision = pgTable(
+  "decision",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    workspaceId: uuid("workspace_id")
+      .notNull()
+      .references(() => workspace.id, { onDelete: "cascade" }),
+    title: text("title").notNull(),
+    rationale: text("rationale").notNull(),
+    state: decisionStateEnum("state").notNull().default("proposed"),
+    source: jsonb("source").notNull(),
+    content: jsonb("content").notNull(),
+    familyKey: text("family_key").notNull(),
+    sweepId: uuid("sweep_id").references(() => sweep.id),
+    comparisonId: uuid("comparison_id").references(() => comparison.id),
+    proposedBy: text("proposed_by")
+      .notNull()
+      .references(() => user.id),
+    proposedAt: timestamp("proposed_at", { withTimezone: true }).defaultNow().notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+    approvedBy: text("approved_by").references(() => user.id),
+    approvedAt: timestamp("approved_at", { withTimezone: true }),
+    supersedes: uuid("supersedes"),
+    supersededBy: uuid("superseded_by"),
+    supersededAt: timestamp("superseded_at", { withTimezone: true }),
+  },
+  (table) => [
+    index("decision_workspace_updated_idx").on(table.workspaceId, table.updatedAt),
+    index("decision_family_idx").on(table.workspaceId, table.familyKey, table.state),
+    // At most one approved decision per family: a second approval must supersede the first.
+    uniqueIndex("decision_one_approved_per_family").on(table.workspaceId, table.familyKey).where(sql`${table.state} = 'approved'`),
+  ],
+);
+
+/** The plant revisions a decision rests on (its family), so that none of them can be deleted while it stands. */
+export const decisionRevision = pgTable(
+  "decision_revision",
+  {
+    decisionId: uuid("decision_id")
+      .notNull()
+      .references(() => decision.id, { onDelete: "cascade" }),
+    plantRevisionId: uuid("plant_revision_id")
+      .notNull()
+      .references(() => plantRevision.id),
+  },
+  (table) => [primaryKey({ columns: [table.decisionId, table.plantRevisionId] }), index("decision_revision_revision_idx").on(table.plantRevisionId)],
+);
+
+/**
+ * The audit trail of a decision: every state change and comment with who and when, inserted and
+ * never updated or deleted by the app. from_state/to_state: null for a comment. details: what a
+ * revision changed, or the decision that superseded / was superseded.
+ */
+export const decisionEvent = pgTable(
+  "decision_event",
+  {
+    id: integer("id").primaryKey().generatedAlwaysAsIdentity(),
+    decisionId: uuid("decision_id")
+      .notNull()
+      .references(() => decision.id, { onDelete: "cascade" }),
+    kind: decisionEventKindEnum("kind").notNull(),
+    actorId: text("actor_id")
+      .notNull()
+      .references(() => user.id),
+    at: timestamp("at", { withTimezone: true }).defaultNow().notNull(),
+    fromState: decisionStateEnum("from_state"),
+    toState: decisionStateEnum("to_state"),
+    comment: text("comment"),
+    details: jsonb("details"),
+  },
+  (table) => [index("decision_event_decision_idx").on(table.decisionId, table.id)],
+);
+
+/** Per-workspace rules of decisions, changed by admins; a workspace without a row has the defaults. */
+export const decisionSetting = pgTable("decision_setting", {
+  workspaceId: uuid("workspace_id")
+    .primaryKey()
+    .references(() => workspace.id, { onDelete: "cascade" }),
+  /** Whether a lead may approve their own proposal (the four-eyes rule off). */
+  allowSelfApproval: boolean("allow_self_approval").notNull().default(false),
+  updatedBy: text("updated_by").references(() => user.id),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).defaultNow().notNull(),
+});
+
 export const authSchema = { user, session, account, verification };
+
+// ---------------------------------------------------------------- mail: notification settings
+
+/**
+ * One person's choice for one kind of mail (core MAIL_KINDS). No row means the kind is on; account
+ * kinds (invitation, password reset, address check) are always sent whatever is stored here.
+ */
+export const notificationSetting = pgTable(
+  "notification_setting",
+  {
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    enabled: boolean("enabled").notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.userId, table.kind] })],
+);

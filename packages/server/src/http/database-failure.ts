@@ -55,6 +55,11 @@ export function databaseFailure(error: unknown): { error: HttpError; retryAfter?
         retryAfter: DATABASE_RETRY_AFTER_SECONDS,
       };
     }
+    // foreign_key_violation on a decision's reference: a delete of what a decision rests on (assertNotPinnedByDecision says which first).
+    const constraint = (item as { constraint?: unknown }).constraint;
+    if (code === "23503" && typeof constraint === "string" && constraint.startsWith("decision")) {
+      return { error: new HttpError(409, "A recorded decision rests on this, so it cannot be deleted; decisions keep their revisions, sweeps and comparisons as they were.") };
+    }
     if (code === "22021" || code === "22P05" || code === "22P02" || code === "22003" || code === "54000") {
       return { error: new HttpError(400, "A value in the request cannot be stored (a character, number or size out of range); correct it and try again.") };
     }

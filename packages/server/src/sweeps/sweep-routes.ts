@@ -23,6 +23,7 @@ import {
 import { getCandidateFrequency, getReferences, prepareReferences } from "./sweep-reference-service.js";
 import type { BackgroundTasks } from "../http/background-tasks.js";
 import { getPointsBinary, getPointsJson } from "./sweep-points-service.js";
+import { getCandidateSheet, sheetQuerySchema } from "../deployment/sheet-service.js";
 
 const frontQuerySchema = z.object({
   x: z.string({ error: "give one criterion" }).optional(),
@@ -125,6 +126,13 @@ export function sweepRoutes(db: Database, jobs: SweepJobControl, limits: SweepLi
     const index = candidateIndex(req.params.index);
     const { variant } = parseQuery(variantQuerySchema, req);
     res.json(await getCandidateFrequency(db, compute, accessOf(req), sweepIdOf(req.params.sweepId), index, variant));
+  });
+
+  // DeploymentSheetDto: the candidate's controller in the forms firmware needs (?sampleTime=&method=&format=).
+  router.get("/:sweepId/candidates/:index/sheet", canRead, async (req, res) => {
+    const index = candidateIndex(req.params.index);
+    const query = parseQuery(sheetQuerySchema, req);
+    res.json(await getCandidateSheet(db, compute, accessOf(req), sweepIdOf(req.params.sweepId), index, query));
   });
 
   return router;
