@@ -13,6 +13,8 @@ import { ComparisonDetailPage } from "./features/comparisons/comparison-detail-p
 import { ComparisonListPage } from "./features/comparisons/comparison-list-page.js";
 import { ComparisonNewPage } from "./features/comparisons/comparison-new-page.js";
 import { ComparisonsAcrossPage } from "./features/comparisons/comparisons-across-page.js";
+import { DecisionDetailPage } from "./features/decisions/decision-detail-page.js";
+import { DecisionListPage } from "./features/decisions/decision-list-page.js";
 import { CreateWorkspacePage } from "./features/workspace/create-workspace-page.js";
 import { NotFoundPage } from "./features/workspace/not-found-page.js";
 import { RootRedirect } from "./features/workspace/root-redirect.js";
@@ -44,6 +46,8 @@ export const router = createBrowserRouter([
           { path: "comparisons/new", element: <ComparisonNewPage /> },
           { path: "comparisons/across", element: <ComparisonsAcrossPage /> },
           { path: "comparisons/:comparisonId", element: <ComparisonDetailPage /> },
+          { path: "decisions", element: <DecisionListPage /> },
+          { path: "decisions/:decisionId", element: <DecisionDetailPage /> },
           { path: "*", element: <NotFoundPage inWorkspace /> },
         ],
       },

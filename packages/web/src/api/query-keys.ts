@@ -22,4 +22,9 @@ export const queryKeys = {
   comparisonResult: (slug: string, id: string) => ["workspace", slug, "comparisons", id, "result"] as const,
   comparisonResponses: (slug: string, id: string, variant: number | null) => ["workspace", slug, "comparisons", id, "responses", variant ?? "worst"] as const,
   comparisonsAcross: (slug: string, judge: string) => ["workspace", slug, "comparisons", "across", judge] as const,
+  // Proposals and decisions.
+  decisions: (slug: string) => ["workspace", slug, "decisions"] as const,
+  decisionList: (slug: string, state: string, family: string) => ["workspace", slug, "decisions", "list", state, family] as const,
+  decisionsWaiting: (slug: string) => ["workspace", slug, "decisions", "waiting"] as const,
+  decision: (slug: string, id: string) => ["workspace", slug, "decisions", "one", id] as const,
 };

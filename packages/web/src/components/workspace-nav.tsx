@@ -6,6 +6,7 @@ export const WORKSPACE_NAV = [
   { to: "plants", label: "Library", end: false, testId: "nav-library" },
   { to: "sweeps", label: "Sweeps", end: false, testId: "nav-sweeps" },
   { to: "comparisons", label: "Compare criteria", end: false, testId: "nav-comparisons" },
+  { to: "decisions", label: "Decisions", end: false, testId: "nav-decisions" },
 ] as const;
 
 /**

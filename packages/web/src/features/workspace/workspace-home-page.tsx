@@ -8,6 +8,7 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { ProgressBar } from "../../components/progress-bar.js";
 import { Section } from "../../components/section.js";
+import { WaitingCard } from "../decisions/waiting-card.js";
 import { SweepStatusBadge } from "../sweeps/sweep-status.js";
 import { roleSentence, useWorkspaceRole } from "./use-workspace-role.js";
 
@@ -31,6 +32,7 @@ export function WorkspaceHomePage() {
 
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-3">
         <div className="space-y-6 lg:col-span-2">
+          <WaitingCard slug={slug} />
           <Section title="What to do next" testId="next-steps">
             <NextSteps home={home} base={base} canEdit={canEdit} />
           </Section>
