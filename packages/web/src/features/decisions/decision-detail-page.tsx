@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { Link, useParams } from "react-router";
-import type { DecisionDetailDto } from "@loopyard/core";
+import type { CriterionId, DecisionDetailDto } from "@loopyard/core";
 import { useDecision } from "../../api/use-decisions.js";
 import { CautionNote } from "../../components/caution-note.js";
 import { ErrorNote } from "../../components/error-note.js";
@@ -10,6 +10,7 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { Section } from "../../components/section.js";
 import { scenarioSummary } from "../fronts/front-panel.js";
+import { criterionShortLabel } from "../fronts/criterion-label.js";
 import { aggregateName } from "../fronts/variant-scores-table.js";
 import { useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { DecisionActions } from "./decision-actions.js";
@@ -18,7 +19,7 @@ import { DecisionScoresTable } from "./decision-scores-table.js";
 import { DecisionStateBadge } from "./decision-state-badge.js";
 import { DecisionThread } from "./decision-thread.js";
 import { DecisionTrail } from "./decision-trail.js";
-import { DECISION_STATE_MEANING, scoreText, sourcePath } from "./decision-text.js";
+import { DECISION_STATE_MEANING, regretText, scoreText, sourcePath } from "./decision-text.js";
 
 /**
  * /w/:slug/decisions/:decisionId — a proposal or decision as its record holds it: the family's revisions,
@@ -61,7 +62,8 @@ export function DecisionDetailPage() {
         }
       />
       <CautionNote testId="decision-caution">
-        Simulated designs never replace validation on the real machine. {d.record.caution}
+        <strong className="font-semibold">Simulated designs never replace validation on the real machine.</strong> Validate this controller on the real system
+        with its safety interlocks in place, and follow your organisation's safety practice and local codes — approved or not.
       </CautionNote>
       <p className="text-sm text-ink-soft" data-testid="decision-state-meaning">
         {DECISION_STATE_MEANING[d.state]}
@@ -198,7 +200,7 @@ function ComparisonBehind({ decision, base }: { decision: DecisionDetailDto; bas
             <tr className="border-b border-line text-xs text-ink-soft">
               {c.columns.map((col) => (
                 <th key={col} className="whitespace-nowrap px-3 py-1.5 text-right font-medium">
-                  {col}
+                  {criterionShortLabel(col as CriterionId)}
                   {col === c.contender ? " (own)" : ""}
                 </th>
               ))}
@@ -207,9 +209,9 @@ function ComparisonBehind({ decision, base }: { decision: DecisionDetailDto; bas
           <tbody>
             <tr>
               {c.values.map((v, k) => (
-                <td key={k} className="px-3 py-1.5 text-right font-mono text-[13px] tabular">
+                <td key={k} className="whitespace-nowrap px-3 py-1.5 text-right font-mono text-[13px] tabular">
                   {scoreText(v, formatNumber)}
-                  <div className="text-[11px] text-ink-soft">{c.regrets[k] === 0 ? "best" : `+${scoreText(c.regrets[k] ?? null, (r) => formatNumber(r, 2))} %`}</div>
+                  <div className="text-[11px] text-ink-soft">{regretText(c.regrets[k] ?? null)}</div>
                 </td>
               ))}
             </tr>

@@ -98,7 +98,7 @@ function DecisionTable({ slug, rows }: { slug: string; rows: DecisionListItemDto
         ),
       }),
       helper.accessor((row) => row.state, { id: "state", header: () => "State", cell: (info) => <DecisionStateBadge state={info.row.original.state} /> }),
-      helper.accessor((row) => row.family.name, { id: "family", header: () => "Family", cell: (info) => <span className="text-xs">{info.row.original.family.name}</span> }),
+      helper.accessor((row) => row.family.name, { id: "family", header: () => "Family", cell: (info) => <span className="whitespace-nowrap text-xs">{info.row.original.family.name}</span> }),
       helper.accessor((row) => row.structure, {
         id: "controller",
         header: () => "Controller",

@@ -106,3 +106,12 @@ export function sheetHref(base: string, sampleTime: string, method: "tustin" | "
   if (format) query.set("format", format);
   return `${base}/sheet?${query.toString()}`;
 }
+
+/** A pick's regret [%] against its column's best: "best" at 0, whole per cent from 100 % up ("+180 %"), else two significant digits ("+43 %", "+6.7 %"). */
+export function regretText(regret: number | "inf" | "-inf" | null): string {
+  if (regret === null) return "—";
+  if (regret === "inf") return "+∞ %";
+  if (regret === "-inf") return "—";
+  if (regret === 0) return "best";
+  return `+${Math.abs(regret) >= 100 ? String(Math.round(regret)) : formatNumber(regret, 2)} %`;
+}

@@ -6,6 +6,7 @@ import {
   familyOptions,
   formatParameters,
   joinWords,
+  regretText,
   scoreText,
   sheetHref,
   sourcePath,
@@ -91,5 +92,17 @@ describe("sheetHref", () => {
   });
   it("sheetHref refuses a sample time that is not a number above 0 (the server's sheet query refuses it too)", () => {
     for (const bad of ["", "0", "-0.01", "fast", "Infinity"]) expect(sheetHref("/api/x", bad, "tustin", "")).toBeNull();
+  });
+});
+
+describe("regretText", () => {
+  it("regretText: 0 is the column's best; whole per cent from 100 % up, two significant digits below (format-number.ts)", () => {
+    expect(regretText(0)).toBe("best");
+    expect(regretText(180.4)).toBe("+180 %");
+    expect(regretText(1353.2)).toBe("+1353 %");
+    expect(regretText(43.2)).toBe("+43 %");
+    expect(regretText(6.71)).toBe("+6.7 %");
+    expect(regretText("inf")).toBe("+∞ %");
+    expect(regretText(null)).toBe("—");
   });
 });
