@@ -51,16 +51,19 @@ async function apiList<T>(path: string): Promise<T> {
   return (await response.json()) as T;
 }
 
-/** Opens `path`, waits for `ready`, then checks the page does not scroll sideways and every table is framed inside the window. */
-async function checkPage(path: string, ready: string, shot: string) {
+/**
+ * Opens `path`, waits for `ready`, then checks the page does not scroll sideways and every table is framed
+ * inside the window; saves a screenshot (of the window only for a very tall page: `fullPage` false).
+ */
+async function checkPage(path: string, ready: string, shot: string, fullPage = true) {
   await page.goto(`${appUrl}${path}`);
   await page.waitForSelector(ready, { timeout: 60_000 });
-  await saveScreenshot(page, `narrow-${shot}`);
   expect(await pageOverflow(page), `${path} scrolls sideways`).toBeLessThanOrEqual(0);
   for (const frame of await tableFrames(page)) {
     expect(frame.framed, `a table (${frame.testId}) on ${path} has no frame that scrolls it`).toBe(true);
     expect(frame.frameRight, `the frame of ${frame.testId} on ${path} sticks out of the window`).toBeLessThanOrEqual(WIDTH);
   }
+  await saveScreenshot(page, `narrow-${shot}`, { fullPage });
 }
 
 describe("the shell at 390 px", () => {
@@ -105,28 +108,38 @@ describe("the shell at 390 px", () => {
     expect(await page.textContent("[data-testid=page-title]")).toBe("Sweeps");
   });
 
-  it("when every page of the workspace opens on a phone, then none scrolls sideways and every table scrolls inside its own frame", async () => {
+  it("when the home and the library open on a phone, then none scrolls sideways and every table scrolls inside its own frame", async () => {
     const plants = await apiList<{ id: string }[]>("/plants");
-    const sweeps = await apiList<{ id: string; status: string; name: string }[]>("/sweeps");
-    const comparisons = await apiList<{ id: string; status: string }[]>("/comparisons");
-    const decisions = await apiList<{ id: string }[]>("/decisions");
-    const sweep = sweeps.find((s) => s.status === "finished");
-    const comparison = comparisons.find((c) => c.status === "finished");
-    expect(sweep && comparison && plants.length > 0).toBeTruthy();
-
+    expect(plants.length).toBeGreaterThan(0);
     await checkPage(base, "[data-testid=workspace-home]", "home");
     await checkPage(`${base}/plants`, "[data-testid=page-title]", "plants");
     await checkPage(`${base}/plants/${plants[0]!.id}`, "[data-testid=poles-table]", "plant");
     await checkPage(`${base}/plants/new`, "form", "plant-new");
+  });
+
+  it("when the sweep pages open on a phone (list, form, a finished sweep's front), then none scrolls sideways and every table scrolls inside its own frame", async () => {
+    const sweeps = await apiList<{ id: string; status: string }[]>("/sweeps");
+    const sweep = sweeps.find((s) => s.status === "finished");
+    expect(sweep).toBeDefined();
     await checkPage(`${base}/sweeps`, "[data-testid=table-frame]", "sweeps");
     await checkPage(`${base}/sweeps/new`, "[data-testid=parameter-grid]", "sweep-new");
     await checkPage(`${base}/sweeps/${sweep!.id}`, "[data-testid=front-chart] .main-svg", "sweep");
+  });
+
+  it("when the comparison and decision pages open on a phone, then none scrolls sideways and every table scrolls inside its own frame", async () => {
+    const comparisons = await apiList<{ id: string; status: string }[]>("/comparisons");
+    const decisions = await apiList<{ id: string }[]>("/decisions");
+    const comparison = comparisons.find((c) => c.status === "finished");
+    expect(comparison).toBeDefined();
     await checkPage(`${base}/comparisons`, "[data-testid=comparison-table]", "comparisons");
-    await checkPage(`${base}/comparisons/new`, "form", "comparison-new");
-    await checkPage(`${base}/comparisons/${comparison!.id}`, "[data-testid=stability]", "comparison");
+    await checkPage(`${base}/comparisons/new`, "form", "comparison-new", false);
+    // Some 5000 px tall on a phone: its screenshot is of the window only.
+    await checkPage(`${base}/comparisons/${comparison!.id}`, "[data-testid=stability]", "comparison", false);
     await checkPage(`${base}/comparisons/across`, "[data-testid=across-table]", "across");
     await checkPage(`${base}/decisions`, "[data-testid=decision-list-page]", "decisions");
-    if (decisions.length > 0) await checkPage(`${base}/decisions/${decisions[0]!.id}`, "[data-testid=decision-trail]", "decision");
+    // The seed holds an approved decision and a proposal waiting (issue 12, item 6).
+    expect(decisions.length).toBeGreaterThan(0);
+    await checkPage(`${base}/decisions/${decisions[0]!.id}`, "[data-testid=decision-trail]", "decision");
   });
 
   it("when the sweeps list is wider than the phone, then its table scrolls sideways inside its frame, not the page", async () => {

@@ -166,19 +166,21 @@ function Term({ label, children }: { label: string; children: ReactNode }) {
 function ParameterList({ decision }: { decision: DecisionDetailDto }) {
   const { parameters, tuned } = decision.record.structure;
   return (
-    <table className="text-sm" data-testid="decision-parameters">
-      <tbody>
-        {Object.entries(parameters).map(([name, value]) => (
-          <tr key={name}>
-            <td className="py-0.5 pr-6 font-mono">{name}</td>
-            <td className="py-0.5 pr-4 text-right font-mono tabular" data-testid={`decision-parameter-${name}`}>
-              {formatNumber(value, 6)}
-            </td>
-            <td className="py-0.5 text-xs text-ink-faint">{tuned.includes(name) ? "tuned" : "fixed"}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <div className="overflow-x-auto">
+      <table className="text-sm" data-testid="decision-parameters">
+        <tbody>
+          {Object.entries(parameters).map(([name, value]) => (
+            <tr key={name}>
+              <td className="py-0.5 pr-6 font-mono">{name}</td>
+              <td className="py-0.5 pr-4 text-right font-mono tabular" data-testid={`decision-parameter-${name}`}>
+                {formatNumber(value, 6)}
+              </td>
+              <td className="py-0.5 text-xs text-ink-faint">{tuned.includes(name) ? "tuned" : "fixed"}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
   );
 }
 

@@ -27,7 +27,7 @@ export function DecisionThread({ slug, decision }: { slug: string; decision: Dec
       </ol>
       {decision.can.canComment ? (
         <form
-          className="space-y-2"
+          className="relative space-y-2"
           onSubmit={(event) => {
             event.preventDefault();
             comment.mutate(text, { onSuccess: () => setText("") });

@@ -67,7 +67,7 @@ export function FrontTable({
                 {c === x ? " (x)" : c === y ? " (y)" : ""}
               </th>
             ))}
-            {onPropose ? <th className="px-3 py-1.5"><span className="sr-only">Propose</span></th> : null}
+            {onPropose ? <th className="px-3 py-1.5" aria-label="Propose" /> : null}
           </tr>
         </thead>
         <tbody className="divide-y divide-line-soft">
