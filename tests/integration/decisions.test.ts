@@ -19,6 +19,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startMailSink, type MailSink } from "../../packages/server/src/index.js";
 import { createDatabase } from "../../packages/server/src/db/database.js";
 import { assertNotPinnedByDecision } from "../../packages/server/src/decisions/decision-pins.js";
+import { pdfText } from "../../packages/server/test/exports/pdf-text-check.js";
 import { startTestServer, type TestServer } from "../support/test-server.js";
 import { signedInClient, type ApiClient } from "./api-client.js";
 import { lagFamily, smallComparison, waitForComparison } from "./comparison-fixtures.js";
@@ -186,9 +187,23 @@ describe("decisions over HTTP", () => {
     for (const event of detail.body.events) expect(Number.isNaN(Date.parse(event.at))).toBe(false);
     expect(previous.body.events.map((e: { kind: string }) => e.kind)).toEqual(["proposed", "approved", "superseded"]);
 
-    // The approval mail reaches the proposer.
+    // The record as a PDF: it starts with %PDF and names the parameters and their values.
+    const pdf = await team.viewer.getBytes(`${base}/decisions/${id}/record.pdf`, "application/pdf");
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get("content-type")).toContain("application/pdf");
+    expect(pdf.headers.get("content-disposition")).toContain("decision-pi-for-the-lag-bench-gentler.pdf");
+    const bytes = Buffer.from(pdf.bytes);
+    expect(bytes.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    const text = pdfText(bytes);
+    expect(text).toContain("PI for the lag bench, gentler");
+    for (const name of ["kp", "ki"]) expect(text).toContain(name);
+
+    // The approval mail reaches the proposer, with the record's PDF attached.
     const approvalMails = await mailsTo(team.credentials.engineer.email, 3);
-    expect(approvalMails.filter((m) => m.subject === "Approved: PI for the lag bench, gentler")).toHaveLength(1);
+    const approval = approvalMails.filter((m) => m.subject === "Approved: PI for the lag bench, gentler");
+    expect(approval).toHaveLength(1);
+    expect(approval[0]!.attachments.map((a) => [a.filename, a.contentType])).toEqual([["decision-pi-for-the-lag-bench-gentler.pdf", "application/pdf"]]);
+    expect(approval[0]!.attachments[0]!.content.subarray(0, 5).toString("latin1")).toBe("%PDF-");
 
     // The deployment sheet of the decision at 100 Hz, Tustin, Q15: the same as the candidate's own sheet
     // (reference: GET …/sweeps/:id/candidates/3/sheet, the same design through the sweep's path).

@@ -541,6 +541,9 @@ export { discreteControllerLoopStability } from "./stability/sampled-loop-stabil
 export type { DeploymentDesign, DeploymentSheetRequest, DeploymentVariant } from "./deployment/deployment-design.js";
 export type { DiscreteStateSpaceController } from "./stability/sampled-loop-stability.js";
 export type * from "./api/deployment-sheet-dto.js";
+export { designCurves, RECORD_CURVE_POINTS } from "./deployment/design-curves.js";
+export { recordDesign } from "./deployment/record-design.js";
+export type { DesignCurves, VariantCurves } from "./deployment/design-curves.js";
 export { candidateCsvHeader, criterionColumn, csvNumber, parameterColumn, withUnit } from "./api/csv-columns.js";
 export type { DeployablePid } from "./deployment/deployable-pid.js";
 export type { PidForm, PidForms, SeriesPidParameters } from "./deployment/pid-forms.js";

@@ -31,16 +31,11 @@ import { comparisonRoutes } from "./comparisons/comparison-routes.js";
 // Mail: a queue of outgoing messages, sent over SMTP in the background; settings and the outbox.
 import { createMailSystem, type MailSystem } from "./mail/mail-system.js";
 // Decisions: proposals, a lead's approval, the audit trail and the record.
-import { createDecisionMailer, type DecisionPdfForMail } from "./decisions/decision-mailer.js";
+import { createDecisionMailer } from "./decisions/decision-mailer.js";
+import { decisionPdfForMail } from "./decisions/decision-sheet.js";
 import { decisionRoutes } from "./decisions/decision-routes.js";
 import { decisionSettingsRoutes } from "./decisions/decision-settings-routes.js";
 import type { DecisionDeps } from "./decisions/decision-service.js";
-
-/**
- * The hook that attaches a decision record's PDF to the approval mail: null until the deployment
- * sheet's PDF renderer is wired here (then the approval mail carries the record).
- */
-const decisionRecordPdfForMail: DecisionPdfForMail | null = null;
 
 /** Largest JSON request body accepted (bigger bodies get a 413). */
 export const JSON_BODY_LIMIT = "256kb";
@@ -137,7 +132,8 @@ export function createApp(config: AppConfig): LoopyardApp {
     sweepRoutes(db, { start: (id) => jobs.start(id), cancel: (id) => jobs.cancel(id) }, config.limits ?? DEFAULT_SWEEP_LIMITS, background, compute),
   );
   app.use("/api/workspaces/:slug/comparisons", comparisonRoutes(db, comparisonJobs));
-  const decisionMailer = createDecisionMailer(db, mail, config.publicUrl, decisionRecordPdfForMail);
+  // The approval mail carries the record's PDF.
+  const decisionMailer = createDecisionMailer(db, mail, config.publicUrl, decisionPdfForMail({ db, compute }));
   const decisions: DecisionDeps = {
     db,
     compute,

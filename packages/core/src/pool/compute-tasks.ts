@@ -24,6 +24,7 @@ import type { ReferencesDto } from "../api/dto.js";
 import { sweepReferences, type SweepReferencesInput } from "./sweep-references-task.js";
 import type { DeploymentSheetDto } from "../api/deployment-sheet-dto.js";
 import { buildDeploymentSheet } from "../deployment/build-deployment-sheet.js";
+import { designCurves, type DesignCurves } from "../deployment/design-curves.js";
 import { DeploymentSheetError, type DeploymentDesign, type DeploymentSheetRequest } from "../deployment/deployment-design.js";
 import { baselineScores, type BaselineScores, type BaselineScoresInput } from "./baseline-scores-task.js";
 
@@ -61,6 +62,8 @@ export interface ComputeTasks {
   sweepReferences: { input: SweepReferencesInput; output: ReferencesDto };
   /** A design's deployment sheet at the reader's sample time, method and format (buildDeploymentSheet). */
   deploymentSheet: { input: { design: DeploymentDesign; request: DeploymentSheetRequest }; output: DeploymentSheetDto };
+  /** A design's step response and |S(jω)| on every variant, for the decision record's plots (designCurves). */
+  designCurves: { input: { design: DeploymentDesign }; output: DesignCurves };
   /** A tuning rule's controller of a sweep scored on every variant (baseline-scores-task.ts), for a decision's record. */
   baselineScores: { input: BaselineScoresInput; output: BaselineScores };
 }
@@ -97,6 +100,7 @@ const TASKS: { [K in ComputeTaskName]: (input: ComputeTasks[K]["input"]) => Comp
   },
   sweepReferences,
   deploymentSheet: ({ design, request }) => buildDeploymentSheet(design, request),
+  designCurves: ({ design }) => designCurves(design),
   baselineScores,
 };
 

@@ -207,7 +207,8 @@ export const decisionRecordSchema = z.strictObject({
     kind: z.enum(CONTROLLER_KINDS),
     parameters: z.record(z.string(), z.number().finite()),
     tuned: z.array(z.string()),
-    controller: controllerSchema,
+    // Core's controller check; its output typed as core's Controller (the schema builds its fields from the parameter table).
+    controller: controllerSchema as unknown as z.ZodType<Controller>,
   }),
   scenario: sweepScenarioSchema,
   evaluation: z.strictObject({ aggregate: sweepAggregateSchema, criterionOptions: criterionOptionsSchema.optional() }),
@@ -225,9 +226,7 @@ export const decisionRecordSchema = z.strictObject({
   exportedAt: timeSchema,
   caution: z.string(),
 });
-type ParsedRecord = z.output<typeof decisionRecordSchema>;
-/** A decision record (the schema's output, its controller typed as core's Controller). */
-export type DecisionRecord = Omit<ParsedRecord, "structure"> & { structure: Omit<ParsedRecord["structure"], "controller"> & { controller: Controller } };
+export type DecisionRecord = z.output<typeof decisionRecordSchema>;
 export type DecisionRecordVariant = z.output<typeof recordVariantSchema>;
 export type DecisionRecordComparison = z.output<typeof recordComparisonSchema>;
 /** What the server snapshots when a proposal is made or revised: the record without the decision's own fields. */
@@ -256,7 +255,7 @@ export function readDecisionRecord(value: unknown): { ok: true; record: Decision
     };
   }
   const parsed = decisionRecordSchema.safeParse(value);
-  if (parsed.success) return { ok: true, record: parsed.data as DecisionRecord };
+  if (parsed.success) return { ok: true, record: parsed.data };
   const first = parsed.error.issues[0]!;
   const field = first.path.map(String).join(".");
   return { ok: false, issue: { field, message: field ? `${field}: ${first.message}` : first.message } };

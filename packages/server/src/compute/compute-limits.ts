@@ -17,6 +17,8 @@ export const COMPUTE_LIMITS: Record<ComputeTaskName, ComputeLimits> = {
   // A deployment sheet: per variant one continuous evaluation and two sampled re-simulations
   // (linear plants: bounded by MAX_SIMULATION_SAMPLES per run), plus the stability verdicts.
   deploymentSheet: { budget: { evaluations: 4_000_000 }, timeLimitMs: 20_000 },
+  // A design's curves for a printed record: one closed-loop simulation and one frequency response per variant.
+  designCurves: { budget: { evaluations: 4_000_000 }, timeLimitMs: 15_000 },
   // One tuning rule scored on every variant: one closed-loop simulation per variant.
   baselineScores: { budget: { evaluations: 4_000_000 }, timeLimitMs: 15_000 },
 };

@@ -1,3 +1,4 @@
+import type { WorkspaceDto } from "@loopyard/core";
 import type { Database } from "../db/database.js";
 import type { MailAttachment } from "../mail/mail-message.js";
 import type { MailSystem } from "../mail/mail-system.js";
@@ -10,7 +11,7 @@ import { decisionPagePath, type DecisionNotice } from "./decision-notice.js";
  * when there is none to attach. Wired to the deployment sheet's PDF renderer in app.ts
  * (decisionRecordPdfForMail); without it the approval mail goes without attachment.
  */
-export type DecisionPdfForMail = (workspaceId: string, decisionId: string) => Promise<MailAttachment | null>;
+export type DecisionPdfForMail = (workspace: WorkspaceDto, decisionId: string) => Promise<MailAttachment | null>;
 
 /**
  * Turns decision notices into mail through the mail queue (never blocking or failing the request:
@@ -37,7 +38,7 @@ export function createDecisionMailer(db: Database, mail: Pick<MailSystem, "notif
         });
       }
       case "approved": {
-        const attachment = recordPdf ? await recordPdf(notice.workspace.id, notice.decisionId).catch(() => null) : null;
+        const attachment = recordPdf ? await recordPdf(notice.workspace, notice.decisionId).catch(() => null) : null;
         return mail.notify({
           userIds: [notice.proposer.id],
           kind: "decision-approved",

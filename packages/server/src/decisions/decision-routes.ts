@@ -3,7 +3,7 @@ import { decisionCommentSchema, decisionListQuerySchema, decisionProposalSchema,
 import { sheetQuerySchema } from "../deployment/sheet-service.js";
 import { parseBody, parseIdParam, parseQuery } from "../http/validation.js";
 import { accessOf, memberOf } from "../workspaces/require-member.js";
-import { getDecisionSheet } from "./decision-sheet.js";
+import { getDecisionPdf, getDecisionSheet } from "./decision-sheet.js";
 import {
   approveDecision,
   commentOnDecision,
@@ -76,6 +76,13 @@ export function decisionRoutes(deps: DecisionDeps): Router {
     const record = await getDecisionRecord(deps, accessOf(req), id);
     res.setHeader("Content-Disposition", `attachment; filename="decision-${id}.json"`);
     res.json(record);
+  });
+
+  // The record as a PDF: parameters, scores per variant, step responses and |S| as vector plots, the audit trail.
+  router.get("/:decisionId/record.pdf", canRead, async (req, res) => {
+    const { filename, pdf } = await getDecisionPdf(deps, accessOf(req), idOf(req.params.decisionId));
+    res.type("application/pdf").setHeader("Content-Disposition", `attachment; filename="${filename}"`);
+    res.send(pdf);
   });
 
   // DeploymentSheetDto of the decision's controller (?sampleTime=&method=tustin|backward-euler&format=q15|q31).

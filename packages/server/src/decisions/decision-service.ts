@@ -106,7 +106,8 @@ export function decisionRecord(row: DecisionRow, workspace: WorkspaceDto, export
   };
 }
 
-function eventDto(event: DecisionEventRow): DecisionEventDto {
+/** One audit-trail entry as the API shows it. */
+export function eventDto(event: DecisionEventRow): DecisionEventDto {
   const details = event.details ?? {};
   return {
     id: event.id,

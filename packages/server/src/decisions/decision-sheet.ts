@@ -1,32 +1,44 @@
-import { variantPlant } from "@loopyard/core";
-import type { DecisionRecord, DeploymentDesign, DeploymentSheetDto, Scenario } from "@loopyard/core";
-import type { Compute } from "../compute/compute.js";
-import { sheetOfDesign, type SheetQuery } from "../deployment/sheet-service.js";
+import type { DeploymentSheetDto, WorkspaceDto } from "@loopyard/core";
+import { decisionSheet, type SheetQuery } from "../deployment/sheet-service.js";
+import { decisionRecordPdf } from "../exports/decision-record-pdf.js";
+import type { MailAttachment } from "../mail/mail-message.js";
 import type { MemberAccess } from "../workspaces/require-member.js";
-import { getDecisionRecord, type DecisionDeps } from "./decision-service.js";
+import { findDecision, listEvents } from "./decision-repository.js";
+import { decisionRecord, eventDto, getDecision, getDecisionRecord, type DecisionDeps } from "./decision-service.js";
 
-/**
- * The design a decision's record describes, as the deployment sheet takes it: the family's plants
- * (each variant's parameter overrides applied, as the study evaluated them), the recorded
- * controller, the scenario, the criteria, the criterion options and the aggregate.
- */
-export function decisionDesign(record: DecisionRecord): DeploymentDesign {
-  return {
-    variants: record.family.variants.map((v, i) => ({
-      label: v.label,
-      plant: variantPlant(v.model, v.parameters, i),
-      revision: { plantId: v.plantId, plantName: v.plantName, revisionId: v.revisionId, revisionNumber: v.revisionNumber },
-    })),
-    controller: record.structure.controller,
-    scenario: record.scenario as Scenario,
-    criteria: [...record.criteria],
-    ...(record.evaluation.criterionOptions ? { criterionOptions: record.evaluation.criterionOptions } : {}),
-    aggregate: record.evaluation.aggregate,
-  };
+/** GET …/decisions/:id/sheet?sampleTime=&method=&format= — the deployment sheet of the design the decision's record holds, on the compute pool. */
+export async function getDecisionSheet(deps: DecisionDeps, access: MemberAccess, decisionId: string, query: SheetQuery): Promise<DeploymentSheetDto> {
+  return decisionSheet(deps.compute, await getDecisionRecord(deps, access, decisionId), query);
 }
 
-/** GET …/decisions/:id/sheet?sampleTime=&method=&format= — the decision's deployment sheet, on the compute pool. */
-export async function getDecisionSheet(deps: DecisionDeps & { compute: Compute }, access: MemberAccess, decisionId: string, query: SheetQuery): Promise<DeploymentSheetDto> {
-  const record = await getDecisionRecord(deps, access, decisionId);
-  return sheetOfDesign(deps.compute, decisionDesign(record), query);
+/** The file name of a decision's PDF: its title in lower-case words, e.g. decision-ember-line-tune-the-pid-by-itae.pdf. */
+export function decisionPdfFilename(title: string): string {
+  const words = title
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 60)
+    .replace(/-+$/g, "");
+  return `decision-${words || "record"}.pdf`;
+}
+
+/** GET …/decisions/:id/record.pdf — the record with its curves (drawn on the compute pool) and its audit trail. */
+export async function getDecisionPdf(deps: DecisionDeps, access: MemberAccess, decisionId: string): Promise<{ filename: string; pdf: Buffer }> {
+  const detail = await getDecision(deps, access, decisionId);
+  return { filename: decisionPdfFilename(detail.title), pdf: await decisionRecordPdf(deps.compute, detail.record, detail.events) };
+}
+
+/**
+ * The record's PDF for the approval mail (DecisionPdfForMail): the same document as record.pdf.
+ * Null when the decision is gone; a PDF that cannot be drawn rejects (the mail then goes without it).
+ */
+export function decisionPdfForMail(deps: Pick<DecisionDeps, "db" | "compute">) {
+  return async (workspace: WorkspaceDto, decisionId: string): Promise<MailAttachment | null> => {
+    const row = await findDecision(deps.db, workspace.id, decisionId);
+    if (!row) return null;
+    const audit = (await listEvents(deps.db, row.id)).map(eventDto);
+    return { filename: decisionPdfFilename(row.title), content: await decisionRecordPdf(deps.compute, decisionRecord(row, workspace), audit), contentType: "application/pdf" };
+  };
 }

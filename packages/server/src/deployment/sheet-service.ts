@@ -1,5 +1,5 @@
-import { DISCRETIZATION_METHODS, FIXED_POINT_FORMATS, planSweep } from "@loopyard/core";
-import type { DeploymentDesign, DeploymentSheetDto, DeploymentSheetRequest } from "@loopyard/core";
+import { DISCRETIZATION_METHODS, FIXED_POINT_FORMATS, planSweep, recordDesign } from "@loopyard/core";
+import type { DecisionRecord, DeploymentDesign, DeploymentSheetDto, DeploymentSheetRequest } from "@loopyard/core";
 import { z } from "zod";
 import { limitExceeded, type Compute } from "../compute/compute.js";
 import type { Database } from "../db/database.js";
@@ -87,4 +87,9 @@ export async function candidateDesign(db: Database, access: MemberAccess, sweepI
 /** GET …/sweeps/:sweepId/candidates/:index/sheet */
 export async function getCandidateSheet(db: Database, compute: Compute, access: MemberAccess, sweepId: string, index: number, query: SheetQuery): Promise<DeploymentSheetDto> {
   return sheetOfDesign(compute, await candidateDesign(db, access, sweepId, index), query);
+}
+
+/** A decision's deployment sheet (GET …/decisions/:id/sheet): the sheet of the design its record holds. */
+export async function decisionSheet(compute: Compute, record: DecisionRecord, query: SheetQuery): Promise<DeploymentSheetDto> {
+  return sheetOfDesign(compute, recordDesign(record), query);
 }

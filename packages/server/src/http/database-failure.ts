@@ -60,6 +60,10 @@ export function databaseFailure(error: unknown): { error: HttpError; retryAfter?
     if (code === "23503" && typeof constraint === "string" && constraint.startsWith("decision")) {
       return { error: new HttpError(409, "A recorded decision rests on this, so it cannot be deleted; decisions keep their revisions, sweeps and comparisons as they were.") };
     }
+    // unique_violation of "one approved decision per family": two leads approved two proposals of one family at the same moment.
+    if (code === "23505" && constraint === "decision_one_approved_per_family") {
+      return { error: new HttpError(409, "Another decision of this family was approved at the same moment; reload the decision to see which one stands.") };
+    }
     if (code === "22021" || code === "22P05" || code === "22P02" || code === "22003" || code === "54000") {
       return { error: new HttpError(400, "A value in the request cannot be stored (a character, number or size out of range); correct it and try again.") };
     }
