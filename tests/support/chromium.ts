@@ -23,13 +23,16 @@ export async function launchChromium(): Promise<Browser> {
   });
 }
 
-/** Saves a full-page PNG as test-results/screens/<name>.png and returns its path. */
-export async function saveScreenshot(page: Page, name: string): Promise<string> {
+/**
+ * Saves a PNG of the whole page (or, with `fullPage: false`, of the window only — quicker for a very tall
+ * page on a busy machine) as test-results/screens/<name>.png and returns its path.
+ */
+export async function saveScreenshot(page: Page, name: string, { fullPage = true }: { fullPage?: boolean } = {}): Promise<string> {
   if (!/^[a-z0-9][a-z0-9._-]*$/i.test(name)) {
     throw new RangeError(`saveScreenshot: name must be letters, digits, dots, dashes or underscores, got "${name}"`);
   }
   await mkdir(SCREENS_DIR, { recursive: true });
   const path = `${SCREENS_DIR}${name}.png`;
-  await page.screenshot({ path, fullPage: true });
+  await page.screenshot({ path, fullPage });
   return path;
 }

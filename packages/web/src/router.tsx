@@ -27,6 +27,8 @@ import { ComparisonNewPage } from "./features/comparisons/comparison-new-page.js
 import { ComparisonsAcrossPage } from "./features/comparisons/comparisons-across-page.js";
 import { NotificationSettingsPage } from "./features/mail/notification-settings-page.js";
 import { OutboxPage } from "./features/mail/outbox-page.js";
+import { DecisionDetailPage } from "./features/decisions/decision-detail-page.js";
+import { DecisionListPage } from "./features/decisions/decision-list-page.js";
 import { CreateWorkspacePage } from "./features/workspace/create-workspace-page.js";
 import { NotFoundPage } from "./features/workspace/not-found-page.js";
 import { RootRedirect } from "./features/workspace/root-redirect.js";
@@ -76,6 +78,8 @@ export const router = createBrowserRouter([
           { path: "members", element: <MembersPage /> },
           { path: "outbox", element: <OutboxPage /> },
           { path: "notifications", element: <NotificationSettingsPage /> },
+          { path: "decisions", element: <DecisionListPage /> },
+          { path: "decisions/:decisionId", element: <DecisionDetailPage /> },
           { path: "*", element: <NotFoundPage inWorkspace /> },
         ],
       },

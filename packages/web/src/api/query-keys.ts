@@ -36,4 +36,9 @@ export const queryKeys = {
   // Mail: the workspace's outbox (admins).
   outbox: (slug: string) => ["workspace", slug, "outbox"] as const,
   outboxMessage: (slug: string, id: string) => ["workspace", slug, "outbox", id] as const,
+  // Proposals and decisions.
+  decisions: (slug: string) => ["workspace", slug, "decisions"] as const,
+  decisionList: (slug: string, state: string, family: string) => ["workspace", slug, "decisions", "list", state, family] as const,
+  decisionsWaiting: (slug: string) => ["workspace", slug, "decisions", "waiting"] as const,
+  decision: (slug: string, id: string) => ["workspace", slug, "decisions", "one", id] as const,
 };

@@ -1,7 +1,10 @@
+import { useEffect, useState } from "react";
 import type { ReactNode } from "react";
-import { Link, NavLink } from "react-router";
+import { Link, useLocation } from "react-router";
 import type { Role, UserDto } from "@loopyard/core";
+import { MenuButton } from "./menu-button.js";
 import { Wordmark } from "./wordmark.js";
+import { WorkspaceNav } from "./workspace-nav.js";
 
 export interface LayoutProps {
   workspace: { slug: string; name: string };
@@ -14,32 +17,39 @@ export interface LayoutProps {
   children: ReactNode;
 }
 
-const NAV = [
-  { to: "", label: "Home", end: true, testId: "nav-home" },
-  { to: "plants", label: "Library", end: false, testId: "nav-library" },
-  { to: "families", label: "Families", end: false, testId: "nav-families" },
-  { to: "sweeps", label: "Sweeps", end: false, testId: "nav-sweeps" },
-  { to: "comparisons", label: "Compare criteria", end: false, testId: "nav-comparisons" },
-  { to: "members", label: "Members", end: false, testId: "nav-members" },
-] as const;
+const MENU_PANEL_ID = "workspace-menu";
 
-/** Shown to admins only (the server refuses the outbox to everyone else). */
-const ADMIN_NAV = { to: "outbox", label: "Outbox", end: false, testId: "nav-outbox" } as const;
-
-/** The frame of every workspace page: top bar (wordmark, workspace, user menu), left nav, content. */
+/**
+ * The frame of every workspace page: top bar (wordmark, workspace, user menu), the navigation, content.
+ * From the `md` breakpoint (768 px) up the navigation is a left column; below it, a menu button in the top
+ * bar opens it as a panel over the page, closed again by the button, Escape, a click beside it or following a link.
+ */
 export function Layout({ workspace, role, user, otherWorkspaces, onSignOut, signingOut, children }: LayoutProps) {
   const base = `/w/${workspace.slug}`;
+  const [menuOpen, setMenuOpen] = useState(false);
+  const location = useLocation();
+  useEffect(() => setMenuOpen(false), [location.pathname]);
+  useEffect(() => {
+    if (!menuOpen) return;
+    const onKey = (event: KeyboardEvent) => {
+      if (event.key === "Escape") setMenuOpen(false);
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, [menuOpen]);
+
   return (
     <div className="flex min-h-screen flex-col">
-      <header className="sticky top-0 z-20 flex h-13 items-center gap-4 border-b border-line bg-sheet/95 px-5 backdrop-blur">
-        <Link to={base} aria-label="Loopyard home">
+      <header className="sticky top-0 z-30 flex h-13 items-center gap-3 border-b border-line bg-sheet/95 px-3 backdrop-blur sm:gap-4 sm:px-5">
+        <MenuButton open={menuOpen} onToggle={() => setMenuOpen(!menuOpen)} controls={MENU_PANEL_ID} />
+        <Link to={base} aria-label="Loopyard home" className="shrink-0">
           <Wordmark />
         </Link>
-        <span aria-hidden className="h-5 w-px bg-line" />
-        <span className="truncate text-sm font-medium text-ink" data-testid="workspace-name">
+        <span aria-hidden className="hidden h-5 w-px bg-line sm:block" />
+        <span className="hidden min-w-0 truncate text-sm font-medium text-ink sm:block" data-testid="workspace-name">
           {workspace.name}
         </span>
-        <div className="ml-auto">
+        <div className="ml-auto shrink-0">
           <details className="group relative" data-testid="user-menu">
             <summary className="flex cursor-pointer list-none items-center gap-2 rounded-md border border-transparent px-2 py-1 text-sm hover:border-line">
               <span className="flex size-7 items-center justify-center rounded-full bg-moss-wash font-mono text-xs text-moss">
@@ -89,28 +99,25 @@ export function Layout({ workspace, role, user, otherWorkspaces, onSignOut, sign
           </details>
         </div>
       </header>
+      {menuOpen ? (
+        <>
+          <div aria-hidden className="fixed inset-0 top-13 z-20 bg-ink/20 md:hidden" onClick={() => setMenuOpen(false)} />
+          <nav
+            id={MENU_PANEL_ID}
+            aria-label="Workspace"
+            data-testid="nav-panel"
+            className="fixed inset-x-0 top-13 z-20 border-b border-line bg-sheet px-3 pt-3 pb-4 shadow-[0_10px_24px_-16px_rgba(34,38,43,0.45)] md:hidden"
+          >
+            <div className="mb-2 truncate px-3 text-xs text-ink-soft">{workspace.name}</div>
+            <WorkspaceNav base={base} role={role} idPrefix="menu-" onNavigate={() => setMenuOpen(false)} />
+          </nav>
+        </>
+      ) : null}
       <div className="flex flex-1">
-        <nav aria-label="Workspace" className="w-48 shrink-0 border-r border-line px-3 py-5">
-          <ul className="space-y-0.5">
-            {[...NAV, ...(role === "admin" ? [ADMIN_NAV] : [])].map((item) => (
-              <li key={item.label}>
-                <NavLink
-                  to={item.to === "" ? base : `${base}/${item.to}`}
-                  end={item.end}
-                  data-testid={item.testId}
-                  className={({ isActive }) =>
-                    `block rounded-md border-l-2 px-3 py-1.5 text-sm ${
-                      isActive ? "border-moss bg-moss-wash font-medium text-moss" : "border-transparent text-ink-soft hover:bg-sheet hover:text-ink"
-                    }`
-                  }
-                >
-                  {item.label}
-                </NavLink>
-              </li>
-            ))}
-          </ul>
+        <nav aria-label="Workspace" className="hidden w-48 shrink-0 border-r border-line px-3 py-5 md:block">
+          <WorkspaceNav base={base} role={role} />
         </nav>
-        <main className="min-w-0 flex-1 px-8 py-6">
+        <main className="min-w-0 flex-1 px-4 py-5 sm:px-6 md:px-8 md:py-6">
           <div className="mx-auto max-w-6xl">{children}</div>
         </main>
       </div>

@@ -1,3 +1,4 @@
+import { useState } from "react";
 import { useParams } from "react-router";
 import { isComparisonActive, useCancelComparison, useComparison, useComparisonResult } from "../../api/use-comparisons.js";
 import { Button, ButtonLink } from "../../components/button.js";
@@ -12,6 +13,8 @@ import { AgreementMatrix } from "./agreement-matrix.js";
 import { ComparisonProgress } from "./comparison-progress.js";
 import { ComparisonStatusBadge } from "./comparison-status.js";
 import { CrossScoreTable } from "./cross-score-table.js";
+import { ProposeDialog, type ProposeTarget } from "../decisions/propose-dialog.js";
+import { pickTarget } from "../decisions/propose-targets.js";
 import { PerVariantTable } from "./per-variant-table.js";
 import { PickOverlays } from "./pick-overlays.js";
 import { RegretLegend } from "./regret-legend.js";
@@ -26,6 +29,7 @@ export function ComparisonDetailPage() {
   const result = useComparisonResult(slug, comparisonId, finished);
   const cancel = useCancelComparison(slug, comparisonId);
   const back = { to: `/w/${slug}/comparisons`, label: "Compare criteria" };
+  const [proposing, setProposing] = useState<ProposeTarget | null>(null);
 
   if (comparison.isPending) return <Loading label="Loading the comparison…" />;
   if (comparison.isError)
@@ -95,7 +99,7 @@ export function ComparisonDetailPage() {
               <p className="mb-3 text-sm text-ink-soft">
                 Read a row as one candidate design — the best one its criterion finds in the box — and each column as a criterion the team cares about. A contender's own column is outlined; its regret there is 0 by construction. Click a column to sort the picks by it.
               </p>
-              <CrossScoreTable result={result.data} />
+              <CrossScoreTable result={result.data} onPropose={canEdit ? (contender, label) => setProposing(pickTarget(c, contender, label)) : undefined} />
               <div className="mt-3">
                 <RegretLegend />
               </div>
@@ -119,6 +123,7 @@ export function ComparisonDetailPage() {
               <AgreementMatrix result={result.data} />
             </Section>
             <CautionNote />
+            <ProposeDialog slug={slug} target={proposing} onClose={() => setProposing(null)} />
           </>
         )
       ) : null}

@@ -27,7 +27,14 @@ const helper = createColumnHelper<typeof features, PickRow>();
  * regret-scale.ts, the number always printed). Sortable by any column (by regret: the column's best
  * first); the best of each column carries the "best" mark; a contender's own column is outlined.
  */
-export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
+export function CrossScoreTable({
+  result,
+  onPropose,
+}: {
+  result: ComparisonResultJson;
+  /** Proposes a found pick (its contender key and label) as the family's decision; no button without it (a viewer). */
+  onPropose?: (contender: string, label: string) => void;
+}) {
   const [sorting, setSorting] = useState<{ id: string; desc: boolean }[]>([]);
   const columns = result.columns;
   const rows = useMemo<PickRow[]>(
@@ -50,7 +57,7 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
       helper.accessor((row) => row.label, {
         id: "pick",
         header: () => "Pick of",
-        cell: (info) => <PickName row={info.row.original} />,
+        cell: (info) => <PickName row={info.row.original} onPropose={onPropose} />,
       }),
       ...columns.map((column, k) =>
         helper.accessor((row) => (Number.isNaN(row.regrets[k] as number) ? undefined : (row.regrets[k] as number)), {
@@ -74,7 +81,7 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
         }),
       ),
     ],
-    [columns, result],
+    [columns, result, onPropose],
   );
   const table = useTable({ features, columns: tableColumns, data: rows, state: { sorting }, onSortingChange: setSorting });
 
@@ -114,7 +121,7 @@ export function CrossScoreTable({ result }: { result: ComparisonResultJson }) {
   );
 }
 
-function PickName({ row }: { row: PickRow }) {
+function PickName({ row, onPropose }: { row: PickRow; onPropose: ((contender: string, label: string) => void) | undefined }) {
   return (
     <div className="w-32 px-1 py-1">
       <div className="font-medium">{row.label}</div>
@@ -125,6 +132,16 @@ function PickName({ row }: { row: PickRow }) {
         </div>
       ) : null}
       {row.adoptedFrom ? <div className="text-[11px] text-ink-soft">same design as {row.adoptedFrom}'s pick (better on its own column)</div> : null}
+      {onPropose && row.found ? (
+        <button
+          type="button"
+          onClick={() => onPropose(row.contender, row.label)}
+          className="mt-1 rounded border border-line bg-sheet px-1.5 py-px text-[11px] text-ink-soft hover:border-ink-faint hover:text-ink"
+          data-testid="propose-pick"
+        >
+          Propose this pick
+        </button>
+      ) : null}
     </div>
   );
 }

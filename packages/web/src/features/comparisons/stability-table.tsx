@@ -23,7 +23,7 @@ export function StabilityTable({ result }: { result: ComparisonResultJson }) {
           <tr className="border-b border-line text-left text-ink-soft">
             <th className="px-2 py-1.5 font-medium">Change</th>
             {contenders.map((c) => (
-              <th key={c} className="px-2 py-1.5 text-right font-medium">
+              <th key={c} className="whitespace-nowrap px-2 py-1.5 text-right font-medium">
                 {c}'s pick
               </th>
             ))}
@@ -38,7 +38,7 @@ export function StabilityTable({ result }: { result: ComparisonResultJson }) {
                 const shift = numberOf(pick.regretShift);
                 const knife = Number.isFinite(move) && move > ROBUST_MOVE_PERCENT;
                 return (
-                  <td key={k} className={`px-2 py-1.5 text-right font-mono tabular ${knife ? "bg-amber-wash text-ink" : "text-ink-soft"}`}>
+                  <td key={k} className={`whitespace-nowrap px-2 py-1.5 text-right font-mono tabular ${knife ? "bg-amber-wash text-ink" : "text-ink-soft"}`}>
                     {!pick.found ? (
                       <span className="text-rust">no pick</span>
                     ) : (

@@ -1,4 +1,5 @@
 import { useLayoutEffect, useMemo, useRef, useState } from "react";
+import { chartFrame } from "../../components/charts/chart-frame.js";
 import { LazyPlot } from "../../components/charts/lazy-plot.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
 import { edgeMarks, type AxisFit, type EdgeMarks } from "./axis-fit.js";
@@ -13,9 +14,8 @@ export const WEBGL_POINTS = 5000;
 /** Above this many front points their markers are drawn small and without rims. */
 export const DENSE_FRONT = 60;
 
-/** Height of the front chart [px] and its margins around the plot area [px] (the legend sits in the top one). */
-const CHART_HEIGHT = 420;
-const MARGIN = { l: 64, r: 16, t: 40, b: 48 } as const;
+/** Height of the front chart [px] and its margins around the plot area [px] on a wide screen (the legend sits in the top one; chart-frame.ts moves it under the plot on a narrow one). */
+const WIDE_FRAME = { height: 420, margin: { l: 64, r: 16, t: 40, b: 48 } } as const;
 /** A measured plot area whose size differs from the one labels were placed for by more than this [px] places them again. */
 const REMEASURE_PX = 6;
 
@@ -97,7 +97,8 @@ export function FrontChart({
   const [width, setWidth] = useState<number | null>(null);
   // Read once before the first draw; later sizes come from plotly after it resizes (onRelayout → measure).
   useLayoutEffect(() => setWidth(box.current?.clientWidth ?? null), []);
-  const estimated = width === null ? null : { width: Math.max(1, width - MARGIN.l - MARGIN.r), height: CHART_HEIGHT - MARGIN.t - MARGIN.b };
+  const { height: chartHeight, margin, legend } = chartFrame(width, WIDE_FRAME);
+  const estimated = width === null ? null : { width: Math.max(1, width - margin.l - margin.r), height: chartHeight - margin.t - margin.b };
   const [measured, setMeasured] = useState<{ width: number; height: number; estimated: number } | null>(null);
   const size = measured !== null && measured.estimated === width ? measured : estimated;
   const frame: PlotFrame | null = size && xRange && yRange ? { width: size.width, height: size.height, xRange, yRange } : null;
@@ -245,7 +246,8 @@ export function FrontChart({
   const layout = baseLayout({
     xaxis: axis(xTitle, { type, ...(xRange ? { range: [...xRange] } : {}), ...ticks("x") }),
     yaxis: axis(yTitle, { type, ...(yRange ? { range: [...yRange] } : {}), ...ticks("y") }),
-    margin: MARGIN,
+    margin,
+    legend,
     hovermode: "closest",
     clickmode: "event",
     // The user's zoom is kept across re-renders (a click) until the axes or the fitted ranges change.
@@ -281,10 +283,10 @@ export function FrontChart({
       data-labels={labels.length}
     >
       {width === null ? (
-        <div style={{ height: CHART_HEIGHT }} />
+        <div style={{ height: chartHeight }} />
       ) : (
         <LazyPlot
-          height={CHART_HEIGHT}
+          height={chartHeight}
           data={data}
           layout={layout}
           config={FRONT_CHART_CONFIG}

@@ -1,4 +1,5 @@
 import { useMemo, useState } from "react";
+import { useSearchParams } from "react-router";
 import type { CriterionId, SweepDetailDto } from "@loopyard/core";
 import { useCandidate, useCandidateResponse, useFront, usePoints } from "../../api/use-fronts.js";
 import { useCandidateFrequency, useReferences } from "../../api/use-references.js";
@@ -17,6 +18,10 @@ import { ReferenceLegend } from "./reference-legend.js";
 import { baselinePoints, boundTrace } from "./reference-points.js";
 import { ResponseChart } from "./response-chart.js";
 import { SensitivityChart } from "./sensitivity-chart.js";
+import { Button } from "../../components/button.js";
+import { ProposeDialog, type ProposeTarget } from "../decisions/propose-dialog.js";
+import { baselineTarget, candidateTarget, initialCandidate } from "../decisions/propose-targets.js";
+import { useWorkspaceRole } from "../workspace/use-workspace-role.js";
 import { VariantScoresTable, aggregateName } from "./variant-scores-table.js";
 import { formatCount } from "../sweeps/sweep-progress.js";
 import { Link } from "react-router";
@@ -31,7 +36,12 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
   const [chosenX, setX] = useState<CriterionId | null>(null);
   const [chosenY, setY] = useState<CriterionId | null>(null);
   const [logAxes, setLogAxes] = useState(false);
-  const [selected, setSelected] = useState<number | null>(null);
+  // A link may name the candidate to open with (?candidate=N, e.g. from a decision's page).
+  const [searchParams] = useSearchParams();
+  const [selected, setSelected] = useState<number | null>(() => initialCandidate(searchParams.get("candidate"), sweep.total));
+  // Proposing a design (engineers and up): the front's rows, the clicked candidate and the baselines.
+  const { canEdit: canPropose } = useWorkspaceRole();
+  const [proposing, setProposing] = useState<ProposeTarget | null>(null);
   // Show every candidate (plotly's autorange) instead of axes fitted to the front and most of the cloud.
   const [showAll, setShowAll] = useState(false);
   // The variant of the family whose response and |S|, |T| are drawn (0, the first, until the user picks).
@@ -183,6 +193,18 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
               x={x}
               y={y}
             />
+            {canPropose && references.data && references.data.baselines.some((b) => b.status === "stable") ? (
+              <div className="mt-2 flex flex-wrap items-center gap-1.5 text-xs text-ink-soft" data-testid="propose-baselines">
+                <span>Propose a baseline:</span>
+                {references.data.baselines
+                  .filter((b) => b.status === "stable" && baselineTarget(sweep, b) !== null)
+                  .map((b) => (
+                    <Button key={`${b.rule}-${b.variant}`} className="px-2 py-0.5 text-xs" onClick={() => setProposing(baselineTarget(sweep, b))} data-testid="propose-baseline">
+                      {b.label}
+                    </Button>
+                  ))}
+              </div>
+            ) : null}
             <p className="mt-2 text-xs text-ink-faint">
               {criterionShortLabel(x)}: {criterionDescription(x)} {x !== y ? `${criterionShortLabel(y)}: ${criterionDescription(y)}` : ""}
             </p>
@@ -206,6 +228,16 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
               />
             </Section>
           ) : null}
+          {canPropose && selected !== null ? (
+            <div className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-line bg-sheet px-4 py-2.5 text-sm" data-testid="chosen-candidate-bar">
+              <span>
+                Candidate <span className="font-mono">#{selected}</span> is chosen.
+              </span>
+              <Button tone="primary" onClick={() => setProposing(candidateTarget(sweep, selected))} data-testid="propose-chosen">
+                Propose candidate #{selected}
+              </Button>
+            </div>
+          ) : null}
           <CandidateResponse slug={slug} sweep={sweep} index={selected} variant={variant} onVariant={setVariant} />
           {selected !== null && DEPLOYABLE.has(sweep.definition.structure) ? (
             <p className="-mt-3 text-right text-sm">
@@ -224,9 +256,19 @@ export function FrontPanel({ slug, sweep }: { slug: string; sweep: SweepDetailDt
         ) : front.isError ? (
           <ErrorNote error={front.error} title="Could not compute the front" />
         ) : (
-          <FrontTable rows={frontRows} parameters={sweep.parameters} criteria={sweep.criteria} x={x} y={y} selected={selected} onSelect={setSelected} />
+          <FrontTable
+            rows={frontRows}
+            parameters={sweep.parameters}
+            criteria={sweep.criteria}
+            x={x}
+            y={y}
+            selected={selected}
+            onSelect={setSelected}
+            onPropose={canPropose ? (index) => setProposing(candidateTarget(sweep, index)) : undefined}
+          />
         )}
       </Section>
+      <ProposeDialog slug={slug} target={proposing} onClose={() => setProposing(null)} />
     </div>
   );
 }

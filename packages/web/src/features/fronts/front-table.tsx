@@ -33,6 +33,7 @@ export function FrontTable({
   y,
   selected,
   onSelect,
+  onPropose,
 }: {
   rows: readonly CandidateDto[];
   parameters: readonly string[];
@@ -41,6 +42,8 @@ export function FrontTable({
   y: CriterionId;
   selected: number | null;
   onSelect: (index: number) => void;
+  /** Proposes the row's candidate as the family's decision; no column without it (a viewer). */
+  onPropose?: (index: number) => void;
 }) {
   const [showAll, setShowAll] = useState(false);
   const shown = showAll ? rows : thinRows(rows, FRONT_ROWS_SHOWN, selected);
@@ -64,6 +67,7 @@ export function FrontTable({
                 {c === x ? " (x)" : c === y ? " (y)" : ""}
               </th>
             ))}
+            {onPropose ? <th className="px-3 py-1.5" aria-label="Propose" /> : null}
           </tr>
         </thead>
         <tbody className="divide-y divide-line-soft">
@@ -92,6 +96,22 @@ export function FrontTable({
                 {criteria.map((c, i) => (
                   <ScoreCell key={c} value={row.scores?.[i] ?? null} className={axisClass(c)} digits={scoreDigits[i]} />
                 ))}
+                {onPropose ? (
+                  <td className="px-2 py-1 text-right">
+                    <Button
+                      className="px-2 py-0.5 text-xs"
+                      onClick={(event) => {
+                        event.stopPropagation();
+                        onPropose(row.index);
+                      }}
+                      onKeyDown={(event) => event.stopPropagation()}
+                      data-testid="propose-row"
+                      aria-label={`Propose candidate #${row.index}`}
+                    >
+                      Propose
+                    </Button>
+                  </td>
+                ) : null}
               </tr>
             );
           })}

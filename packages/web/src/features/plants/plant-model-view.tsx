@@ -79,34 +79,38 @@ function NonlinearModel({ model }: { model: ModelOf<"nonlinear"> }) {
           {parameters.length === 0 ? (
             <p className="text-sm text-ink-faint">None.</p>
           ) : (
-            <table className="w-full text-sm" data-testid="parameter-table">
-              <tbody className="divide-y divide-line-soft">
-                {parameters.map(([name, value]) => (
-                  <tr key={name}>
-                    <td className="py-1 pr-3 font-mono text-[13px]">{name}</td>
-                    <td className="py-1 text-right font-mono text-[13px] tabular">{formatEntry(value)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+            <div className="overflow-x-auto">
+              <table className="w-full text-sm" data-testid="parameter-table">
+                <tbody className="divide-y divide-line-soft">
+                  {parameters.map(([name, value]) => (
+                    <tr key={name}>
+                      <td className="py-1 pr-3 font-mono text-[13px]">{name}</td>
+                      <td className="py-1 text-right font-mono text-[13px] tabular">{formatEntry(value)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
           )}
         </div>
         <div>
           <h3 className="mb-1 text-xs font-medium text-ink-soft">Operating point</h3>
-          <table className="w-full text-sm" data-testid="operating-point">
-            <tbody className="divide-y divide-line-soft">
-              {model.states.map((name, i) => (
-                <tr key={name}>
-                  <td className="py-1 pr-3 font-mono text-[13px]">{name}(0)</td>
-                  <td className="py-1 text-right font-mono text-[13px] tabular">{formatEntry(model.initial[i])}</td>
+          <div className="overflow-x-auto">
+            <table className="w-full text-sm" data-testid="operating-point">
+              <tbody className="divide-y divide-line-soft">
+                {model.states.map((name, i) => (
+                  <tr key={name}>
+                    <td className="py-1 pr-3 font-mono text-[13px]">{name}(0)</td>
+                    <td className="py-1 text-right font-mono text-[13px] tabular">{formatEntry(model.initial[i])}</td>
+                  </tr>
+                ))}
+                <tr>
+                  <td className="py-1 pr-3 font-mono text-[13px]">u₀</td>
+                  <td className="py-1 text-right font-mono text-[13px] tabular">{formatEntry(model.operatingInput ?? 0)}</td>
                 </tr>
-              ))}
-              <tr>
-                <td className="py-1 pr-3 font-mono text-[13px]">u₀</td>
-                <td className="py-1 text-right font-mono text-[13px] tabular">{formatEntry(model.operatingInput ?? 0)}</td>
-              </tr>
-            </tbody>
-          </table>
+              </tbody>
+            </table>
+          </div>
         </div>
       </div>
     </div>

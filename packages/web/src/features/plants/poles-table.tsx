@@ -29,33 +29,35 @@ function formatRate(value: number): string {
 export function PolesTable({ poles }: { poles: readonly Complex[] }) {
   if (poles.length === 0) return <p className="text-sm text-ink-soft">A static gain: no poles.</p>;
   return (
-    <table className="w-full text-sm" data-testid="poles-table">
-      <thead>
-        <tr className="border-b border-line text-xs text-ink-soft">
-          <th className="px-3 py-1.5 text-right font-medium">Re</th>
-          <th className="px-3 py-1.5 text-right font-medium">Im</th>
-          <th className="px-3 py-1.5 text-right font-medium">τ [s]</th>
-          <th className="px-3 py-1.5 text-right font-medium">ωn [rad/s]</th>
-          <th className="px-3 py-1.5 text-right font-medium">ζ</th>
-          <th className="px-3 py-1.5 text-left font-medium" />
-        </tr>
-      </thead>
-      <tbody className="divide-y divide-line-soft">
-        {poles.map((p, i) => {
-          const m = poleMeaning(p);
-          return (
-            <tr key={i} data-testid="pole-row">
-              <NumberCell value={p.re} />
-              <NumberCell value={m.naturalFrequency === null ? 0 : p.im} />
-              <NumberCell value={m.timeConstant} />
-              <NumberCell value={m.naturalFrequency} />
-              <NumberCell value={m.damping} />
-              <td className={`px-3 py-1.5 text-xs ${m.stable ? "text-ink-soft" : "font-medium text-rust"}`}>{m.verdict}</td>
-            </tr>
-          );
-        })}
-      </tbody>
-    </table>
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" data-testid="poles-table">
+        <thead>
+          <tr className="border-b border-line text-xs text-ink-soft">
+            <th className="px-3 py-1.5 text-right font-medium">Re</th>
+            <th className="px-3 py-1.5 text-right font-medium">Im</th>
+            <th className="px-3 py-1.5 text-right font-medium">τ [s]</th>
+            <th className="px-3 py-1.5 text-right font-medium">ωn [rad/s]</th>
+            <th className="px-3 py-1.5 text-right font-medium">ζ</th>
+            <th className="px-3 py-1.5 text-left font-medium" />
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-line-soft">
+          {poles.map((p, i) => {
+            const m = poleMeaning(p);
+            return (
+              <tr key={i} data-testid="pole-row">
+                <NumberCell value={p.re} />
+                <NumberCell value={m.naturalFrequency === null ? 0 : p.im} />
+                <NumberCell value={m.timeConstant} />
+                <NumberCell value={m.naturalFrequency} />
+                <NumberCell value={m.damping} />
+                <td className={`px-3 py-1.5 text-xs ${m.stable ? "text-ink-soft" : "font-medium text-rust"}`}>{m.verdict}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
   );
 }
 

@@ -69,7 +69,7 @@ export function StructureSection({
         </div>
 
         <div>
-          <div className="mb-1 flex items-baseline justify-between text-xs text-ink-soft">
+          <div className="mb-1 flex flex-wrap items-baseline justify-between gap-x-3 gap-y-0.5 text-xs text-ink-soft">
             <span className="font-medium">Parameters</span>
             <span>
               {ownCount
@@ -77,8 +77,9 @@ export function StructureSection({
                 : "count values spaced from min to max; count 1 holds the parameter at min"}
             </span>
           </div>
-          <div className="grid grid-cols-[7rem_1fr_1fr_1fr_6.5rem] items-start gap-x-3 gap-y-3" data-testid="parameter-grid">
-            <span />
+          {/* On a phone each parameter's name takes a line of its own above its four fields. */}
+          <div className="grid grid-cols-[1fr_1fr_1fr_5.5rem] items-start gap-x-2 gap-y-2 sm:grid-cols-[7rem_1fr_1fr_1fr_6.5rem] sm:gap-x-3 sm:gap-y-3" data-testid="parameter-grid">
+            <span className="hidden sm:block" />
             <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">min</span>
             <span className="text-xs font-medium uppercase tracking-wide text-ink-soft">max</span>
             <span className="text-xs font-medium uppercase tracking-wide text-ink-soft" title={ownCount ? "Not used: the design sets the number of candidates." : undefined}>
@@ -182,7 +183,7 @@ function ParameterRangeRow({ row, register, errors, ownCount }: SweepSectionProp
   const rowMessage = rowErrors?.message ?? rowErrors?.root?.message;
   return (
     <>
-      <div className="pt-1.5">
+      <div className="col-span-4 flex items-baseline gap-2 pt-1.5 sm:col-span-1 sm:block">
         <div className="font-mono text-sm">{row.name}</div>
         <div className="text-[11px] leading-tight text-ink-faint">{row.unit}</div>
         <FieldErrorText field={`ranges.${row.key}`} message={rowMessage} />

@@ -8,6 +8,7 @@ import { Loading } from "../../components/loading.js";
 import { PageHeader } from "../../components/page-header.js";
 import { ProgressBar } from "../../components/progress-bar.js";
 import { Section } from "../../components/section.js";
+import { WaitingCard } from "../decisions/waiting-card.js";
 import { SweepStatusBadge } from "../sweeps/sweep-status.js";
 import { roleSentence, useWorkspaceRole } from "./use-workspace-role.js";
 
@@ -23,7 +24,7 @@ export function WorkspaceHomePage() {
     <div data-testid="workspace-home">
       <PageHeader title={home.workspace.name} subtitle={<>You are {article(home.role)} <strong className="font-medium text-ink">{home.role}</strong> here.</>} />
 
-      <div className="mb-6 grid grid-cols-3 gap-4">
+      <div className="mb-6 grid grid-cols-3 gap-2 sm:gap-4">
         <Count label="Plants in the library" value={home.counts.plants} to={`${base}/plants`} testId="count-plants" />
         <Count label="Sweeps" value={home.counts.sweeps} to={`${base}/sweeps`} testId="count-sweeps" />
         <Count label="Members" value={home.counts.members} to={`${base}/members`} testId="count-members" />
@@ -31,6 +32,7 @@ export function WorkspaceHomePage() {
 
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-3">
         <div className="space-y-6 lg:col-span-2">
+          <WaitingCard slug={slug} />
           <Section title="What to do next" testId="next-steps">
             <NextSteps home={home} base={base} canEdit={canEdit} />
           </Section>
@@ -40,8 +42,8 @@ export function WorkspaceHomePage() {
             ) : (
               <ul className="divide-y divide-line-soft">
                 {home.recentSweeps.map((s) => (
-                  <li key={s.id} className="flex items-center gap-4 py-2.5">
-                    <div className="min-w-0 flex-1">
+                  <li key={s.id} className="flex flex-wrap items-center gap-x-4 gap-y-1.5 py-2.5">
+                    <div className="min-w-0 basis-full sm:basis-auto sm:flex-1">
                       <Link to={`${base}/sweeps/${s.id}`} className="font-medium hover:text-moss">
                         {s.name}
                       </Link>
@@ -49,7 +51,7 @@ export function WorkspaceHomePage() {
                         {s.plant.name} · rev {s.plant.revisionNumber} · {formatDateTime(s.createdAt)} · {s.createdBy.name}
                       </div>
                     </div>
-                    <div className="w-40">
+                    <div className="w-40 max-w-[60%]">
                       <ProgressBar done={s.done} total={s.total} compact />
                     </div>
                     <SweepStatusBadge status={s.status} />
@@ -90,7 +92,7 @@ function Count({ label, value, to, testId }: { label: string; value: number; to?
       <div className="mt-0.5 text-xs text-ink-soft">{label}</div>
     </>
   );
-  const className = "block rounded-lg border border-line bg-sheet px-4 py-3";
+  const className = "block min-w-0 rounded-lg border border-line bg-sheet px-3 py-3 sm:px-4";
   return to ? (
     <Link to={to} className={`${className} hover:border-moss/60`} data-testid={testId}>
       {body}
@@ -174,7 +176,7 @@ function NextSteps({ home, base, canEdit }: { home: WorkspaceHomeDto; base: stri
 
 function Step({ text, children }: { text: string; children: ReactNode }) {
   return (
-    <div className="flex items-center justify-between gap-4">
+    <div className="flex flex-col items-start gap-2 sm:flex-row sm:items-center sm:justify-between sm:gap-4">
       <p className="text-sm text-ink-soft">{text}</p>
       <div className="shrink-0">{children}</div>
     </div>
