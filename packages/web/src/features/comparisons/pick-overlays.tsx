@@ -1,15 +1,10 @@
 import { useState } from "react";
 import { usePickResponses } from "../../api/use-comparisons.js";
-import { NARROW_CHART_PX, legendBelowFrame } from "../../components/charts/chart-frame.js";
 import { LazyPlot } from "../../components/charts/lazy-plot.js";
-import { useContainerWidth } from "../../components/charts/use-container-width.js";
 import { CHART_COLORS, CHART_CONFIG, axis, baseLayout } from "../../components/charts/chart-theme.js";
 import { ErrorNote } from "../../components/error-note.js";
 import { Loading } from "../../components/loading.js";
 import { pickStyle } from "./pick-styles.js";
-
-/** Height [px] of the plot area of each overlay chart. */
-const OVERLAY_PLOT_PX = 190;
 
 /**
  * Every pick's closed loop side by side on one variant: y(t) with the setpoint, u(t), and |S(jω)|,
@@ -48,11 +43,6 @@ export function PickOverlays({
     hovertemplate: `${nameOf(p)}: %{y:.4g}<br>${unit}<extra></extra>`,
   });
   const setpoint = drawn[0];
-  const [outputBox, outputWidth] = useContainerWidth();
-  const legendNames = [...(setpoint ? ["setpoint r"] : []), ...drawn.map(nameOf)];
-  const outputFrame = legendBelowFrame(outputWidth, legendNames, OVERLAY_PLOT_PX);
-  // u(t) has no legend of its own (it shares the y(t) chart's): as tall as its plot area and axis, side by side it lines up with y(t).
-  const inputHeight = outputWidth !== null && outputWidth < NARROW_CHART_PX ? outputFrame.margin.t + OVERLAY_PLOT_PX + 44 : outputFrame.height;
   return (
     <div data-testid="pick-overlays">
       <div className="mb-3 flex flex-wrap items-center gap-2 text-sm" role="radiogroup" aria-label="Variant to simulate">
@@ -89,22 +79,22 @@ export function PickOverlays({
               : `Every pick on ${variants[variant] ?? `variant ${variant + 1}`}.`}
           </p>
           <div className="grid grid-cols-1 gap-4 xl:grid-cols-2">
-            <div data-testid="overlay-output" ref={outputBox}>
+            <div data-testid="overlay-output">
               <LazyPlot
-                height={outputFrame.height}
+                height={280}
                 data={[
                   ...(setpoint ? [{ type: "scatter", mode: "lines", name: "setpoint r", x: setpoint.t, y: setpoint.r, line: { color: CHART_COLORS.faint, width: 1, dash: "dot" }, hoverinfo: "skip" }] : []),
                   ...drawn.map((p) => line(p, p.t, p.y, "t = %{x:.4g} s")),
                 ]}
-                layout={baseLayout({ xaxis: axis("time t [s]"), yaxis: axis("output y"), showlegend: true, legend: outputFrame.legend, margin: outputFrame.margin })}
+                layout={baseLayout({ xaxis: axis("time t [s]"), yaxis: axis("output y"), showlegend: true, legend: { orientation: "h", x: 0, y: -0.25, font: { size: 11 } }, margin: { l: 56, r: 16, t: 12, b: 90 } })}
                 config={CHART_CONFIG}
               />
             </div>
             <div data-testid="overlay-input">
               <LazyPlot
-                height={inputHeight}
+                height={280}
                 data={drawn.map((p) => ({ ...line(p, p.t, p.u, "t = %{x:.4g} s"), showlegend: false }))}
-                layout={baseLayout({ xaxis: axis("time t [s]"), yaxis: axis("controller output u"), showlegend: false, margin: { ...outputFrame.margin, b: inputHeight - OVERLAY_PLOT_PX - outputFrame.margin.t } })}
+                layout={baseLayout({ xaxis: axis("time t [s]"), yaxis: axis("controller output u"), showlegend: false, margin: { l: 56, r: 16, t: 12, b: 90 } })}
                 config={CHART_CONFIG}
               />
             </div>
