@@ -31,6 +31,8 @@ export const stepTestPlantInputSchema = z.object({
 export const refitInputSchema = z.object({
   name: textField({ label: "name", min: 1, required: "give the plant a name", max: 120 }).optional(),
   unitsNote: textField({ label: "units note", max: 500 }).optional(),
+  /** The new revision's change note; without one it says which model was fitted over which window. */
+  note: textField({ label: "change note", max: 500 }).optional(),
   settings: stepTestSettingsSchema,
   model: stepModelKindSchema,
   actuator: actuatorLimitsSchema.optional(),

@@ -94,5 +94,8 @@ export async function refitPlant(db: Database, compute: Compute, access: MemberA
   const stepTestId = latest.model.identification.stepTestId;
   const { fileName, report } = await fitStored(db, compute, access, stepTestId, input.settings, [input.model]);
   const model = identifiedModel(stepTestId, fileName, input.settings, report, input.model, input.actuator ?? latest.model.actuator);
-  return createRevision(db, compute, access, plantId, { name: input.name ?? latest.name, unitsNote: input.unitsNote ?? latest.unitsNote, model }, { identified: true });
+  const trim = input.settings.trim;
+  const window = `${trim?.from === undefined ? "the first row" : `${trim.from} s`} to ${trim?.to === undefined ? "the last row" : `${trim.to} s`}`;
+  const note = input.note ?? `Refitted from ${fileName} as ${input.model.toUpperCase()} over ${window}.`;
+  return createRevision(db, compute, access, plantId, { name: input.name ?? latest.name, unitsNote: input.unitsNote ?? latest.unitsNote, note, model }, { identified: true });
 }
