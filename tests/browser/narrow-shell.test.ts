@@ -86,7 +86,7 @@ describe("the shell at 390 px", () => {
     await page.waitForSelector("[data-testid=nav-panel]");
     expect(await page.getAttribute("[data-testid=nav-toggle]", "aria-expanded")).toBe("true");
     const links = await page.$$eval("[data-testid=nav-panel] a", (as) => as.map((a) => a.textContent));
-    expect(links).toEqual(["Home", "Library", "Sweeps", "Compare criteria", "Decisions"]);
+    expect(links).toEqual(["Home", "Library", "Families", "Sweeps", "Compare criteria", "Decisions", "Members"]);
     // The panel spans the window and does not widen the page.
     const panel = await page.$eval("[data-testid=nav-panel]", (el) => el.getBoundingClientRect().toJSON() as DOMRect);
     expect(panel.width).toBeLessThanOrEqual(WIDTH);
