@@ -1,6 +1,6 @@
 import type { IdentificationProvenance } from "../plants/identified.js";
 import { downsampleIndices, pick } from "../traces/downsample-trace.js";
-import { fitStepModel } from "./fit-step-model.js";
+import { fitStepModel, type StepModelFit } from "./fit-step-model.js";
 import { prepareStepTest } from "./prepare-step-test.js";
 import { readStepTest, type StepTestColumnInfo } from "./read-step-test.js";
 import type { IdentifiedTransferFunction, StepModelKind } from "./step-model.js";
@@ -9,26 +9,17 @@ import type { StepTestSettings } from "./step-test-settings.js";
 /** Most points of each plotted series of a fit report (the fit itself uses every kept sample). */
 export const FIT_PLOT_POINTS = 1500;
 
-/** One model fitted to a step test, as the API sends it. */
-export interface StepFitResult {
-  ok: true;
-  kind: StepModelKind;
-  parameters: Record<string, number>;
-  /** 95 % confidence intervals [low, high] from the Jacobian at the optimum. */
-  intervals: Record<string, [number, number]>;
-  standardErrors: Record<string, number>;
-  /** The two-point (Smith 1957) or ramp estimate the search started from. */
-  start: Record<string, number>;
-  r2: number;
-  sse: number;
-  dof: number;
-  model: IdentifiedTransferFunction;
+/**
+ * One model fitted to a step test, as the API sends it: the fit's figures (StepModelFit) without
+ * its full-length curves and step, with the curves at the plotted samples (`series.t`) instead.
+ */
+export type StepFitResult = Pick<StepModelFit, "ok" | "kind" | "parameters" | "intervals" | "standardErrors" | "start" | "r2" | "sse" | "dof" | "model"> & {
   /** Initial output level the model starts from [output unit]. */
   y0: number;
   /** The model's output and the residual y − ŷ at the plotted samples (`series.t`), in the output's unit. */
   fitted: number[];
   residuals: number[];
-}
+};
 
 /** A step test read, prepared and fitted with every requested model. */
 export interface StepTestFitReport {
